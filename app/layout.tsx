@@ -1,0 +1,24 @@
+import type { Metadata } from "next";
+import localFont from "next/font/local";
+import "katex/dist/katex.min.css";
+import "./globals.css";
+
+const figtree = localFont({
+  src: "./fonts/figtree-latin-wght-normal.woff2",
+  variable: "--font-figtree",
+  display: "swap",
+  weight: "300 900",
+});
+
+export const metadata: Metadata = {
+  title: { default: "Shuntwise", template: "%s · Shuntwise" },
+  description: "Bench labs for measuring small currents, graded by recomputing the physics.",
+};
+
+export default function RootLayout({ children }: { children: React.ReactNode }) {
+  return (
+    <html lang="en" className={figtree.variable}>
+      <body className="min-h-screen font-sans">{children}</body>
+    </html>
+  );
+}

@@ -1,0 +1,21 @@
+import type { MDXComponents } from "mdx/types";
+
+// One components map for every lesson: prose styling lives here, widgets are imported by the lessons.
+const components: MDXComponents = {
+  h2: (props) => <h2 className="mt-10 mb-3 text-2xl" {...props} />,
+  h3: (props) => <h3 className="mt-6 mb-2 text-xl" {...props} />,
+  p: (props) => <p className="my-3 leading-7" {...props} />,
+  ul: (props) => <ul className="my-3 list-disc space-y-1 pl-6" {...props} />,
+  ol: (props) => <ol className="my-3 list-decimal space-y-1 pl-6" {...props} />,
+  table: (props) => (
+    <div className="my-4 overflow-x-auto">
+      <table className="min-w-full border-collapse text-sm [&_td]:border [&_td]:border-ink/15 [&_td]:px-2 [&_td]:py-1 [&_th]:border [&_th]:border-ink/15 [&_th]:bg-paper-sunk [&_th]:px-2 [&_th]:py-1" {...props} />
+    </div>
+  ),
+  code: (props) => <code className="rounded bg-paper-sunk px-1 font-mono text-[0.9em]" {...props} />,
+  blockquote: (props) => <blockquote className="my-4 border-l-4 border-copper-light pl-4 text-ink-soft" {...props} />,
+};
+
+export function useMDXComponents(): MDXComponents {
+  return components;
+}

@@ -1,0 +1,20 @@
+import createMDX from "@next/mdx";
+
+/** @type {import('next').NextConfig} */
+const nextConfig = {
+  // A separate build folder lets tests or a second checkout build without touching the served one.
+  distDir: process.env.SHUNTWISE_DIST_DIR || ".next",
+  pageExtensions: ["ts", "tsx", "md", "mdx"],
+  serverExternalPackages: ["pg", "pg-boss", "@node-rs/argon2", "nodemailer", "s3rver", "smtp-server"],
+  poweredByHeader: false,
+};
+
+const withMDX = createMDX({
+  options: {
+    // Under Turbopack the plugins are named as strings so the options stay serialisable.
+    remarkPlugins: ["remark-math"],
+    rehypePlugins: [["rehype-katex", { strict: false, output: "html" }]],
+  },
+});
+
+export default withMDX(nextConfig);
