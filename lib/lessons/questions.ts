@@ -1,0 +1,206 @@
+// "Check yourself" questions. Each is answered in the page and checked (ungraded) by gradeAttempt on
+// the server. Prompts quote the inputs through {p.name|unit} placeholders filled from `params`, so the
+// numbers a student reads are the numbers the grader uses.
+import { formatText } from "./format";
+
+export type LessonQuestion = {
+  id: string;
+  lesson: string;
+  template: string;
+  params: Record<string, number | string>;
+  quantity: string;
+  /** the display unit suggested for the answer ("" for a plain count) */
+  unit: string;
+  prompt: string;
+};
+
+const mAh = 3.6;
+const LSB12 = 3.3 / 4096;
+const range = { fullScaleVoltage: 3.3, adcBits: 12, adcReference: 3.3 };
+
+export const questions: LessonQuestion[] = [
+  {
+    id: "safety-shunt-power",
+    lesson: "bench-safety",
+    template: "shunt-selection",
+    params: { maxCurrent: 3.3, maxBurden: 0.1, series: "E24" },
+    quantity: "shuntPower",
+    unit: "mW",
+    prompt:
+      "The amp range of the bench meter uses the largest E24 shunt that keeps the burden under {p.maxBurden|mV} at {p.maxCurrent|A}. How much power does that shunt dissipate at full current? (Then compare it with half of the resistor's rating.)",
+  },
+  {
+    id: "burden-low-rail",
+    lesson: "burden-voltage",
+    template: "shunt-burden",
+    params: { supplyVoltage: 1.8, loadResistance: 100, shuntResistance: 10 },
+    quantity: "indicatedCurrent",
+    unit: "mA",
+    prompt:
+      "A {p.supplyVoltage|V} rail feeds a {p.loadResistance|Ω} load through an ammeter whose input resistance is {p.shuntResistance|Ω}. What current does the ammeter indicate?",
+  },
+  {
+    id: "burden-motor-drop",
+    lesson: "burden-voltage",
+    template: "shunt-burden",
+    params: { supplyVoltage: 3.0, loadResistance: 8, shuntResistance: 1.8 },
+    quantity: "burdenVoltage",
+    unit: "mV",
+    prompt:
+      "A {p.supplyVoltage|V} supply drives an {p.loadResistance|Ω} load through a meter with {p.shuntResistance|Ω} of input resistance. What is the burden voltage across the meter while it measures?",
+  },
+  {
+    id: "shunt-micro-e96",
+    lesson: "choosing-a-shunt",
+    template: "shunt-selection",
+    params: { maxCurrent: 3.3e-6, maxBurden: 10e-3, series: "E96" },
+    quantity: "standardShunt",
+    unit: "kΩ",
+    prompt:
+      "Full scale is {p.maxCurrent|µA} and the burden must stay at or below {p.maxBurden|mV}. Which E96 resistor do you fit?",
+  },
+  {
+    id: "shunt-floor-e24",
+    lesson: "choosing-a-shunt",
+    template: "shunt-selection",
+    params: { maxCurrent: 120e-3, maxBurden: 50e-3, series: "E24" },
+    quantity: "standardShunt",
+    unit: "Ω",
+    prompt:
+      "A radio module draws up to {p.maxCurrent|mA} and tolerates at most {p.maxBurden|mV} of burden. Which E24 value do you fit? (Careful: the nearest value is not always allowed.)",
+  },
+  {
+    id: "range-radio-volts",
+    lesson: "ranges-and-full-scale",
+    template: "range-resolution",
+    params: { current: 750e-6, ...range },
+    quantity: "outputVoltage",
+    unit: "V",
+    prompt: "The node draws {p.current|µA} while its sensor warms up. On the best range of the course meter, what output voltage do you read?",
+  },
+  {
+    id: "autorange-edge-code",
+    lesson: "auto-ranging",
+    template: "range-resolution",
+    params: { current: 3.3e-6, ...range },
+    quantity: "adcCode",
+    unit: "",
+    prompt:
+      "A steady {p.current|µA} has pushed the meter off the nA range. Which ADC code does the 12-bit converter report on the range it is now on (truncating converter)?",
+  },
+  {
+    id: "resolution-code",
+    lesson: "resolution",
+    template: "range-resolution",
+    params: { current: 500e-9, ...range },
+    quantity: "adcCode",
+    unit: "",
+    prompt: "The node sleeps at {p.current|nA}. Which 12-bit code does the meter's converter report on the best range (truncating converter)?",
+  },
+  {
+    id: "resolution-step",
+    lesson: "resolution",
+    template: "range-resolution",
+    params: { current: 3.4e-3, ...range },
+    quantity: "currentResolution",
+    unit: "mA",
+    prompt: "At {p.current|mA} the meter must use its least sensitive range. What current does one ADC step represent there?",
+  },
+  {
+    id: "filter-cutoff",
+    lesson: "filtering-and-settling",
+    template: "filter-noise",
+    params: { filterResistance: 10e3, filterCapacitance: 100e-9, shuntResistance: 10e3, temperature: 300 },
+    quantity: "cutoffFrequency",
+    unit: "Hz",
+    prompt: "The output filter is {p.filterResistance|kΩ} and {p.filterCapacitance|nF}. What is its −3 dB cut-off frequency?",
+  },
+  {
+    id: "filter-settle",
+    lesson: "filtering-and-settling",
+    template: "filter-noise",
+    params: { filterResistance: 1e3, filterCapacitance: 10e-6, shuntResistance: 10e3, temperature: 300 },
+    quantity: "settlingTime1pct",
+    unit: "ms",
+    prompt: "With {p.filterResistance|kΩ} and {p.filterCapacitance|µF}, how long after a step must you wait before the output is within 1 % of its final value?",
+  },
+  {
+    id: "bidir-discharge",
+    lesson: "bidirectional-currents",
+    template: "bidirectional-offset",
+    params: { offsetVoltage: 1.65, sensitivity: 1e3, outputVoltage: 0.65, fullScaleVoltage: 3.3 },
+    quantity: "signedCurrent",
+    unit: "mA",
+    prompt:
+      "In bipolar mode the zero-current output is {p.offsetVoltage|V}; the µA range gives 1 mV per µA. The output reads {p.outputVoltage|V}. What current flows, with its sign?",
+  },
+  {
+    id: "bidir-code-1000",
+    lesson: "bidirectional-currents",
+    template: "bidirectional-offset",
+    params: { offsetVoltage: 1.65, sensitivity: 1e6, outputVoltage: 1000 * LSB12, fullScaleVoltage: 3.3 },
+    quantity: "signedCurrent",
+    unit: "nA",
+    prompt:
+      "On the nA range (1 mV per nA) with the zero at {p.offsetVoltage|V}, the output reads {p.outputVoltage|V|4}. What current flows, with its sign?",
+  },
+  {
+    id: "duty-average",
+    lesson: "duty-cycled-loads",
+    template: "duty-cycle",
+    params: { sleepCurrent: 3e-6, activeCurrent: 25e-3, activeTime: 5e-3, period: 10, batteryCapacity: 220 * mAh, usableFraction: 0.8 },
+    quantity: "averageCurrent",
+    unit: "µA",
+    prompt:
+      "A node sleeps at {p.sleepCurrent|µA} and wakes every {p.period|s} for {p.activeTime|ms} at {p.activeCurrent|mA}. What is its average current?",
+  },
+  {
+    id: "duty-life",
+    lesson: "duty-cycled-loads",
+    template: "duty-cycle",
+    params: { sleepCurrent: 2e-6, activeCurrent: 20e-3, activeTime: 10e-3, period: 1, batteryCapacity: 220 * mAh, usableFraction: 0.8 },
+    quantity: "batteryLife",
+    unit: "h",
+    prompt:
+      "The node sleeps at {p.sleepCurrent|µA}, and once every {p.period|s} wakes for {p.activeTime|ms} at {p.activeCurrent|mA}. Its cell holds {p.batteryCapacity|mAh} and you count on {p.usableFraction|%x} of it. How long does it run?",
+  },
+  {
+    id: "noise-megohm",
+    lesson: "noise-floor",
+    template: "filter-noise",
+    params: { filterResistance: 10e3, filterCapacitance: 100e-9, shuntResistance: 1e6, temperature: 300 },
+    quantity: "thermalNoiseCurrent",
+    unit: "pA",
+    prompt:
+      "A {p.shuntResistance|MΩ} shunt at {p.temperature|K} is followed by a {p.filterResistance|kΩ} / {p.filterCapacitance|nF} low-pass filter. What rms noise current does the shunt's thermal noise amount to?",
+  },
+  {
+    id: "unc-amp-expanded",
+    lesson: "uncertainty-budget",
+    template: "uncertainty",
+    params: { reading: 50e-3, readingAccuracyPercent: 0.5, readingCounts: 2, countSize: 0.1e-3, shuntResistance: 0.1, shuntTolerancePercent: 1, coverageFactor: 2 },
+    quantity: "expandedUncertainty",
+    unit: "mA",
+    prompt:
+      "The voltmeter reads {p.reading|mV} across a {p.shuntResistance|Ω} ±{p.shuntTolerancePercent|%} shunt. Its specification is ±({p.readingAccuracyPercent|%} of reading + {p.readingCounts|} counts), one count being {p.countSize|mV}. State the expanded uncertainty of the current for k = {p.coverageFactor|}.",
+  },
+];
+
+/** Fills {p.name|unit} (optionally |sig) placeholders with the question's own inputs. "%x" shows a fraction as a percentage. */
+export function renderPrompt(q: LessonQuestion): string {
+  return q.prompt.replace(/\{p\.([A-Za-z0-9]+)\|([^|}]*)(?:\|(\d+))?\}/g, (_, name: string, unit: string, sig?: string) => {
+    const v = q.params[name];
+    if (v === undefined) throw new Error(`question ${q.id} has no parameter ${name}`);
+    if (typeof v === "string") return v;
+    if (unit === "%x") return formatText(v * 100, "%", { trim: true });
+    return formatText(v, unit, { trim: !sig, sig: sig ? Number(sig) : 4 });
+  });
+}
+
+export function questionsFor(lesson: string): LessonQuestion[] {
+  return questions.filter((q) => q.lesson === lesson);
+}
+
+export function getQuestion(id: string): LessonQuestion | undefined {
+  return questions.find((q) => q.id === id);
+}
