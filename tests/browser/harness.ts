@@ -9,11 +9,11 @@ export const baseURL = process.env.SHUNTWISE_TEST_URL ?? "http://127.0.0.1:3100"
 
 export const demo = {
   password: "bench-demo-2026",
-  admin: "admin@northfield-tech.example",
-  instructor: "instructor@northfield-tech.example",
-  ta: "ta.one@northfield-tech.example",
-  student: "student.one@northfield-tech.example",
-  student2: "student.two@northfield-tech.example",
+  admin: "admin@larkmoor-tech.example",
+  instructor: "instructor@larkmoor-tech.example",
+  ta: "ta.one@larkmoor-tech.example",
+  student: "student.one@larkmoor-tech.example",
+  student2: "student.two@larkmoor-tech.example",
 };
 
 export async function launch(): Promise<Browser> {

@@ -1,0 +1,26 @@
+import Link from "next/link";
+import { SignOutButton } from "@/components/shell/sign-out-button";
+import { Wordmark } from "@/components/shell/wordmark";
+import { currentUser } from "@/lib/auth/access";
+
+export default async function AppLayout({ children }: { children: React.ReactNode }) {
+  const user = await currentUser();
+  return (
+    <div className="min-h-screen">
+      <header className="no-print border-b border-ink/10 bg-paper-raised">
+        <div className="mx-auto flex max-w-5xl items-center justify-between px-4 py-3">
+          <Link href="/" className="no-underline" aria-label="Shuntwise: my courses">
+            <Wordmark small />
+          </Link>
+          {user ? (
+            <div className="flex items-center gap-3 text-sm">
+              <span className="text-ink-soft">{user.name}</span>
+              <SignOutButton />
+            </div>
+          ) : null}
+        </div>
+      </header>
+      <main className="mx-auto max-w-5xl px-4 py-8">{children}</main>
+    </div>
+  );
+}

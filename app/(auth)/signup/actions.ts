@@ -1,0 +1,20 @@
+"use server";
+
+import { signUpStudent } from "@/lib/courses";
+import { AppError, type FieldErrors } from "@/lib/errors";
+import { signUpSchema } from "@/lib/validation/auth";
+import { fieldErrors } from "@/lib/validation/zod-errors";
+
+export type SignUpState = { ok: true; courseId: string } | { ok: false; message: string; fields?: FieldErrors };
+
+export async function signUpAction(input: unknown): Promise<SignUpState> {
+  const parsed = signUpSchema.safeParse(input);
+  if (!parsed.success) return { ok: false, message: "Check the highlighted fields.", fields: fieldErrors(parsed.error) };
+  try {
+    const { course } = await signUpStudent(parsed.data);
+    return { ok: true, courseId: course.id };
+  } catch (e) {
+    if (e instanceof AppError) return { ok: false, message: e.message, fields: e.fields };
+    throw e;
+  }
+}

@@ -1,0 +1,39 @@
+"use client";
+
+import { zodResolver } from "@hookform/resolvers/zod";
+import { signIn } from "next-auth/react";
+import { useRouter } from "next/navigation";
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import { Field, FormMessage } from "@/components/ui/field";
+import { signInSchema, type SignInInput } from "@/lib/validation/auth";
+
+export const BAD_CREDENTIALS = "That e-mail and password do not match an account. Check both and try again.";
+
+export function SignInForm({ next }: { next?: string }) {
+  const router = useRouter();
+  const [message, setMessage] = useState<string | null>(null);
+  const { register, handleSubmit, formState } = useForm<SignInInput>({ resolver: zodResolver(signInSchema) });
+
+  const onSubmit = handleSubmit(async (values) => {
+    setMessage(null);
+    const res = await signIn("credentials", { ...values, redirect: false });
+    if (!res || res.error) {
+      setMessage(BAD_CREDENTIALS);
+      return;
+    }
+    router.push(next && next.startsWith("/") && !next.startsWith("//") ? next : "/");
+    router.refresh();
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate aria-label="Sign in">
+      <FormMessage message={message} />
+      <Field label="E-mail" type="email" autoComplete="email" error={formState.errors.email?.message} {...register("email")} />
+      <Field label="Password" type="password" autoComplete="current-password" error={formState.errors.password?.message} {...register("password")} />
+      <button type="submit" className="btn-primary w-full" disabled={formState.isSubmitting}>
+        {formState.isSubmitting ? "Signing in…" : "Sign in"}
+      </button>
+    </form>
+  );
+}

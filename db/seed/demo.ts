@@ -1,0 +1,101 @@
+// The demo: an invented technical college's course on measuring small currents. Every name here is
+// made up. Seeding is idempotent: existing rows are left as they are, so a second run keeps the data.
+import type { Kysely } from "kysely";
+import { hash } from "@node-rs/argon2";
+import type { Database, Role } from "../types";
+
+export const DEMO_PASSWORD = "bench-demo-2026";
+export const DEMO_DOMAIN = "larkmoor-tech.example";
+export const DEMO_COURSE = {
+  code: "ELM-214",
+  title: "Measuring Small Currents",
+  term: "Spring 2027",
+  institution: "Larkmoor Technical College",
+  joinCode: "LARK-214",
+};
+export const SECOND_COURSE = {
+  code: "ELM-305",
+  title: "Precision Instrumentation Workshop",
+  term: "Spring 2027",
+  institution: "Larkmoor Technical College",
+  joinCode: "LARK-305",
+};
+
+export const demoLogins: { role: string; email: string; name: string }[] = [
+  { role: "admin", email: `admin@${DEMO_DOMAIN}`, name: "Orla Penhallow" },
+  { role: "instructor", email: `instructor@${DEMO_DOMAIN}`, name: "Dr. Tamsin Okonkwo-Reyes" },
+  { role: "ta", email: `ta.one@${DEMO_DOMAIN}`, name: "Bram Eskildsen" },
+  { role: "student", email: `student.one@${DEMO_DOMAIN}`, name: "Noor Halvorsen" },
+  { role: "student", email: `student.two@${DEMO_DOMAIN}`, name: "Felix Adeyemi-Strand" },
+];
+
+const FIRST = ["Ada", "Bilal", "Catalina", "Dmitri", "Elif", "Farah", "Gustav", "Hana", "Ismael", "Jonna", "Kofi", "Lucia", "Mateo", "Nadia", "Oskar", "Priya", "Quentin", "Rosa", "Sami", "Talia"];
+const LAST = ["Abernethy-Lund", "Brightwater", "Castellane", "Duvekot", "Elmsworth", "Fairhaven", "Grisdale", "Hollinrake", "Ingleby", "Jessamyn"];
+
+/** 38 further students, named from invented first-name and surname lists. */
+export function demoStudents(): { email: string; name: string; section: string }[] {
+  const out: { email: string; name: string; section: string }[] = [];
+  for (let i = 0; out.length < 38; i++) {
+    const first = FIRST[i % FIRST.length];
+    const last = LAST[(i * 7 + Math.floor(i / FIRST.length)) % LAST.length];
+    const n = String(out.length + 3).padStart(2, "0");
+    out.push({ name: `${first} ${last}`, email: `student.${n}@${DEMO_DOMAIN}`, section: out.length % 2 ? "B" : "A" });
+  }
+  return out;
+}
+
+async function upsertUser(db: Kysely<Database>, u: { email: string; name: string; isAdmin?: boolean }, passwordHash: string) {
+  const existing = await db.selectFrom("users").select("id").where("email", "=", u.email).executeTakeFirst();
+  if (existing) return existing.id;
+  const row = await db
+    .insertInto("users")
+    .values({ email: u.email, name: u.name, password_hash: passwordHash, is_admin: u.isAdmin ?? false })
+    .returning("id")
+    .executeTakeFirstOrThrow();
+  return row.id;
+}
+
+async function upsertCourse(db: Kysely<Database>, c: typeof DEMO_COURSE) {
+  const existing = await db.selectFrom("courses").select("id").where("code", "=", c.code).executeTakeFirst();
+  if (existing) return existing.id;
+  const row = await db
+    .insertInto("courses")
+    .values({ code: c.code, title: c.title, term: c.term, institution: c.institution, join_code: c.joinCode })
+    .returning("id")
+    .executeTakeFirstOrThrow();
+  return row.id;
+}
+
+async function member(db: Kysely<Database>, courseId: string, userId: string, role: Role, section: string | null = null) {
+  await db
+    .insertInto("memberships")
+    .values({ course_id: courseId, user_id: userId, role, section })
+    .onConflict((oc) => oc.columns(["course_id", "user_id"]).doNothing())
+    .execute();
+}
+
+export async function seedDemo(db: Kysely<Database>): Promise<{ courseId: string }> {
+  const passwordHash = await hash(DEMO_PASSWORD); // argon2id, the library default
+  return db.transaction().execute(async (trx) => {
+    const courseId = await upsertCourse(trx, DEMO_COURSE);
+    const secondId = await upsertCourse(trx, SECOND_COURSE);
+    const ids: Record<string, string> = {};
+    for (const l of demoLogins) ids[l.email] = await upsertUser(trx, { ...l, isAdmin: l.role === "admin" }, passwordHash);
+
+    await member(trx, courseId, ids[`instructor@${DEMO_DOMAIN}`], "instructor");
+    await member(trx, courseId, ids[`ta.one@${DEMO_DOMAIN}`], "ta", "A");
+    const ta2 = await upsertUser(trx, { email: `ta.two@${DEMO_DOMAIN}`, name: "Ines Marchetti-Oduya" }, passwordHash);
+    await member(trx, courseId, ta2, "ta", "B");
+    await member(trx, courseId, ids[`student.one@${DEMO_DOMAIN}`], "student", "A");
+    await member(trx, courseId, ids[`student.two@${DEMO_DOMAIN}`], "student", "B");
+    for (const s of demoStudents()) {
+      const id = await upsertUser(trx, s, passwordHash);
+      await member(trx, courseId, id, "student", s.section);
+    }
+
+    // Roles are per course: the first TA is a student in the advanced workshop.
+    await member(trx, secondId, ids[`instructor@${DEMO_DOMAIN}`], "instructor");
+    await member(trx, secondId, ids[`ta.one@${DEMO_DOMAIN}`], "student");
+    return { courseId };
+  });
+}

@@ -1,0 +1,36 @@
+// next-auth configuration: e-mail and password, JWT sessions that carry only the user id.
+import type { NextAuthOptions } from "next-auth";
+import CredentialsProvider from "next-auth/providers/credentials";
+import { db } from "@/db";
+import { findCredentials } from "@/db/queries/users";
+import { signInSchema } from "@/lib/validation/auth";
+import { checkPassword } from "./password";
+
+export const authOptions: NextAuthOptions = {
+  session: { strategy: "jwt", maxAge: 14 * 24 * 3600 },
+  pages: { signIn: "/signin", error: "/signin" },
+  providers: [
+    CredentialsProvider({
+      name: "E-mail and password",
+      credentials: { email: { label: "E-mail", type: "email" }, password: { label: "Password", type: "password" } },
+      async authorize(raw) {
+        const parsed = signInSchema.safeParse(raw);
+        if (!parsed.success) return null;
+        const found = await findCredentials(db, parsed.data.email);
+        const ok = await checkPassword(found?.passwordHash, parsed.data.password);
+        if (!found || !ok) return null;
+        return { id: found.id };
+      },
+    }),
+  ],
+  callbacks: {
+    async jwt({ token, user }) {
+      if (user) token.sub = user.id;
+      // Nothing else goes into the token: names, roles and the admin flag are read fresh on each request.
+      return { sub: token.sub, iat: token.iat, exp: token.exp, jti: token.jti };
+    },
+    async session({ session, token }) {
+      return { expires: session.expires, user: { id: token.sub } } as typeof session;
+    },
+  },
+};

@@ -1,0 +1,46 @@
+// Builds the app with `next build` when its sources changed since the last build in that folder.
+import crypto from "node:crypto";
+import fs from "node:fs";
+import path from "node:path";
+import { spawnSync } from "node:child_process";
+import { root } from "./config";
+
+const SOURCES = ["app", "components", "lib", "content", "db", "public", "proxy.ts", "mdx-components.tsx", "next.config.mjs", "tailwind.config.ts", "postcss.config.mjs", "tsconfig.json", "package-lock.json"];
+
+function* files(p: string): Generator<string> {
+  if (!fs.existsSync(p)) return;
+  const st = fs.statSync(p);
+  if (st.isFile()) {
+    yield p;
+    return;
+  }
+  for (const name of fs.readdirSync(p).sort()) yield* files(path.join(p, name));
+}
+
+export function sourceHash(): string {
+  const h = crypto.createHash("sha256");
+  for (const s of SOURCES) {
+    for (const f of files(path.join(root, s))) {
+      h.update(path.relative(root, f));
+      h.update(fs.readFileSync(f));
+    }
+  }
+  return h.digest("hex");
+}
+
+export function buildIfStale(distDir: string, env: NodeJS.ProcessEnv): void {
+  const stamp = path.join(root, distDir, "shuntwise-source-hash");
+  const hash = sourceHash();
+  if (fs.existsSync(stamp) && fs.readFileSync(stamp, "utf8") === hash && fs.existsSync(path.join(root, distDir, "BUILD_ID"))) {
+    console.log(`Build in ${distDir} is up to date.`);
+    return;
+  }
+  console.log(`Building the app into ${distDir} (next build)…`);
+  const r = spawnSync(process.execPath, [path.join(root, "node_modules/next/dist/bin/next"), "build"], {
+    cwd: root,
+    stdio: "inherit",
+    env: { ...env, SHUNTWISE_DIST_DIR: distDir, NEXT_TELEMETRY_DISABLED: "1" },
+  });
+  if (r.status !== 0) throw new Error("next build failed; see the messages above.");
+  fs.writeFileSync(stamp, hash);
+}

@@ -1,0 +1,36 @@
+// Creates a course with an instructor, a TA, a student and an outsider in the test server's database.
+import { hash } from "@node-rs/argon2";
+import { e2eDb, uniqueEmail } from "../support/db";
+import { Client } from "../support/http";
+
+export const PASSWORD = "fixture-password-1";
+
+export async function courseWithPeople() {
+  const db = e2eDb();
+  try {
+    const passwordHash = await hash(PASSWORD);
+    const tag = Math.random().toString(36).slice(2, 8).toUpperCase();
+    const course = await db
+      .insertInto("courses")
+      .values({ code: `T-${tag}`, title: `Fixture course ${tag}`, term: "T", institution: "Fixture college", join_code: `J-${tag}` })
+      .returning(["id", "join_code"])
+      .executeTakeFirstOrThrow();
+    const people: Record<"instructor" | "ta" | "student" | "outsider", { id: string; email: string }> = {} as never;
+    for (const role of ["instructor", "ta", "student", "outsider"] as const) {
+      const email = uniqueEmail(role);
+      const u = await db.insertInto("users").values({ email, name: `Fixture ${role}`, password_hash: passwordHash }).returning("id").executeTakeFirstOrThrow();
+      people[role] = { id: u.id, email };
+      if (role !== "outsider") await db.insertInto("memberships").values({ course_id: course.id, user_id: u.id, role }).execute();
+    }
+    return { courseId: course.id, joinCode: course.join_code, people };
+  } finally {
+    await db.destroy();
+  }
+}
+
+export async function clientFor(email: string): Promise<Client> {
+  const c = new Client();
+  const ok = await c.signIn(email, PASSWORD);
+  if (!ok) throw new Error(`could not sign in as ${email}`);
+  return c;
+}
