@@ -1,0 +1,305 @@
+// Grading an attempt: expected values from the student's parameters, acceptance bands, verdicts,
+// recognised mistakes, feedback and worked solutions.
+import { z } from "zod";
+import type { MistakeCandidate, MistakeKey, Params, QuantitySpec, QuantityValue, Template, TemplateKey } from "./types";
+import { templates } from "./templates";
+import { parseQuantity } from "./units";
+import { formatQuantity, texQuantity } from "./format";
+import { MISTAKES } from "./mistakes";
+import { graderVersion } from "./constants";
+
+export const questionSchema = z.object({
+  /** optional id, used to look up the reading when readings are keyed */
+  id: z.string().optional(),
+  quantity: z.string(),
+  kind: z.enum(["prediction", "bench"]),
+  points: z.number().min(0),
+  /** overrides the policy's relative tolerance for this question, in percent */
+  tolerancePercent: z.number().positive().optional(),
+});
+export type Question = z.infer<typeof questionSchema>;
+
+export const gradePolicySchema = z.object({
+  relativeTolerance: z.number().positive().default(0.01),
+  closeMultiple: z.number().min(1).default(2),
+  closeCredit: z.number().min(0).max(1).default(0.5),
+  /** parameter key → tolerance in percent (resistor tolerances) */
+  componentTolerances: z.record(z.string(), z.number().min(0)).optional(),
+  /** accuracy of the student's instrument for bench readings, percent of reading */
+  instrumentAccuracyPercent: z.number().min(0).optional(),
+});
+export type GradePolicy = z.input<typeof gradePolicySchema>;
+
+export type Verdict = "correct" | "close" | "mistake" | "unit" | "wrong" | "missing";
+export type Reading = string | number | null | undefined;
+
+export interface GradeInput {
+  template: TemplateKey | Template;
+  params: Params;
+  questions: Question[];
+  /** one reading per question (same order), or keyed by question id, else by quantity key */
+  readings: Reading[] | Record<string, Reading>;
+  /** measured values of the student's components; bench expected values are recomputed from them */
+  measuredParams?: Params;
+  policy?: GradePolicy;
+}
+
+export interface QuestionResult {
+  id?: string;
+  quantity: string;
+  kind: "prediction" | "bench";
+  verdict: Verdict;
+  points: number;
+  maxPoints: number;
+  expected: QuantityValue;
+  /** [lo, hi] in SI; null for a category answer */
+  band: [number, number] | null;
+  /** the answer as read (SI number or category text), null when missing or unreadable */
+  answer: number | string | null;
+  /** the answer echoed back in words, e.g. "9.10 µA" */
+  readAs?: string;
+  mistake?: MistakeKey;
+  /** how the band was set, in words */
+  method: string;
+  feedback: string;
+  solution: string[];
+}
+
+export interface GradeResult {
+  template: TemplateKey;
+  score: number;
+  maxScore: number;
+  graderVersion: string;
+  results: QuestionResult[];
+}
+
+const NON_PREFIX_DISPLAY = new Set(["h", "d", "min", "mAh", "Ah", "°C"]);
+
+function fmt(v: number, spec: QuantitySpec): string {
+  return formatQuantity(v, spec.unit, NON_PREFIX_DISPLAY.has(spec.displayUnit) ? { displayUnit: spec.displayUnit } : undefined);
+}
+
+function normaliseCategory(s: string): string {
+  return s
+    .trim()
+    .toLowerCase()
+    .replace(/[µμ]/g, "u")
+    .replace(/\s+/g, "")
+    .replace(/range$/, "");
+}
+
+function lookupReading(input: GradeInput, q: Question, index: number): Reading {
+  const r = input.readings;
+  if (Array.isArray(r)) return r[index];
+  if (q.id !== undefined && q.id in r) return r[q.id];
+  return r[q.quantity];
+}
+
+function pct(x: number): string {
+  return `${Number((100 * x).toPrecision(3))} %`;
+}
+
+/** Per-attempt cache of computed values for the nominal, measured and perturbed parameter sets. */
+class Evaluator {
+  private cache = new Map<string, Record<string, QuantityValue>>();
+  constructor(private t: Template) {}
+  values(tag: string, p: Params): Record<string, QuantityValue> {
+    let v = this.cache.get(tag);
+    if (!v) {
+      v = this.t.compute(p);
+      this.cache.set(tag, v);
+    }
+    return v;
+  }
+}
+
+/**
+ * Worst-case first-order propagation: Σ |∂q/∂x_i| · Δx_i over the toleranced parameters, with central
+ * numerical derivatives (relative step 1e-6).
+ */
+function propagate(ev: Evaluator, tag: string, p: Params, q: string, tolerances: Record<string, number>, skip: Params | undefined): number {
+  let sum = 0;
+  for (const key in tolerances) {
+    const tol = tolerances[key];
+    const x = p[key];
+    if (!(tol > 0) || typeof x !== "number" || x === 0 || (skip && key in skip)) continue;
+    const h = Math.abs(x) * 1e-6;
+    const up = ev.values(`${tag}+${key}`, { ...p, [key]: x + h })[q] as number;
+    const down = ev.values(`${tag}-${key}`, { ...p, [key]: x - h })[q] as number;
+    const d = (up - down) / (2 * h);
+    if (Number.isFinite(d)) sum += Math.abs(d) * Math.abs(x) * (tol / 100);
+  }
+  return sum;
+}
+
+function paramLabel(t: Template, key: string): string {
+  return t.parameters.find((p) => p.key === key)?.label.toLowerCase() ?? key;
+}
+
+/** Grade one attempt. Throws only for a question naming a quantity the template does not have. */
+export function gradeAttempt(input: GradeInput): GradeResult {
+  const t = typeof input.template === "string" ? templates[input.template] : input.template;
+  if (!t) throw new Error(`Unknown template "${String(input.template)}"`);
+  const policy = input.policy ?? {};
+  const relDefault = policy.relativeTolerance ?? 0.01;
+  const closeMultiple = policy.closeMultiple ?? 2;
+  const closeCredit = policy.closeCredit ?? 0.5;
+  const tolerances = policy.componentTolerances ?? {};
+  const instrument = policy.instrumentAccuracyPercent ?? 0;
+  const measured = input.measuredParams && Object.keys(input.measuredParams).length > 0 ? input.measuredParams : undefined;
+  const benchParams = measured ? { ...input.params, ...measured } : input.params;
+  const ev = new Evaluator(t);
+
+  const results: QuestionResult[] = [];
+  let score = 0;
+  let maxScore = 0;
+  input.questions.forEach((q, index) => {
+    const spec = t.quantities.find((s) => s.key === q.quantity);
+    if (!spec) throw new Error(`Template "${t.key}" has no quantity "${q.quantity}"`);
+    const bench = q.kind === "bench";
+    const tag = bench && measured ? "measured" : "nominal";
+    const p = bench && measured ? benchParams : input.params;
+    const expected = ev.values(tag, p)[q.quantity];
+    const reading = lookupReading(input, q, index);
+    const r = spec.kind === "category" ? gradeCategory(t, spec, p, q, expected as string, reading) : gradeNumber(t, spec, p, q, expected as number, reading, {
+      ev, tag, rel: q.tolerancePercent !== undefined ? q.tolerancePercent / 100 : relDefault,
+      closeMultiple, closeCredit, tolerances, instrument, measured,
+    });
+    r.maxPoints = q.points;
+    r.points = r.verdict === "correct" ? q.points : r.verdict === "close" ? q.points * closeCredit : 0;
+    if (q.id !== undefined) r.id = q.id;
+    score += r.points;
+    maxScore += q.points;
+    results.push(r);
+  });
+  return { template: t.key, score, maxScore, graderVersion, results };
+}
+
+function missing(q: Question, expected: QuantityValue, band: [number, number] | null, method: string, solution: string[]): QuestionResult {
+  return { quantity: q.quantity, kind: q.kind, verdict: "missing", points: 0, maxPoints: q.points, expected, band, answer: null, method, feedback: "No answer was given.", solution };
+}
+
+function gradeCategory(t: Template, spec: QuantitySpec, p: Params, q: Question, expected: string, reading: Reading): QuestionResult {
+  const solution = t.solution(p, q.quantity);
+  const method = "exact match";
+  const base = { quantity: q.quantity, kind: q.kind, expected, band: null, maxPoints: q.points, points: 0, method, solution };
+  if (reading === null || reading === undefined || String(reading).trim() === "") return missing(q, expected, null, method, solution);
+  const answer = normaliseCategory(String(reading));
+  const shown = (v: string) => v.replace(/^u/, "µ");
+  if (answer === normaliseCategory(expected))
+    return { ...base, verdict: "correct", answer: expected, feedback: `Correct: ${shown(expected)}.` };
+  for (const c of t.mistakes(p, q.quantity)) {
+    if (typeof c.value === "string" && normaliseCategory(c.value) === answer) {
+      const m = MISTAKES[c.key];
+      return { ...base, verdict: "mistake", mistake: c.key, answer: c.value, feedback: `${m.title}. ${c.detail ?? m.explain} ${m.fix}` };
+    }
+  }
+  const known = spec.choices?.map(normaliseCategory).includes(answer);
+  return {
+    ...base,
+    verdict: "wrong",
+    answer: String(reading).trim(),
+    feedback: known
+      ? `Not accepted: the answer is ${shown(expected)}. Compare your steps with the worked solution.`
+      : `"${String(reading).trim()}" is not one of the choices (${(spec.choices ?? []).map(shown).join(", ")}); the answer is ${shown(expected)}.`,
+  };
+}
+
+interface NumberContext {
+  ev: Evaluator;
+  tag: string;
+  rel: number;
+  closeMultiple: number;
+  closeCredit: number;
+  tolerances: Record<string, number>;
+  instrument: number;
+  measured?: Params;
+}
+
+function prefixSlips(expected: number): MistakeCandidate[] {
+  return [1e3, 1e-3, 1e6, 1e-6].map((f) => ({ key: "prefix-slip" as const, value: expected * f }));
+}
+
+function gradeNumber(t: Template, spec: QuantitySpec, p: Params, q: Question, expected: number, reading: Reading, c: NumberContext): QuestionResult {
+  const exact = t.exactBand?.(p, q.quantity);
+  const floor = t.bandFloor?.(p, q.quantity, c.rel) ?? 0;
+  const labHalf = Math.max(exact ?? c.rel * Math.abs(expected), floor);
+  let half = labHalf;
+  const labText = exact !== undefined ? `±${fmt(exact, spec)}` : `±${pct(c.rel)} lab tolerance`;
+  let method = exact !== undefined ? `fixed band ${labText}` : "lab tolerance";
+  let bandText = labText;
+
+  if (q.kind === "bench") {
+    const propagated = spec.discrete ? 0 : propagate(c.ev, c.tag, p, q.quantity, c.tolerances, c.measured);
+    const instrumentHalf = (c.instrument / 100) * Math.abs(expected);
+    const worst = propagated + instrumentHalf;
+    const parts: string[] = [];
+    for (const key in c.tolerances)
+      if (c.tolerances[key] > 0 && !(c.measured && key in c.measured) && typeof p[key] === "number") parts.push(`${paramLabel(t, key)} ±${c.tolerances[key]} %`);
+    if (c.instrument > 0) parts.push(`instrument ±${c.instrument} %`);
+    const what = parts.length ? parts.join(", ") : "no component or instrument tolerances";
+    const measuredText = c.measured ? " Expected value recomputed from your measured component values." : "";
+    if (worst > half) {
+      half = worst;
+      method = "worst-case first-order propagation";
+      bandText = `±${Math.abs(expected) > 0 ? pct(worst / Math.abs(expected)) : fmt(worst, spec)}: the wider of the ${labText} and a worst-case first-order propagation, Σ|∂q/∂x|·Δx, of ${what}.${measuredText}`;
+    } else {
+      method = exact !== undefined ? method : "lab tolerance (wider than the propagated component tolerances)";
+      bandText = `${labText}, wider than a worst-case first-order propagation of ${what}.${measuredText}`;
+    }
+  }
+  const band: [number, number] = [expected - half, expected + half];
+  const solution = t.solution(p, q.quantity);
+  const base = { quantity: q.quantity, kind: q.kind, expected, band, maxPoints: q.points, points: 0, method, solution };
+
+  // read the answer
+  let answer: number;
+  let readAs: string | undefined;
+  if (reading === null || reading === undefined || (typeof reading === "string" && reading.trim() === "")) return missing(q, expected, band, method, solution);
+  if (typeof reading === "number") {
+    if (!Number.isFinite(reading)) return missing(q, expected, band, method, solution);
+    answer = reading;
+  } else {
+    const parsed = parseQuantity(reading, spec.unit);
+    if (!parsed.ok) {
+      if (parsed.reason === "empty") return missing(q, expected, band, method, solution);
+      const verdict: Verdict = parsed.reason === "dimension" || parsed.hint === "no-unit" ? "unit" : "wrong";
+      return { ...base, verdict, answer: null, feedback: `${parsed.message} The answer is ${fmt(expected, spec)}.` };
+    }
+    answer = parsed.value;
+    readAs = fmt(answer, spec);
+  }
+  const read = readAs ? `Read as ${readAs}. ` : "";
+  const withAnswer = [...solution, `\\text{your answer: } ${texQuantity(answer, spec.unit)}`];
+  const slack = 1e-12 * Math.max(Math.abs(expected), half);
+  const result = (verdict: Verdict, feedback: string, mistake?: MistakeKey): QuestionResult => {
+    const r: QuestionResult = { ...base, solution: withAnswer, verdict, answer, feedback };
+    if (readAs) r.readAs = readAs;
+    if (mistake) r.mistake = mistake;
+    return r;
+  };
+  const range = `${fmt(band[0], spec)} to ${fmt(band[1], spec)}`;
+
+  if (Math.abs(answer - expected) <= half + slack)
+    return result("correct", `${read}Correct: within the accepted band ${range} (${bandText.replace(/\.$/, "")}).`);
+
+  // recognised wrong methods: count only when the correct value is not also inside the candidate's band
+  const relHalf = expected !== 0 ? half / Math.abs(expected) : c.rel;
+  const candidates = t.mistakes(p, q.quantity);
+  if (spec.unit !== "" && spec.unit !== "%") candidates.push(...prefixSlips(expected));
+  for (const m of candidates) {
+    if (typeof m.value !== "number" || !Number.isFinite(m.value)) continue;
+    const cHalf = Math.max(exact ?? relHalf * Math.abs(m.value), floor);
+    if (Math.abs(expected - m.value) <= cHalf + slack) continue;
+    if (Math.abs(answer - m.value) <= cHalf) {
+      const info = MISTAKES[m.key];
+      return result("mistake", `${read}${info.title}. ${m.detail ?? info.explain} ${info.fix} The answer is ${fmt(expected, spec)}.`, m.key);
+    }
+  }
+  if (Math.abs(answer - expected) <= c.closeMultiple * half + slack)
+    return result(
+      "close",
+      `${read}Close: ${fmt(answer, spec)} is outside the accepted band ${range} (${bandText.replace(/\.$/, "")}) but within ${c.closeMultiple}× of it, so it earns ${Math.round(100 * c.closeCredit)} % of the points. Check your rounding and the values you used; the answer is ${fmt(expected, spec)}.`,
+    );
+  return result("wrong", `${read}Not accepted: the answer is ${fmt(expected, spec)} (accepted ${range}). Compare your steps with the worked solution.`);
+}
