@@ -4,7 +4,7 @@
 // LaTeX steps are typeset here with KaTeX, so no KaTeX code is sent to the browser.
 import katex from "katex";
 import { z } from "zod";
-import { gradeAttempt, templates } from "@/lib/grader";
+import { gradeAttempt, isTemplateKey } from "@/lib/grader";
 import { getQuestion } from "@/lib/lessons/questions";
 import { formatText } from "@/lib/lessons/format";
 
@@ -29,12 +29,13 @@ export async function checkAnswer(questionId: string, answer: string): Promise<C
   if (!q) return { ok: false, message: "This question no longer exists; reload the page." };
   if (!parsed.data.answer.trim()) return { ok: false, message: "Type an answer first, with its unit." };
 
+  if (!isTemplateKey(q.template)) return { ok: false, message: "This question's circuit is not available." };
   const result = gradeAttempt({
-    template: q.template as keyof typeof templates,
+    template: q.template,
     params: q.params,
     questions: [{ quantity: q.quantity, points: 1, kind: "prediction" }],
     readings: { [q.quantity]: parsed.data.answer },
-  } as Parameters<typeof gradeAttempt>[0]);
+  });
   const r = result.results[0];
   const expected = typeof r.expected === "number" ? formatText(r.expected, q.unit) : String(r.expected);
   return { ok: true, verdict: r.verdict, feedback: r.feedback, expected, solutionHtml: r.solution.map(tex) };

@@ -17,12 +17,13 @@ export function unitScale(unit: string): number {
   throw new Error(`unknown display unit "${unit}"`);
 }
 
-export type FormatOptions = { sig?: number; trim?: boolean };
+/** `counts`: an integer (an ADC code, a count) is printed whole. */
+export type FormatOptions = { sig?: number; trim?: boolean; counts?: boolean };
 
 /** The number part: `sig` significant figures (4 by default); `trim` drops trailing zeros. */
-export function formatNumber(value: number, { sig = 4, trim = false }: FormatOptions = {}): { mantissa: string; exponent: number | null } {
+export function formatNumber(value: number, { sig = 4, trim = false, counts = false }: FormatOptions = {}): { mantissa: string; exponent: number | null } {
   if (value === 0) return { mantissa: "0", exponent: null };
-  if (Number.isInteger(value) && Math.abs(value) < 1e6 && trim) return { mantissa: String(value), exponent: null };
+  if (Number.isInteger(value) && Math.abs(value) < 1e6 && (trim || counts)) return { mantissa: String(value), exponent: null };
   let s = value.toPrecision(sig);
   let exponent: number | null = null;
   const m = /^(-?[\d.]+)e([+-]\d+)$/.exec(s);
@@ -38,7 +39,7 @@ const superscripts: Record<string, string> = { "-": "⁻", "0": "⁰", "1": "¹"
 
 /** Plain text, e.g. "3.267 mA", "1.136 × 10⁴ h", "−0.9901 %". */
 export function formatText(valueSI: number, unit: string, opts?: FormatOptions): string {
-  const { mantissa, exponent } = formatNumber(valueSI / unitScale(unit), opts);
+  const { mantissa, exponent } = formatNumber(valueSI / unitScale(unit), { counts: unit === "", ...opts });
   const num = mantissa.replace(/^-/, "−") + (exponent === null ? "" : ` × 10${String(exponent).replace(/./g, (c) => superscripts[c] ?? c)}`);
   const u = unit === "uA" ? "µA" : unit;
   return u ? `${num}\u00a0${u}` : num;
@@ -58,7 +59,7 @@ export function texUnit(unit: string): string {
 
 /** LaTeX, e.g. "3.267\,\mathrm{mA}" or "1.136\times10^{4}\,\mathrm{h}". */
 export function formatTex(valueSI: number, unit: string, opts?: FormatOptions): string {
-  const { mantissa, exponent } = formatNumber(valueSI / unitScale(unit), opts);
+  const { mantissa, exponent } = formatNumber(valueSI / unitScale(unit), { counts: unit === "", ...opts });
   const num = mantissa + (exponent === null ? "" : `\\times10^{${exponent}}`);
   const u = texUnit(unit);
   return u ? `${num}\\,${u}` : num;
