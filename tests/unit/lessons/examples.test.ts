@@ -1,0 +1,81 @@
+// Every number the lessons state comes from lib/lessons/examples.ts through the grader. Here each is
+// recomputed through lib/grader and compared with the DOMAIN.md check value (relative 5e-4); the source
+// tag of each value is beside it in examples.ts and repeated in the test name.
+import { describe, expect, it } from "vitest";
+import { gradeAttempt, isTemplateKey, templates } from "@/lib/grader";
+import { examples } from "@/lib/lessons/examples";
+import { computeExample } from "@/lib/lessons/compute";
+import { questions, renderPrompt } from "@/lib/lessons/questions";
+import { teaching } from "@/lib/lessons/teaching";
+
+describe("lesson examples agree with lib/grader", () => {
+  for (const e of examples) {
+    const values = computeExample(e);
+    for (const c of e.checks) {
+      it(`${e.id}: ${c.quantity} = ${c.expected} (${c.source})`, () => {
+        const got = values.quantities[c.quantity];
+        if (typeof c.expected === "string") expect(got).toBe(c.expected);
+        else if (c.expected === 0) expect(Math.abs(got as number)).toBeLessThan(1e-15);
+        else expect(Math.abs((got as number) / c.expected - 1)).toBeLessThanOrEqual(5e-4);
+      });
+    }
+  }
+
+  it("uses only template keys and quantities that the grader defines", () => {
+    for (const e of examples) {
+      if (e.kind !== "template") continue;
+      expect(isTemplateKey(e.template), e.id).toBe(true);
+      const keys = templates[e.template as keyof typeof templates].quantities.map((q) => q.key);
+      for (const c of e.checks) expect(keys, `${e.id}.${c.quantity}`).toContain(c.quantity);
+    }
+  });
+});
+
+describe("teaching helpers the grader has no template for", () => {
+  it("shot noise of 1 mA over 1 kHz is 566.1 pA rms (DOMAIN §7 7f [FORMULA: exact q])", () => {
+    expect(teaching.shotNoise({ current: 1e-3, bandwidth: 1e3 }).noiseCurrent / 566.1e-12 - 1).toBeLessThan(5e-4);
+  });
+});
+
+describe("check-yourself questions", () => {
+  for (const q of questions) {
+    it(`${q.id}: asks for a quantity of its template and fills its prompt`, () => {
+      expect(isTemplateKey(q.template)).toBe(true);
+      expect(templates[q.template as keyof typeof templates].quantities.map((x) => x.key)).toContain(q.quantity);
+      const prompt = renderPrompt(q);
+      expect(prompt).not.toMatch(/[{}]/);
+      expect(prompt.length).toBeGreaterThan(30);
+    });
+  }
+
+  // Answers typed as a student would, from the DOMAIN.md check values.
+  const domainAnswers: [string, string, string][] = [
+    ["safety-shunt-power", "326.7 mW", "DOMAIN §1 1h [FORMULA]"],
+    ["burden-low-rail", "16.36 mA", "DOMAIN §2 2c [FORMULA]"],
+    ["burden-motor-drop", "551 mV", "DOMAIN §2 2d [FORMULA]"],
+    ["shunt-micro-e96", "3.01 kΩ", "DOMAIN §1 1i [FORMULA]"],
+    ["range-radio-volts", "0.75 V", "DOMAIN §12.2 (0.750 V ↔ 750 µA) [FORMULA]"],
+    ["autorange-edge-code", "4", "DOMAIN §3 3c [FORMULA]"],
+    ["resolution-code", "620", "DOMAIN §4 4e [FORMULA]"],
+    ["resolution-step", "0.8057 mA", "DOMAIN §4 4b [FORMULA]"],
+    ["filter-cutoff", "159.2 Hz", "DOMAIN §6 6a [FORMULA]"],
+    ["filter-settle", "46.05 ms", "DOMAIN §6 6b [FORMULA]"],
+    ["bidir-discharge", "-1.000 mA", "DOMAIN §5 5d [FORMULA]"],
+    ["bidir-code-1000", "-844.3 nA", "DOMAIN §5 5b [FORMULA]"],
+    ["duty-average", "15.50 uA", "DOMAIN §8 8c [FORMULA]"],
+    ["duty-life", "871.4 h", "DOMAIN §8 8b [FORMULA]"],
+    ["unc-amp-expanded", "7.767 mA", "DOMAIN §9 9d [FORMULA]"],
+  ];
+  for (const [id, answer, source] of domainAnswers) {
+    it(`${id}: "${answer}" is graded correct (${source})`, () => {
+      const q = questions.find((x) => x.id === id)!;
+      const r = gradeAttempt({
+        template: q.template as keyof typeof templates,
+        params: q.params,
+        questions: [{ quantity: q.quantity, points: 1, kind: "prediction" }],
+        readings: { [q.quantity]: answer },
+      });
+      expect(r.results[0].verdict).toBe("correct");
+    });
+  }
+});
