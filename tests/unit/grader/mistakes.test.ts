@@ -1,0 +1,92 @@
+// For every mistake key: an answer produced by the wrong method (computed here, independently, from the
+// circuit) is recognised with that key; the right answer is not.
+import { describe, expect, it } from "vitest";
+import { gradeAttempt, MISTAKE_KEYS, type MistakeKey, type Params, type TemplateKey } from "../../../lib/grader";
+
+interface Case {
+  key: MistakeKey;
+  template: TemplateKey;
+  params: Params;
+  quantity: string;
+  wrong: string | number;
+  right: string | number;
+}
+
+const sb = { supplyVoltage: 1.8, loadResistance: 100, shuntResistance: 10 };
+const sel = { maxCurrent: 3.3, maxBurden: 0.1, series: "E24" };
+const rr = { current: 2e-3, fullScaleVoltage: 3.3, adcBits: 12, adcReference: 3.3 };
+const duty = { sleepCurrent: 2e-6, activeCurrent: 20e-3, activeTime: 10e-3, period: 1, batteryCapacity: 792, usableFraction: 0.8 };
+const bid = { offsetVoltage: 1.65, sensitivity: 1e6, outputVoltage: (3000 * 3.3) / 4096, fullScaleVoltage: 3.3 };
+const fn = { filterResistance: 10e3, filterCapacitance: 100e-9, shuntResistance: 10e3, temperature: 300 };
+const unc = { reading: 1, readingAccuracyPercent: 0.5, readingCounts: 2, countSize: 1e-3, shuntResistance: 10, shuntTolerancePercent: 1, coverageFactor: 2 };
+const k = 1.380649e-23;
+
+const cases: Case[] = [
+  // 3.267 mA read as 3.267 A (DOMAIN §12.2: exactly 10^±3 off)
+  { key: "prefix-slip", template: "shunt-burden", params: { supplyVoltage: 3.3, loadResistance: 1000, shuntResistance: 10 }, quantity: "indicatedCurrent", wrong: "3.267 A", right: "3.267 mA" },
+  { key: "prefix-slip", template: "filter-noise", params: fn, quantity: "thermalNoiseVoltage", wrong: "203.5 uV", right: "203.5 nV" },
+  // 1.8 V / 100 Ω = 18 mA instead of 16.36 mA (DOMAIN §12.1)
+  { key: "ignored-burden", template: "shunt-burden", params: sb, quantity: "indicatedCurrent", wrong: "18 mA", right: "16.36 mA" },
+  { key: "ignored-burden", template: "shunt-burden", params: sb, quantity: "trueCurrent", wrong: "16.36 mA", right: "18.00 mA" },
+  { key: "sign-flip", template: "shunt-burden", params: sb, quantity: "loadingErrorPercent", wrong: "9.091 %", right: "-9.091 %" },
+  // 5b: −844.3 nA reported as +844.3 nA
+  { key: "sign-flip", template: "bidirectional-offset", params: { ...bid, outputVoltage: (1000 * 3.3) / 4096 }, quantity: "signedCurrent", wrong: "844.3 nA", right: "-844.3 nA" },
+  // 1g: nearest E24 value to 30.30 mΩ is 30 mΩ (floor) — use a case where nearest is above: 3.3 A, 0.107 V → 32.42 mΩ, nearest 33 mΩ
+  { key: "nearest-not-floor", template: "shunt-selection", params: { ...sel, maxBurden: 0.107 }, quantity: "standardShunt", wrong: "33 mohm", right: "30 mohm" },
+  { key: "nearest-not-floor", template: "shunt-selection", params: { ...sel, maxBurden: 0.107 }, quantity: "burdenAtFullScale", wrong: `${3.3 * 33} mV`, right: `${3.3 * 30} mV` },
+  // 2 mA on the 1 mV/mA range gives 2 mV instead of 2 V
+  { key: "wrong-range", template: "range-resolution", params: rr, quantity: "outputVoltage", wrong: "2 mV", right: "2 V" },
+  { key: "wrong-range", template: "range-resolution", params: rr, quantity: "bestRange", wrong: "mA", right: "µA" },
+  { key: "wrong-range", template: "range-resolution", params: rr, quantity: "adcCode", wrong: 2, right: Math.floor((2 * 4096) / 3.3) },
+  // 5a: 2417 nA instead of 767.0 nA
+  { key: "forgot-offset", template: "bidirectional-offset", params: bid, quantity: "signedCurrent", wrong: "2417 nA", right: "767.0 nA" },
+  // 8a: 10.00 mA instead of 202.0 µA; life 17.6 h instead of 871.4 h (DOMAIN §12.5)
+  { key: "unweighted-average", template: "duty-cycle", params: duty, quantity: "averageCurrent", wrong: "10.00 mA", right: "202.0 uA" },
+  { key: "unweighted-average", template: "duty-cycle", params: duty, quantity: "batteryLife", wrong: "17.6 h", right: "871.4 h" },
+  { key: "capacity-units", template: "duty-cycle", params: duty, quantity: "batteryLife", wrong: `${871.4 / 3.6} h`, right: "871.4 h" },
+  { key: "capacity-units", template: "duty-cycle", params: duty, quantity: "batteryLife", wrong: `${871.4 * 3600} h`, right: "36.31 d" },
+  // 6a: 1/(RC) = 1000 Hz instead of 159.2 Hz
+  { key: "omitted-2pi", template: "filter-noise", params: fn, quantity: "cutoffFrequency", wrong: "1 kHz", right: "159.2 Hz" },
+  { key: "cutoff-as-bandwidth", template: "filter-noise", params: fn, quantity: "noiseBandwidth", wrong: "159.2 Hz", right: "250 Hz" },
+  { key: "cutoff-as-bandwidth", template: "filter-noise", params: fn, quantity: "thermalNoiseVoltage", wrong: `${Math.sqrt(4 * k * 300 * 10e3 * 159.155) * 1e9} nV`, right: "203.5 nV" },
+  // 9e: linear sum of bounds 1.700 % → 1.700 mA instead of U = 1.409 mA
+  { key: "linear-sum", template: "uncertainty", params: unc, quantity: "expandedUncertainty", wrong: "1.700 mA", right: "1.409 mA" },
+  { key: "linear-sum", template: "uncertainty", params: unc, quantity: "relativeStandardUncertaintyPercent", wrong: `${0.4041 + 0.5774} %`, right: "0.7047 %" },
+  // bounds as standard uncertainties: √(0.7² + 1²) = 1.221 %
+  { key: "no-root-three", template: "uncertainty", params: unc, quantity: "relativeStandardUncertaintyPercent", wrong: "1.221 %", right: "0.7047 %" },
+  { key: "no-root-three", template: "uncertainty", params: unc, quantity: "combinedStandardUncertainty", wrong: "1.221 mA", right: "0.7047 mA" },
+];
+
+function grade(c: Case, answer: string | number) {
+  return gradeAttempt({ template: c.template, params: c.params, questions: [{ quantity: c.quantity, kind: "prediction", points: 1 }], readings: [answer] }).results[0];
+}
+
+describe("recognised mistakes", () => {
+  it("every key in GRADER.md has a case", () => {
+    expect(new Set(cases.map((c) => c.key))).toEqual(new Set(MISTAKE_KEYS));
+    expect(MISTAKE_KEYS.length).toBe(12);
+  });
+  for (const c of cases) {
+    it(`${c.key}: ${c.template}.${c.quantity} "${c.wrong}" is recognised; "${c.right}" is correct`, () => {
+      const wrong = grade(c, c.wrong);
+      expect(wrong.verdict).toBe("mistake");
+      expect(wrong.mistake).toBe(c.key);
+      expect(wrong.points).toBe(0);
+      expect(wrong.feedback.length).toBeGreaterThan(40);
+      const right = grade(c, c.right);
+      expect(right.verdict).toBe("correct");
+      expect(right.mistake).toBeUndefined();
+      expect(right.points).toBe(1);
+    });
+  }
+  it("a candidate is not used when the right answer is also inside its band", () => {
+    // 10 Ω in 100 kΩ: V_s/R_L and V_s/(R_L+R_sh) differ by 0.01 %, so 33.00 µA is simply correct
+    const r = gradeAttempt({
+      template: "shunt-burden",
+      params: { supplyVoltage: 3.3, loadResistance: 100e3, shuntResistance: 10 },
+      questions: [{ quantity: "indicatedCurrent", kind: "prediction", points: 1 }],
+      readings: ["33.00 uA"],
+    }).results[0];
+    expect(r.verdict).toBe("correct");
+  });
+});
