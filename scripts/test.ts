@@ -61,10 +61,11 @@ function runVitest(env: NodeJS.ProcessEnv, extra: string[]): Counts {
   const report = JSON.parse(fs.readFileSync(out, "utf8"));
   const counts = {
     passed: report.numPassedTests ?? 0,
-    failed: (report.numFailedTests ?? 0) + (report.numFailedTestSuites ?? 0),
+    failed: report.numFailedTests ?? 0,
     skipped: (report.numPendingTests ?? 0) + (report.numTodoTests ?? 0),
   };
-  if (r.status !== 0 && counts.failed === 0) counts.failed = 1; // vitest failed outside any test
+  // A file that fails to load, or an error outside any test, counts as one failure.
+  if (r.status !== 0 && counts.failed === 0) counts.failed = Math.max(1, report.numFailedTestSuites ?? 0);
   return counts;
 }
 

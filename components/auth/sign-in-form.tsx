@@ -2,7 +2,6 @@
 
 import { zodResolver } from "@hookform/resolvers/zod";
 import { signIn } from "next-auth/react";
-import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Field, FormMessage } from "@/components/ui/field";
@@ -11,7 +10,6 @@ import { signInSchema, type SignInInput } from "@/lib/validation/auth";
 export const BAD_CREDENTIALS = "That e-mail and password do not match an account. Check both and try again.";
 
 export function SignInForm({ next }: { next?: string }) {
-  const router = useRouter();
   const [message, setMessage] = useState<string | null>(null);
   const { register, handleSubmit, formState } = useForm<SignInInput>({ resolver: zodResolver(signInSchema) });
 
@@ -22,8 +20,8 @@ export function SignInForm({ next }: { next?: string }) {
       setMessage(BAD_CREDENTIALS);
       return;
     }
-    router.push(next && next.startsWith("/") && !next.startsWith("//") ? next : "/");
-    router.refresh();
+    // A full navigation, so no page prefetched while signed out is reused.
+    window.location.assign(next && next.startsWith("/") && !next.startsWith("//") ? next : "/");
   });
 
   return (

@@ -2,7 +2,6 @@
 
 import { zodResolver } from "@hookform/resolvers/zod";
 import { signIn } from "next-auth/react";
-import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { signUpAction } from "@/app/(auth)/signup/actions";
@@ -10,7 +9,6 @@ import { Field, FormMessage } from "@/components/ui/field";
 import { signUpSchema, type SignUpInput } from "@/lib/validation/auth";
 
 export function SignUpForm({ joinCode }: { joinCode?: string }) {
-  const router = useRouter();
   const [message, setMessage] = useState<string | null>(null);
   const { register, handleSubmit, formState, setError } = useForm<SignUpInput>({
     resolver: zodResolver(signUpSchema),
@@ -28,8 +26,7 @@ export function SignUpForm({ joinCode }: { joinCode?: string }) {
       return;
     }
     await signIn("credentials", { email: values.email, password: values.password, redirect: false });
-    router.push(`/courses/${result.courseId}`);
-    router.refresh();
+    window.location.assign(`/courses/${result.courseId}`);
   });
 
   const e = formState.errors;

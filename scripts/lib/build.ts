@@ -5,7 +5,8 @@ import path from "node:path";
 import { spawnSync } from "node:child_process";
 import { root } from "./config";
 
-const SOURCES = ["app", "components", "lib", "content", "db", "public", "proxy.ts", "mdx-components.tsx", "next.config.mjs", "tailwind.config.ts", "postcss.config.mjs", "tsconfig.json", "package-lock.json"];
+// tsconfig.json is left out: next build rewrites it (adding its type folders) on every build.
+const SOURCES = ["app", "components", "lib", "content", "db", "public", "proxy.ts", "mdx-components.tsx", "next.config.mjs", "tailwind.config.ts", "postcss.config.mjs", "package-lock.json"];
 
 function* files(p: string): Generator<string> {
   if (!fs.existsSync(p)) return;

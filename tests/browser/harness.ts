@@ -1,9 +1,6 @@
 // Shared set-up for browser tests: Debian's chromium driven by playwright-core against the production
 // build that scripts/test.ts serves (SHUNTWISE_TEST_URL). Each test file opens one browser.
 import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
-import fs from "node:fs";
-import os from "node:os";
-import path from "node:path";
 
 export const baseURL = process.env.SHUNTWISE_TEST_URL ?? "http://127.0.0.1:3100";
 
@@ -17,7 +14,7 @@ export const demo = {
 };
 
 export async function launch(): Promise<Browser> {
-  const userDataDir = fs.mkdtempSync(path.join(os.tmpdir(), "shuntwise-chromium-"));
+  // playwright gives every launch a fresh, empty profile folder of its own.
   return chromium.launch({
     executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
     args: [
@@ -29,7 +26,6 @@ export async function launch(): Promise<Browser> {
       "--disable-background-networking",
       "--disable-component-update",
       "--disable-sync",
-      `--user-data-dir=${userDataDir}`,
     ],
   });
 }

@@ -1,0 +1,130 @@
+// A demo student reads a lesson: changes a calculator input and sees the output and the plot change,
+// checks an answer, finds no serious accessibility violations, and receives no KaTeX JavaScript.
+import { AxeBuilder } from "@axe-core/playwright";
+import type { Browser, Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { demo, launch, newPage, signIn } from "./harness";
+
+let browser: Browser;
+
+beforeAll(async () => {
+  browser = await launch();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+async function plotPixels(page: Page, testId: string): Promise<string> {
+  const canvas = page.getByTestId(testId).locator("canvas");
+  await canvas.waitFor({ state: "visible", timeout: 15_000 });
+  return canvas.evaluate((c: HTMLCanvasElement) => c.toDataURL());
+}
+
+describe("lessons in the browser", () => {
+  it("a student changes the duty-cycle calculator and sees the average, the life and the plot change", async () => {
+    const { context, page } = await newPage(browser);
+    try {
+      await signIn(page, demo.student);
+      await page.goto("/lessons/duty-cycled-loads");
+      expect(await page.getByRole("heading", { level: 1 }).textContent()).toBe("Duty-cycled loads and battery life");
+      const calc = page.getByTestId("duty-cycle-calculator");
+      const average = calc.getByTestId("average-current");
+      // Maren's node: 20 mA for 10 ms every 1 s, 2 µA asleep → 202.0 µA (DOMAIN §8 8a [FORMULA])
+      expect(await average.textContent()).toBe("202.0\u00a0µA");
+      const before = await plotPixels(page, "duty-plot");
+
+      // Wake every 10 s for 5 ms at 25 mA, 3 µA asleep → 15.50 µA (DOMAIN §8 8c [FORMULA])
+      await calc.getByLabel("Active (wake) current").fill("25 mA");
+      await calc.getByLabel("Active time per wake").fill("5 ms");
+      await calc.getByLabel("Wake period").fill("10 s");
+      await calc.getByLabel("Sleep current").fill("3 µA");
+      await page.waitForFunction(() => document.querySelector('[data-testid="average-current"]')?.textContent === "15.50\u00a0µA");
+      expect(await calc.getByTestId("battery-life").textContent()).toMatch(/^1\.136 × 10⁴\u00a0h = 473\.2\u00a0d$/); // DOMAIN §8 8c [FORMULA]
+      await page.waitForFunction(
+        (prev) => (document.querySelector('[data-testid="duty-plot"] canvas') as HTMLCanvasElement | null)?.toDataURL() !== prev,
+        before,
+      );
+      expect(await plotPixels(page, "duty-plot")).not.toBe(before);
+
+      // A wrong dimension is refused with a visible message.
+      await calc.getByLabel("Sleep current").fill("3 mV");
+      await expect(calc.getByRole("alert").first().textContent()).resolves.toMatch(/\S/);
+    } finally {
+      await context.close();
+    }
+  });
+
+  it("the RC calculator's plot and time constant follow its inputs", async () => {
+    const { context, page } = await newPage(browser);
+    try {
+      await signIn(page, demo.student);
+      await page.goto("/lessons/filtering-and-settling");
+      const calc = page.getByTestId("rc-step");
+      expect(await calc.getByTestId("time-constant").textContent()).toBe("1.000\u00a0ms"); // 10 kΩ × 100 nF (DOMAIN §6 6a)
+      const before = await plotPixels(page, "rc-plot");
+      await calc.getByLabel("Filter resistance R").fill("1k");
+      await calc.getByLabel("Filter capacitance C").fill("10 uF");
+      await page.waitForFunction(() => document.querySelector('[data-testid="time-constant"]')?.textContent === "10.00\u00a0ms"); // DOMAIN §6 6b
+      await page.waitForFunction(
+        (prev) => (document.querySelector('[data-testid="rc-plot"] canvas') as HTMLCanvasElement | null)?.toDataURL() !== prev,
+        before,
+      );
+    } finally {
+      await context.close();
+    }
+  });
+
+  it("a check-yourself answer is checked in the page with a worked solution", async () => {
+    const { context, page } = await newPage(browser);
+    try {
+      await signIn(page, demo.student);
+      await page.goto("/lessons/burden-voltage");
+      const q = page.locator('[data-question="burden-low-rail"]');
+      await q.getByLabel(/Your answer/).fill("16.36 mA"); // DOMAIN §2 2c [FORMULA]
+      await q.getByRole("button", { name: "Check" }).click();
+      await q.getByText("Correct.").waitFor({ timeout: 15_000 });
+      await q.getByRole("button", { name: "Show the worked solution" }).click();
+      expect(await q.getByTestId("worked-solution").locator(".katex").count()).toBeGreaterThan(0);
+    } finally {
+      await context.close();
+    }
+  });
+
+  it("a lesson page has no serious or critical accessibility violations", async () => {
+    const context = await browser.newContext({ baseURL: process.env.SHUNTWISE_TEST_URL ?? "http://127.0.0.1:3100" });
+    const page = await context.newPage();
+    try {
+      await signIn(page, demo.student);
+      for (const slug of ["duty-cycled-loads", "bench-safety"]) {
+        await page.goto(`/lessons/${slug}`);
+        await page.locator("canvas").first().waitFor({ state: "attached", timeout: 15_000 }).catch(() => undefined);
+        const results = await new AxeBuilder({ page }).analyze();
+        const serious = results.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
+        expect(serious.map((v) => `${slug}: ${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`)).toEqual([]);
+      }
+    } finally {
+      await context.close();
+    }
+  });
+
+  it("the page's math is typeset but no KaTeX script reaches the browser", async () => {
+    const { context, page } = await newPage(browser);
+    try {
+      await signIn(page, demo.student);
+      const scripts: string[] = [];
+      page.on("response", async (res) => {
+        if (res.request().resourceType() === "script") scripts.push(await res.text().catch(() => ""));
+      });
+      await page.goto("/lessons/burden-voltage", { waitUntil: "networkidle" });
+      expect(await page.locator(".katex").count()).toBeGreaterThan(0);
+      const inline = await page.locator("script:not([src])").allTextContents();
+      expect(scripts.length).toBeGreaterThan(0);
+      for (const s of [...scripts, ...inline]) {
+        // KaTeX's bundle carries its own name, version string and renderer entry points.
+        expect(s).not.toMatch(/KaTeX parse error|__renderToDomTree|__parse\b/);
+      }
+    } finally {
+      await context.close();
+    }
+  });
+});
