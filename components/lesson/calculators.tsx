@@ -3,7 +3,7 @@
 // nearestStandard); this file only reads inputs, lays out results and draws plots with uPlot.
 import { useMemo, useState } from "react";
 import { nearestStandard, templates } from "@/lib/grader";
-import { formatAuto } from "@/lib/lessons/format";
+import { formatAuto, formatText } from "@/lib/lessons/format";
 import { teaching } from "@/lib/lessons/teaching";
 import { CalculatorCard, Output, QuantityField, useQuantityFields } from "./fields";
 import { Plot } from "./Plot";
@@ -192,7 +192,7 @@ export function DutyCycleCalculator() {
         : [],
     [wave, average],
   );
-  const lifeH = num(c, "batteryLife") / 3600;
+  const life = num(c, "batteryLife");
   return (
     <CalculatorCard title="duty-cycled load and battery life" testId="duty-cycle-calculator">
       <Fields f={f} defs={dutyDefs} />
@@ -202,7 +202,7 @@ export function DutyCycleCalculator() {
           <dl className="mt-4 mb-0" aria-live="polite">
             <Output label="Average current" value={formatAuto(average, "A")} testId="average-current" />
             <Output label="Charge per wake" value={formatAuto(num(c, "chargePerWake"), "C")} />
-            <Output label="Battery life" value={`${lifeH.toPrecision(4)} h = ${(lifeH / 24).toPrecision(4)} days`} testId="battery-life" />
+            <Output label="Battery life" value={`${formatText(life, "h")} = ${formatText(life, "d")}`} testId="battery-life" />
           </dl>
           <Plot
             testId="duty-plot"

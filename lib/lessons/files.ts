@@ -3,7 +3,8 @@ import fs from "node:fs";
 import path from "node:path";
 import { lessonFrontmatterSchema, slugSchema, type LessonFrontmatter, type LessonSummary } from "./schema";
 
-export const lessonsDir = path.join(process.cwd(), "content", "lessons");
+// turbopackIgnore: the folder is read at build time (static pages) and by scripts; no tracing needed.
+export const lessonsDir = path.join(/* turbopackIgnore: true */ process.cwd(), "content", "lessons");
 
 const frontmatterStart = /^export const frontmatter = /m;
 
