@@ -87,9 +87,18 @@ export function nearestStandard(value: number, series: SeriesName, mode: "neares
     k -= 1;
     m = value / 10 ** k;
   }
-  // lo: index of the largest mantissa ≤ m (with tolerance); -1 means below the first
+  // lo: index of the largest mantissa ≤ m (with tolerance); -1 means below the first (binary search)
+  const mm = m * (1 + EPS);
+  let a = 0;
+  let b = n - 1;
   let lo = -1;
-  for (let i = 0; i < n; i++) if (ints[i] <= m * (1 + EPS)) lo = i;
+  while (a <= b) {
+    const mid = (a + b) >> 1;
+    if (ints[mid] <= mm) {
+      lo = mid;
+      a = mid + 1;
+    } else b = mid - 1;
+  }
   const below = lo >= 0 ? build(ints[lo], k) : build(ints[n - 1], k - 1);
   const exact = lo >= 0 && Math.abs(ints[lo] - m) <= m * EPS;
   const aboveIdx = exact ? lo : lo + 1;

@@ -27,25 +27,51 @@ const DISPLAY: Record<string, { si: string; factor: number; offset: number }> = 
   "°C": { si: "K", factor: 1, offset: -273.15 },
 };
 
+/** Drop trailing zeros after the decimal point while more than `minDigits` significant digits remain. */
 function trimZeros(s: string, minDigits: number): string {
-  if (s.indexOf(".") < 0 || /e/i.test(s)) return s;
-  let out = s;
-  while (out.endsWith("0") && significantDigits(out) > minDigits) out = out.slice(0, -1);
-  if (out.endsWith(".")) out = out.slice(0, -1);
-  return out;
+  const dot = s.indexOf(".");
+  if (dot < 0) return s;
+  // count significant digits: from the first non-zero digit to the end
+  let first = -1;
+  for (let i = 0; i < s.length; i++) {
+    const c = s.charCodeAt(i);
+    if (c >= 49 && c <= 57) {
+      first = i;
+      break;
+    }
+  }
+  if (first < 0) return s;
+  let sig = s.length - first - (first < dot ? 1 : 0);
+  let end = s.length;
+  while (end > dot + 1 && s.charCodeAt(end - 1) === 48 && sig > minDigits) {
+    end--;
+    sig--;
+  }
+  if (end === dot + 1) end = dot;
+  return end === s.length ? s : s.slice(0, end);
 }
 
-function significantDigits(s: string): number {
-  const digits = s.replace(/[-+.]/g, "").replace(/^0+/, "");
-  return digits.length;
+/** x.toPrecision(digits) for 1 ≤ |x| < 1000 without the general algorithm (integer rounding, then a decimal point). */
+function fixedPrecision(x: number, digits: number): string | undefined {
+  const a = Math.abs(x);
+  if (!(a >= 1 && a < 1000) || digits < 3 || digits > 15) return undefined;
+  const intDigits = a < 10 ? 1 : a < 100 ? 2 : 3;
+  const decimals = digits - intDigits;
+  const n = Math.round(a * 10 ** decimals);
+  if (n >= 10 ** digits) return undefined; // carried into another digit: let toPrecision decide
+  const t = String(n);
+  const body = decimals === 0 ? t : `${t.slice(0, t.length - decimals)}.${t.slice(t.length - decimals)}`;
+  return x < 0 ? `-${body}` : body;
 }
 
 function numberText(x: number, digits: number, trim: boolean): string {
   if (x === 0) return "0";
-  const s = x.toPrecision(digits);
-  if (/e/.test(s)) {
-    const [m, e] = s.split("e");
-    return `${trim ? trimZeros(m, 1) : m}e${e.replace("+", "")}`;
+  const s = fixedPrecision(x, digits) ?? x.toPrecision(digits);
+  const e = s.indexOf("e");
+  if (e >= 0) {
+    const m = s.slice(0, e);
+    const exp = s.charCodeAt(e + 1) === 43 ? s.slice(e + 2) : s.slice(e + 1); // drop "+"
+    return `${trim ? trimZeros(m, 1) : m}e${exp}`;
   }
   return trimZeros(s, trim ? 1 : Math.min(3, digits));
 }
@@ -59,7 +85,12 @@ export interface Parts {
 }
 
 /** Split a value into number, SI prefix and unit symbol. */
-export function quantityParts(value: number, unit: string, opts: FormatOptions = {}): Parts {
+// POW10[i] = 10^(3(i-5)) for i = 0…8; beyond that the positive powers 1e12, 1e15 used for the smallest prefixes
+const POW10 = [1e-15, 1e-12, 1e-9, 1e-6, 1e-3, 1, 1e3, 1e6, 1e9, 1e12, 1e15];
+const PREFIX_BY_INDEX = ["f", "p", "n", "µ", "m", "", "k", "M", "G"];
+const NO_OPTS: FormatOptions = {};
+
+export function quantityParts(value: number, unit: string, opts: FormatOptions = NO_OPTS): Parts {
   const digits = opts.digits ?? 4;
   const trim = opts.trim ?? false;
   const display = opts.displayUnit ? DISPLAY[opts.displayUnit] : undefined;
@@ -81,18 +112,18 @@ export function quantityParts(value: number, unit: string, opts: FormatOptions =
       return { number: numberText(value / 10 ** PREFIX_EXP[p], digits, trim), prefix: PREFIX_OF[PREFIX_EXP[p]], symbol };
     }
   }
-  const maxExp = unit === "s" ? 0 : 9;
-  let e3 = Math.floor(Math.log10(Math.abs(value)) / 3) * 3;
-  e3 = Math.max(-15, Math.min(maxExp, e3));
-  let scaled = e3 >= 0 ? value / 10 ** e3 : value * 10 ** -e3;
-  if (Math.abs(scaled) < 1 && e3 === -15) return { number: numberText(value, digits, trim), prefix: "", symbol };
-  let text = numberText(scaled, digits, trim);
-  if (Math.abs(Number(text)) >= 1000 && e3 < maxExp) {
-    e3 += 3;
-    scaled = e3 >= 0 ? value / 10 ** e3 : value * 10 ** -e3;
-    text = numberText(scaled, digits, trim);
+  const maxIndex = unit === "s" ? 5 : 8;
+  // index into POW10: 0 ↔ 1e-15 … 8 ↔ 1e9
+  let idx = Math.floor(Math.log10(Math.abs(value)) / 3) + 5;
+  idx = idx < 0 ? 0 : idx > maxIndex ? maxIndex : idx;
+  let scaled = idx >= 5 ? value / POW10[idx] : value * POW10[10 - idx];
+  if (Math.abs(scaled) < 1 && idx === 0) return { number: numberText(value, digits, trim), prefix: "", symbol };
+  // rounding can carry 999.96 up to 1000: move to the next prefix
+  if (Math.abs(scaled) >= 1000 - 5 * 10 ** (2 - digits) && idx < maxIndex) {
+    idx += 1;
+    scaled = idx >= 5 ? value / POW10[idx] : value * POW10[10 - idx];
   }
-  return { number: text, prefix: PREFIX_OF[e3], symbol };
+  return { number: numberText(scaled, digits, trim), prefix: PREFIX_BY_INDEX[idx], symbol };
 }
 
 /** "9.10 µA", "4.70 kΩ", "-0.9901 %", "620"; reads back through parseQuantity. */

@@ -113,6 +113,13 @@ class Evaluator {
   }
 }
 
+function withParam(p: Params, key: string, value: number): Params {
+  const out: Params = {};
+  for (const k in p) out[k] = p[k];
+  out[key] = value;
+  return out;
+}
+
 /**
  * Worst-case first-order propagation: Σ |∂q/∂x_i| · Δx_i over the toleranced parameters, with central
  * numerical derivatives (relative step 1e-6).
@@ -124,8 +131,8 @@ function propagate(ev: Evaluator, tag: string, p: Params, q: string, tolerances:
     const x = p[key];
     if (!(tol > 0) || typeof x !== "number" || x === 0 || (skip && key in skip)) continue;
     const h = Math.abs(x) * 1e-6;
-    const up = ev.values(`${tag}+${key}`, { ...p, [key]: x + h })[q] as number;
-    const down = ev.values(`${tag}-${key}`, { ...p, [key]: x - h })[q] as number;
+    const up = ev.values(`${tag}+${key}`, withParam(p, key, x + h))[q] as number;
+    const down = ev.values(`${tag}-${key}`, withParam(p, key, x - h))[q] as number;
     const d = (up - down) / (2 * h);
     if (Number.isFinite(d)) sum += Math.abs(d) * Math.abs(x) * (tol / 100);
   }
@@ -147,7 +154,12 @@ export function gradeAttempt(input: GradeInput): GradeResult {
   const tolerances = policy.componentTolerances ?? {};
   const instrument = policy.instrumentAccuracyPercent ?? 0;
   const measured = input.measuredParams && Object.keys(input.measuredParams).length > 0 ? input.measuredParams : undefined;
-  const benchParams = measured ? { ...input.params, ...measured } : input.params;
+  let benchParams = input.params;
+  if (measured) {
+    benchParams = {};
+    for (const k in input.params) benchParams[k] = input.params[k];
+    for (const k in measured) benchParams[k] = measured[k];
+  }
   const ev = new Evaluator(t);
 
   const results: QuestionResult[] = [];
@@ -250,7 +262,6 @@ function gradeNumber(t: Template, spec: QuantitySpec, p: Params, q: Question, ex
   }
   const band: [number, number] = [expected - half, expected + half];
   const solution = t.solution(p, q.quantity);
-  const base = { quantity: q.quantity, kind: q.kind, expected, band, maxPoints: q.points, points: 0, method, solution };
 
   // read the answer
   let answer: number;
@@ -264,24 +275,24 @@ function gradeNumber(t: Template, spec: QuantitySpec, p: Params, q: Question, ex
     if (!parsed.ok) {
       if (parsed.reason === "empty") return missing(q, expected, band, method, solution);
       const verdict: Verdict = parsed.reason === "dimension" || parsed.hint === "no-unit" ? "unit" : "wrong";
-      return { ...base, verdict, answer: null, feedback: `${parsed.message} The answer is ${fmt(expected, spec)}.` };
+      return { quantity: q.quantity, kind: q.kind, verdict, points: 0, maxPoints: q.points, expected, band, answer: null, method, feedback: `${parsed.message} The answer is ${fmt(expected, spec)}.`, solution };
     }
     answer = parsed.value;
     readAs = fmt(answer, spec);
   }
   const read = readAs ? `Read as ${readAs}. ` : "";
-  const withAnswer = [...solution, `\\text{your answer: } ${texQuantity(answer, spec.unit)}`];
+  solution.push(`\\text{your answer: } ${texQuantity(answer, spec.unit)}`);
   const slack = 1e-12 * Math.max(Math.abs(expected), half);
   const result = (verdict: Verdict, feedback: string, mistake?: MistakeKey): QuestionResult => {
-    const r: QuestionResult = { ...base, solution: withAnswer, verdict, answer, feedback };
+    const r: QuestionResult = { quantity: q.quantity, kind: q.kind, verdict, points: 0, maxPoints: q.points, expected, band, answer, method, feedback, solution };
     if (readAs) r.readAs = readAs;
     if (mistake) r.mistake = mistake;
     return r;
   };
-  const range = `${fmt(band[0], spec)} to ${fmt(band[1], spec)}`;
+  const range = () => `${fmt(band[0], spec)} to ${fmt(band[1], spec)}`;
 
   if (Math.abs(answer - expected) <= half + slack)
-    return result("correct", `${read}Correct: within the accepted band ${range} (${bandText.replace(/\.$/, "")}).`);
+    return result("correct", `${read}Correct: within the accepted band ${range()} (${bandText.replace(/\.$/, "")}).`);
 
   // recognised wrong methods: count only when the correct value is not also inside the candidate's band
   const relHalf = expected !== 0 ? half / Math.abs(expected) : c.rel;
@@ -299,7 +310,7 @@ function gradeNumber(t: Template, spec: QuantitySpec, p: Params, q: Question, ex
   if (Math.abs(answer - expected) <= c.closeMultiple * half + slack)
     return result(
       "close",
-      `${read}Close: ${fmt(answer, spec)} is outside the accepted band ${range} (${bandText.replace(/\.$/, "")}) but within ${c.closeMultiple}× of it, so it earns ${Math.round(100 * c.closeCredit)} % of the points. Check your rounding and the values you used; the answer is ${fmt(expected, spec)}.`,
+      `${read}Close: ${fmt(answer, spec)} is outside the accepted band ${range()} (${bandText.replace(/\.$/, "")}) but within ${c.closeMultiple}× of it, so it earns ${Math.round(100 * c.closeCredit)} % of the points. Check your rounding and the values you used; the answer is ${fmt(expected, spec)}.`,
     );
-  return result("wrong", `${read}Not accepted: the answer is ${fmt(expected, spec)} (accepted ${range}). Compare your steps with the worked solution.`);
+  return result("wrong", `${read}Not accepted: the answer is ${fmt(expected, spec)} (accepted ${range()}). Compare your steps with the worked solution.`);
 }

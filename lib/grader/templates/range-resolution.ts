@@ -22,32 +22,41 @@ export interface RangeRow {
 
 /** Output, code and saturation on every range, for the feedback and the lessons. */
 export function rangeTable(p: Params): { rows: RangeRow[]; topVoltage: number; lsb: number } {
-  const current = num(p, "current");
+  const current = Math.abs(num(p, "current"));
   const vfs = num(p, "fullScaleVoltage");
   const bits = num(p, "adcBits");
   const vref = num(p, "adcReference");
   const levels = 2 ** bits;
   const lsb = vref / levels;
   const topVoltage = Math.min(vfs, (levels - 1) * lsb);
-  const rows = RANGES.map((r) => {
-    const out = Math.abs(current) * r.sensitivity;
-    return {
+  const rows: RangeRow[] = [];
+  for (const r of RANGES) {
+    const out = current * r.sensitivity;
+    rows.push({
       range: r.name,
       sensitivity: r.sensitivity,
       outputVoltage: out,
       code: Math.min(levels - 1, Math.floor((out * levels) / vref)),
       saturated: !(out < topVoltage),
-    };
-  });
+    });
+  }
   return { rows, topVoltage, lsb };
 }
 
 function values(p: Params) {
   const t = rangeTable(p);
-  const best = t.rows.findIndex((r) => !r.saturated);
+  let best = -1;
+  for (let i = 0; i < t.rows.length; i++) {
+    if (!t.rows[i].saturated) {
+      best = i;
+      break;
+    }
+  }
   const row = best >= 0 ? t.rows[best] : undefined;
   return {
-    ...t,
+    rows: t.rows,
+    topVoltage: t.topVoltage,
+    lsb: t.lsb,
     best,
     bits: num(p, "adcBits"),
     vref: num(p, "adcReference"),
