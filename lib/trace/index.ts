@@ -1,0 +1,41 @@
+// Public entry of the logged-current-trace analysis (issue 5, item 6). Framework-free: papaparse and Node
+// streams only.
+import { analyzeSamples, TraceError, type TraceStats } from "./analyze";
+import { readTrace, type TraceInput } from "./parse";
+import type { TraceAnalysis, TraceOptions } from "./types";
+
+export { analyzeSamples, TraceError, type TraceStats } from "./analyze";
+export { minMaxDecimate, type PlotPoints } from "./decimate";
+export { squareWaveCsv, type SquareWaveSpec } from "./generate";
+export { splitLevels, MIN_SEPARATION, type LevelSplit } from "./levels";
+export { readTrace, type TraceInput, type ReadResult } from "./parse";
+export { columnsFromHeader, readHeaderCell, TIME_DIVISOR, CURRENT_DIVISOR } from "./units";
+export type * from "./types";
+
+/**
+ * Analyses a logged current trace (CSV of time and current). Bad rows are counted and skipped; a trace
+ * with fewer than two good rows throws a TraceError.
+ */
+export async function analyzeTrace(input: TraceInput, options: TraceOptions = {}): Promise<TraceAnalysis> {
+  const read = await readTrace(input, options);
+  const { t, i } = read.samples.views();
+  let stats: TraceStats;
+  try {
+    stats = analyzeSamples(t, i, options);
+  } catch (err) {
+    if (err instanceof TraceError) {
+      err.badRows = read.badRows;
+      err.badRowExamples = read.badRowExamples;
+      if (read.badRows > 0) err.message += ` ${read.badRows} row${read.badRows === 1 ? " was" : "s were"} skipped.`;
+    }
+    throw err;
+  }
+  return {
+    ...stats,
+    badRows: read.badRows,
+    badRowExamples: read.badRowExamples,
+    units: read.units,
+    format: read.format,
+    warnings: [...read.warnings, ...stats.warnings],
+  };
+}
