@@ -41,11 +41,106 @@ export interface VerificationTokensTable {
   expires: Timestamp;
 }
 
+export type LabStatus = "draft" | "published";
+export type Counting = "best" | "last";
+export type ShowExpected = "after_attempt" | "after_due" | "never";
+
+type Json<T> = ColumnType<T, string, string>;
+
+export interface LabsTable {
+  id: Generated<string>;
+  course_id: string;
+  title: string;
+  template_key: string;
+  status: Generated<LabStatus>;
+  spec: Json<unknown>;
+  questions: Json<unknown>;
+  policy: Json<unknown>;
+  attempts_allowed: Generated<number>;
+  counting: Generated<Counting>;
+  opens_at: Timestamp | null;
+  due_at: Timestamp | null;
+  late_penalty_percent_per_day: Generated<number>;
+  late_floor_percent: Generated<number>;
+  show_expected: Generated<ShowExpected>;
+  instructions: Generated<string>;
+  safety_notes: Generated<string>;
+  version: Generated<number>;
+  created_by: string | null;
+  created_at: Generated<Date>;
+  updated_at: Generated<Date>;
+  published_at: Timestamp | null;
+}
+
+export interface LabVariantsTable {
+  lab_id: string;
+  user_id: string;
+  seed: string;
+  params: Json<unknown>;
+  created_at: Generated<Date>;
+}
+
+export type UploadKind = "image" | "trace";
+
+export interface UploadsTable {
+  id: Generated<string>;
+  owner_id: string;
+  course_id: string;
+  lab_id: string | null;
+  kind: UploadKind;
+  content_type: string;
+  size: number;
+  sha256: string;
+  storage_key: string;
+  original_name: string;
+  analysis: Json<unknown> | null;
+  created_at: Generated<Date>;
+}
+
+export interface AttemptsTable {
+  id: Generated<string>;
+  lab_id: string;
+  user_id: string;
+  number: number;
+  idempotency_key: string;
+  readings: Json<unknown>;
+  measured: Json<unknown>;
+  upload_ids: ColumnType<string[], string[] | undefined, string[]>;
+  result: Json<unknown>;
+  raw_score: number;
+  max_score: number;
+  late_days: Generated<number>;
+  penalty_percent: Generated<number>;
+  score: number;
+  grader_version: string;
+  lab_version: number;
+  submitted_at: Generated<Date>;
+  graded_at: Generated<Date>;
+  review_requested_at: Timestamp | null;
+  review_message: string | null;
+}
+
+export interface LabRegradesTable {
+  id: Generated<string>;
+  lab_id: string;
+  lab_version: number;
+  status: Generated<"queued" | "running" | "done" | "failed">;
+  total: Generated<number>;
+  done: Generated<number>;
+  created_at: Generated<Date>;
+  finished_at: Timestamp | null;
+}
+
 export interface Database {
   users: UsersTable;
   courses: CoursesTable;
   memberships: MembershipsTable;
   verification_tokens: VerificationTokensTable;
+  labs: LabsTable;
+  lab_variants: LabVariantsTable;
+  uploads: UploadsTable;
+  attempts: AttemptsTable;
+  lab_regrades: LabRegradesTable;
 }
 
 export type User = Selectable<UsersTable>;

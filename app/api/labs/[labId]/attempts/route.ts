@@ -1,0 +1,24 @@
+import { db } from "@/db";
+import { findAttempt } from "@/db/queries/attempts";
+import { json, jsonBody, route } from "@/lib/api";
+import { isStaff } from "@/lib/auth/access";
+import { attemptsFor, labAccess, presentAttempt, submitAttempt } from "@/lib/labs/service";
+import { attemptInputSchema } from "@/lib/validation/labs";
+
+type Params = { labId: string };
+
+// A student's own attempts; every attempt for the course staff.
+export const GET = route<Params>(async (_req, { labId }) => {
+  const { lab, access } = await labAccess(labId);
+  return json({ attempts: await attemptsFor(lab, access) });
+});
+
+// Submits bench readings and grades them at once. A retry with the same idempotency key answers 200
+// with the attempt already made; a new attempt answers 201.
+export const POST = route<Params>(async (req, { labId }) => {
+  const { lab, access } = await labAccess(labId);
+  const input = await jsonBody(req, attemptInputSchema);
+  const { attemptId, created } = await submitAttempt(lab, access, input);
+  const attempt = (await findAttempt(db, attemptId))!;
+  return json({ attempt: presentAttempt(attempt, lab, isStaff(access.role)) }, created ? 201 : 200);
+});

@@ -1,0 +1,138 @@
+// Graded attempts. Readings, measured values and the grade are stored together in one row.
+import { sql, type Kysely, type Transaction } from "kysely";
+import type { Database } from "../types";
+
+type Db = Kysely<Database> | Transaction<Database>;
+
+const ATTEMPT_COLUMNS = [
+  "a.id",
+  "a.lab_id as labId",
+  "a.user_id as userId",
+  "a.number",
+  "a.readings",
+  "a.measured",
+  "a.upload_ids as uploadIds",
+  "a.result",
+  "a.raw_score as rawScore",
+  "a.max_score as maxScore",
+  "a.late_days as lateDays",
+  "a.penalty_percent as penaltyPercent",
+  "a.score",
+  "a.grader_version as graderVersion",
+  "a.lab_version as labVersion",
+  "a.submitted_at as submittedAt",
+  "a.graded_at as gradedAt",
+  "a.review_requested_at as reviewRequestedAt",
+  "a.review_message as reviewMessage",
+] as const;
+
+export async function findAttempt(db: Db, attemptId: string) {
+  return db.selectFrom("attempts as a").select(ATTEMPT_COLUMNS).where("a.id", "=", attemptId).executeTakeFirst();
+}
+
+export type AttemptRow = NonNullable<Awaited<ReturnType<typeof findAttempt>>>;
+
+export async function findAttemptByKey(db: Db, labId: string, userId: string, key: string) {
+  return db
+    .selectFrom("attempts as a")
+    .select(ATTEMPT_COLUMNS)
+    .where("a.lab_id", "=", labId)
+    .where("a.user_id", "=", userId)
+    .where("a.idempotency_key", "=", key)
+    .executeTakeFirst();
+}
+
+export async function listAttempts(db: Db, labId: string, userId?: string) {
+  let q = db
+    .selectFrom("attempts as a")
+    .innerJoin("users as u", "u.id", "a.user_id")
+    .select([...ATTEMPT_COLUMNS, "u.name as studentName"])
+    .where("a.lab_id", "=", labId);
+  if (userId) q = q.where("a.user_id", "=", userId);
+  return q.orderBy("u.name").orderBy("a.number").execute();
+}
+
+export async function countAttempts(db: Db, labId: string, userId: string): Promise<number> {
+  const r = await db
+    .selectFrom("attempts")
+    .select(sql<number>`count(*)::int`.as("n"))
+    .where("lab_id", "=", labId)
+    .where("user_id", "=", userId)
+    .executeTakeFirstOrThrow();
+  return r.n;
+}
+
+/** Serialises submissions of one student to one lab for the rest of the transaction. */
+export async function lockStudentLab(trx: Transaction<Database>, labId: string, userId: string) {
+  await sql`select pg_advisory_xact_lock(hashtext(${labId}), hashtext(${userId}))`.execute(trx);
+}
+
+export interface AttemptWrite {
+  labId: string;
+  userId: string;
+  number: number;
+  idempotencyKey: string;
+  readings: unknown;
+  measured: unknown;
+  uploadIds: string[];
+  result: unknown;
+  rawScore: number;
+  maxScore: number;
+  lateDays: number;
+  penaltyPercent: number;
+  score: number;
+  graderVersion: string;
+  labVersion: number;
+  submittedAt: Date;
+}
+
+export async function insertAttempt(db: Db, a: AttemptWrite): Promise<string> {
+  const row = await db
+    .insertInto("attempts")
+    .values({
+      lab_id: a.labId,
+      user_id: a.userId,
+      number: a.number,
+      idempotency_key: a.idempotencyKey,
+      readings: JSON.stringify(a.readings),
+      measured: JSON.stringify(a.measured),
+      upload_ids: a.uploadIds,
+      result: JSON.stringify(a.result),
+      raw_score: a.rawScore,
+      max_score: a.maxScore,
+      late_days: a.lateDays,
+      penalty_percent: a.penaltyPercent,
+      score: a.score,
+      grader_version: a.graderVersion,
+      lab_version: a.labVersion,
+      submitted_at: a.submittedAt,
+      graded_at: a.submittedAt,
+    })
+    .returning("id")
+    .executeTakeFirstOrThrow();
+  return row.id;
+}
+
+export async function updateAttemptGrade(
+  db: Db,
+  attemptId: string,
+  g: { result: unknown; rawScore: number; maxScore: number; score: number; graderVersion: string; labVersion: number },
+) {
+  await db
+    .updateTable("attempts")
+    .set({
+      result: JSON.stringify(g.result),
+      raw_score: g.rawScore,
+      max_score: g.maxScore,
+      score: g.score,
+      grader_version: g.graderVersion,
+      lab_version: g.labVersion,
+      graded_at: new Date(),
+    })
+    .where("id", "=", attemptId)
+    .execute();
+}
+
+export async function requestReview(db: Db, attemptId: string, message: string) {
+  await db.updateTable("attempts").set({ review_requested_at: new Date(), review_message: message }).where("id", "=", attemptId).execute();
+}

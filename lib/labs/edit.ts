@@ -1,0 +1,70 @@
+// Changing a lab. The patch is merged into the lab and the whole is validated with the builder's schema,
+// so a PATCH can never leave a lab the grader cannot use. Changes that affect grades of a published lab
+// with attempts bump its version and recompute every attempt in a background job.
+import "server-only";
+import { db } from "@/db";
+import { countAttempts } from "@/db/queries/attempts";
+import { updateLab } from "@/db/queries/labs";
+import { sql } from "kysely";
+import { AppError } from "@/lib/errors";
+import { enqueue, QUEUES } from "@/lib/jobs";
+import { labInputSchema, labPatchSchema } from "@/lib/validation/labs";
+import { parseOr400 } from "@/lib/validation/zod-errors";
+import { startRegrade } from "./regrade";
+import { type Lab, withIds } from "./grading";
+
+const GRADING_FIELDS = ["spec", "questions", "policy", "latePenaltyPercentPerDay", "lateFloorPercent", "templateKey"] as const;
+
+export function labAsInput(lab: Lab) {
+  return {
+    title: lab.title,
+    templateKey: lab.templateKey,
+    spec: lab.spec,
+    questions: lab.questions,
+    policy: lab.policy,
+    attemptsAllowed: lab.attemptsAllowed,
+    counting: lab.counting,
+    opensAt: lab.opensAt ? lab.opensAt.toISOString() : null,
+    dueAt: lab.dueAt ? lab.dueAt.toISOString() : null,
+    latePenaltyPercentPerDay: lab.latePenaltyPercentPerDay,
+    lateFloorPercent: lab.lateFloorPercent,
+    showExpected: lab.showExpected,
+    instructions: lab.instructions,
+    safetyNotes: lab.safetyNotes,
+  };
+}
+
+async function attemptsOf(labId: string): Promise<number> {
+  const r = await db.selectFrom("attempts").select(sql<number>`count(*)::int`.as("n")).where("lab_id", "=", labId).executeTakeFirstOrThrow();
+  return r.n;
+}
+
+export async function editLab(lab: Lab, body: unknown): Promise<{ regrade: { id: string; total: number } | null }> {
+  const patch = parseOr400(labPatchSchema, body) as Record<string, unknown> & { status?: "draft" | "published" };
+  const { status, ...fields } = patch;
+  const merged = parseOr400(labInputSchema, { ...labAsInput(lab), ...fields });
+  const attempts = await attemptsOf(lab.id);
+
+  if (fields.templateKey !== undefined && merged.templateKey !== lab.templateKey && attempts > 0) {
+    throw new AppError("conflict", "Students have already submitted attempts, so the circuit template can no longer change.", {
+      templateKey: ["The template cannot change once attempts exist."],
+    });
+  }
+  if (status === "draft" && lab.status === "published" && attempts > 0) {
+    throw new AppError("conflict", "A lab with attempts cannot go back to draft.", { status: ["A lab with attempts cannot go back to draft."] });
+  }
+  const gradingChanged = GRADING_FIELDS.some((k) => k in fields && JSON.stringify((fields as Record<string, unknown>)[k]) !== JSON.stringify((labAsInput(lab) as Record<string, unknown>)[k]));
+  const recompute = gradingChanged && lab.status === "published" && attempts > 0;
+
+  const changed: Record<string, unknown> = {};
+  for (const k of Object.keys(fields)) changed[k] = (merged as Record<string, unknown>)[k];
+  if ("questions" in changed) changed.questions = withIds(merged.questions);
+  await updateLab(db, lab.id, { ...changed, ...(status ? { status } : {}) }, recompute);
+
+  if (!recompute) return { regrade: null };
+  const regrade = await startRegrade(lab.id, lab.version + 1);
+  await enqueue(QUEUES.regrade, { regradeId: regrade.id }, { singletonKey: regrade.id });
+  return { regrade };
+}
+
+export { countAttempts };

@@ -1,0 +1,65 @@
+// Recomputes every attempt of a lab after a published lab changed. Runs as a job; the lab_regrades row
+// records its progress for the lab page's progress bar. Late penalties already applied are kept.
+import { db } from "@/db";
+import { listAttempts, updateAttemptGrade } from "@/db/queries/attempts";
+import { findLab } from "@/db/queries/labs";
+import { findUploads } from "@/db/queries/uploads";
+import type { Params } from "@/lib/grader";
+import { applyPenalty } from "./policy";
+import { gradeForLab, toLab, type TraceSummary } from "./grading";
+
+export async function startRegrade(labId: string, labVersion: number): Promise<{ id: string; total: number }> {
+  const total = (await listAttempts(db, labId)).length;
+  const row = await db
+    .insertInto("lab_regrades")
+    .values({ lab_id: labId, lab_version: labVersion, total })
+    .returning("id")
+    .executeTakeFirstOrThrow();
+  return { id: row.id, total };
+}
+
+export async function latestRegrade(labId: string) {
+  return db
+    .selectFrom("lab_regrades")
+    .select(["id", "status", "total", "done", "created_at as createdAt", "finished_at as finishedAt"])
+    .where("lab_id", "=", labId)
+    .orderBy("created_at", "desc")
+    .limit(1)
+    .executeTakeFirst();
+}
+
+export async function runRegrade(regradeId: string): Promise<void> {
+  const job = await db.selectFrom("lab_regrades").selectAll().where("id", "=", regradeId).executeTakeFirst();
+  if (!job || job.status === "done") return;
+  const row = await findLab(db, job.lab_id);
+  if (!row) return;
+  const lab = toLab(row);
+  const attempts = await listAttempts(db, lab.id);
+  await db.updateTable("lab_regrades").set({ status: "running", total: attempts.length, done: 0 }).where("id", "=", regradeId).execute();
+  try {
+    let done = 0;
+    for (const a of attempts) {
+      const stored = a.result as { params?: Params };
+      const measured = (a.measured as { values?: Params }).values ?? {};
+      const uploads = await findUploads(db, a.uploadIds);
+      const traces = uploads.filter((u) => u.kind === "trace" && u.analysis).map((u) => u.analysis as TraceSummary);
+      const result = gradeForLab(lab, stored.params ?? {}, a.readings as Record<string, string | null>, measured, traces);
+      await updateAttemptGrade(db, a.id, {
+        result: { ...result, params: stored.params },
+        rawScore: result.score,
+        maxScore: result.maxScore,
+        score: applyPenalty(result.score, a.penaltyPercent),
+        graderVersion: result.graderVersion,
+        labVersion: lab.version,
+      });
+      done++;
+      if (done % 10 === 0 || done === attempts.length) {
+        await db.updateTable("lab_regrades").set({ done }).where("id", "=", regradeId).execute();
+      }
+    }
+    await db.updateTable("lab_regrades").set({ status: "done", done, finished_at: new Date() }).where("id", "=", regradeId).execute();
+  } catch (e) {
+    await db.updateTable("lab_regrades").set({ status: "failed", finished_at: new Date() }).where("id", "=", regradeId).execute();
+    throw e;
+  }
+}

@@ -1,0 +1,175 @@
+// Lab use cases shared by pages, server actions and route handlers: authorization, variants, grading,
+// submission. Callers pass plain data; every function checks who is asking.
+import "server-only";
+import { db } from "@/db";
+import type { Database, Role } from "@/db/types";
+import type { Transaction } from "kysely";
+import {
+  countAttempts,
+  findAttempt,
+  findAttemptByKey,
+  insertAttempt,
+  listAttempts,
+  lockStudentLab,
+  type AttemptRow,
+} from "@/db/queries/attempts";
+import { findLab, findVariant, insertLab, listLabs, storeVariant, updateLab } from "@/db/queries/labs";
+import { findUploads } from "@/db/queries/uploads";
+import { EVERYONE, isStaff, requireCourseRole, type CourseAccess } from "@/lib/auth/access";
+import { AppError, notFound } from "@/lib/errors";
+import { drawVariant, type Params } from "@/lib/grader";
+import { gradeForLab, parseMeasured, toLab, withIds, type Lab, type TraceSummary } from "./grading";
+import { applyPenalty, expectedVisible, isOpen, latePenaltyPercent, lateDays } from "./policy";
+import { presentResults, type StoredResult } from "./present";
+
+export { gradeForLab, parseMeasured, policyFor, toLab, withIds, type Lab } from "./grading";
+import type { LabData } from "@/lib/validation/labs";
+import { uuidSchema } from "@/lib/validation/members";
+
+/** The lab and the caller's access to its course. Students never see drafts (404). */
+export async function labAccess(labId: string, allowed: Role[] = EVERYONE): Promise<{ lab: Lab; access: CourseAccess }> {
+  if (!uuidSchema.safeParse(labId).success) throw notFound("That lab");
+  const row = await findLab(db, labId);
+  if (!row) throw notFound("That lab");
+  const access = await requireCourseRole(row.courseId, EVERYONE);
+  const lab = toLab(row);
+  if (!isStaff(access.role) && lab.status !== "published") throw notFound("That lab");
+  if (!allowed.includes(access.role)) await requireCourseRole(row.courseId, allowed);
+  return { lab, access };
+}
+
+export async function labsForCourse(access: CourseAccess): Promise<Lab[]> {
+  const rows = await listLabs(db, access.course.id, { publishedOnly: !isStaff(access.role) });
+  return rows.map(toLab);
+}
+
+export async function createLab(access: CourseAccess, data: LabData, status: "draft" | "published" = "draft"): Promise<string> {
+  return insertLab(db, access.course.id, access.user.id, { ...data, questions: withIds(data.questions) }, status);
+}
+
+/** The caller's own circuit values: drawn once with the seed `${labId}:${userId}` and stored. */
+export async function variantFor(lab: Lab, userId: string): Promise<Params> {
+  const stored = await findVariant(db, lab.id, userId);
+  if (stored) return stored.params as Params;
+  const seed = `${lab.id}:${userId}`;
+  const params = drawVariant(lab.spec, seed);
+  return (await storeVariant(db, lab.id, userId, seed, params)).params as Params;
+}
+
+export interface SubmitInput {
+  idempotencyKey: string;
+  readings: Record<string, string | null>;
+  measured: Record<string, string | null>;
+  uploadIds: string[];
+}
+
+/**
+ * Submits and grades an attempt in one transaction. A retry with the same idempotency key returns
+ * the attempt already made (`created: false`).
+ */
+export async function submitAttempt(lab: Lab, access: CourseAccess, input: SubmitInput, now = new Date()): Promise<{ attemptId: string; created: boolean }> {
+  if (lab.status !== "published") throw new AppError("conflict", "This lab is not published yet.");
+  const known = new Set(lab.questions.map((q) => q.id));
+  const unknown = Object.keys(input.readings).filter((k) => !known.has(k));
+  if (unknown.length) {
+    throw new AppError("bad_request", `These readings answer no question of this lab: ${unknown.join(", ")}.`, Object.fromEntries(unknown.map((k) => [`readings.${k}`, ["This lab has no such question."]])));
+  }
+  const measured = parseMeasured(lab, input.measured);
+  const userId = access.user.id;
+
+  const uploads = await findUploads(db, input.uploadIds);
+  if (uploads.length !== new Set(input.uploadIds).size || uploads.some((u) => u.ownerId !== userId || u.courseId !== lab.courseId)) {
+    throw new AppError("bad_request", "One of the attached files is not yours or not in this course.", { uploadIds: ["Attach only files you uploaded for this course."] });
+  }
+  const traces = uploads.filter((u) => u.kind === "trace" && u.analysis).map((u) => u.analysis as TraceSummary);
+
+  return db.transaction().execute(async (trx: Transaction<Database>) => {
+    await lockStudentLab(trx, lab.id, userId);
+    const previous = await findAttemptByKey(trx, lab.id, userId, input.idempotencyKey);
+    if (previous) return { attemptId: previous.id, created: false };
+    if (!isOpen(lab, now)) throw new AppError("conflict", `This lab opens on ${lab.opensAt!.toISOString().slice(0, 16).replace("T", " ")} UTC.`);
+    const used = await countAttempts(trx, lab.id, userId);
+    if (used >= lab.attemptsAllowed) {
+      throw new AppError("conflict", `You have used all ${lab.attemptsAllowed} attempt${lab.attemptsAllowed === 1 ? "" : "s"} of this lab.`);
+    }
+    const params = await variantForTrx(trx, lab, userId);
+    const result = gradeForLab(lab, params, input.readings, measured, traces);
+    const days = lateDays(lab, now);
+    const penalty = latePenaltyPercent(lab, days);
+    const attemptId = await insertAttempt(trx, {
+      labId: lab.id,
+      userId,
+      number: used + 1,
+      idempotencyKey: input.idempotencyKey,
+      readings: input.readings,
+      measured: { typed: input.measured, values: measured },
+      uploadIds: input.uploadIds,
+      result: { ...result, params },
+      rawScore: result.score,
+      maxScore: result.maxScore,
+      lateDays: days,
+      penaltyPercent: penalty,
+      score: applyPenalty(result.score, penalty),
+      graderVersion: result.graderVersion,
+      labVersion: lab.version,
+      submittedAt: now,
+    });
+    return { attemptId, created: true };
+  });
+}
+
+async function variantForTrx(trx: Transaction<Database>, lab: Lab, userId: string): Promise<Params> {
+  const stored = await findVariant(trx, lab.id, userId);
+  if (stored) return stored.params as Params;
+  const seed = `${lab.id}:${userId}`;
+  return (await storeVariant(trx, lab.id, userId, seed, drawVariant(lab.spec, seed))).params as Params;
+}
+
+/** An attempt as the caller may see it: the owner and the course staff only; anyone else gets 404. */
+export async function attemptAccess(attemptId: string) {
+  if (!uuidSchema.safeParse(attemptId).success) throw notFound("That attempt");
+  const attempt = await findAttempt(db, attemptId);
+  if (!attempt) throw notFound("That attempt");
+  const { lab, access } = await labAccess(attempt.labId).catch((e) => {
+    if (e instanceof AppError && (e.code === "forbidden" || e.code === "not_found")) throw notFound("That attempt");
+    throw e;
+  });
+  if (attempt.userId !== access.user.id && !isStaff(access.role)) throw notFound("That attempt");
+  return { attempt, lab, access };
+}
+
+export function presentAttempt(attempt: AttemptRow, lab: Lab, viewerIsStaff: boolean, now = new Date()) {
+  const show = viewerIsStaff || expectedVisible(lab, now);
+  const stored = attempt.result as StoredResult & { params?: Params };
+  return {
+    id: attempt.id,
+    labId: attempt.labId,
+    labTitle: lab.title,
+    number: attempt.number,
+    status: "graded" as const,
+    submittedAt: attempt.submittedAt,
+    gradedAt: attempt.gradedAt,
+    score: attempt.score,
+    rawScore: attempt.rawScore,
+    maxScore: attempt.maxScore,
+    lateDays: attempt.lateDays,
+    penaltyPercent: attempt.penaltyPercent,
+    graderVersion: attempt.graderVersion,
+    expectedShown: show,
+    params: stored.params,
+    results: presentResults(lab.templateKey, stored, show),
+    uploadIds: attempt.uploadIds,
+    reviewRequestedAt: attempt.reviewRequestedAt,
+    reviewMessage: attempt.reviewMessage,
+  };
+}
+
+export type PresentedAttempt = ReturnType<typeof presentAttempt>;
+
+export async function attemptsFor(lab: Lab, access: CourseAccess, now = new Date()) {
+  const staff = isStaff(access.role);
+  const rows = await listAttempts(db, lab.id, staff ? undefined : access.user.id);
+  return rows.map((r) => ({ ...presentAttempt(r, lab, staff, now), studentId: r.userId, studentName: r.studentName }));
+}
+
+export { updateLab };

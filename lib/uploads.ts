@@ -1,0 +1,103 @@
+// Accepting an upload: size cap, type from the bytes (never from the name or the browser's claim),
+// SHA-256, storage, and for a logged trace the analysis. Callers authorize first.
+import "server-only";
+import crypto from "node:crypto";
+import { fileTypeFromBuffer } from "file-type";
+import { db } from "@/db";
+import { findUpload, insertUpload } from "@/db/queries/uploads";
+import { AppError } from "@/lib/errors";
+import { putObject, maxUploadBytes, signedUrl } from "@/lib/storage";
+import { analyzeTrace } from "@/lib/trace";
+import type { Params } from "@/lib/grader";
+
+const IMAGE_TYPES = new Set(["image/png", "image/jpeg"]);
+
+/** A trace is plain text with at least two lines of separated values. */
+function looksLikeCsv(bytes: Uint8Array): boolean {
+  const head = Buffer.from(bytes.subarray(0, 64 * 1024));
+  if (head.includes(0)) return false;
+  const text = head.toString("utf8");
+  if (text.includes("\uFFFD")) return false;
+  const lines = text.split(/\r?\n/).filter((l) => l.trim() !== "");
+  return lines.length >= 2 && lines.slice(0, 5).every((l) => /[,;\t]/.test(l));
+}
+
+export function mb(bytes: number): string {
+  return `${(bytes / 1024 / 1024).toFixed(bytes % (1024 * 1024) ? 1 : 0)} MB`;
+}
+
+export async function acceptUpload(opts: {
+  ownerId: string;
+  courseId: string;
+  labId: string | null;
+  fileName: string;
+  bytes: Uint8Array;
+  params?: Params;
+}) {
+  const cap = maxUploadBytes();
+  if (opts.bytes.byteLength === 0) throw new AppError("bad_request", "The file is empty.", { file: ["The file is empty."] });
+  if (opts.bytes.byteLength > cap) {
+    throw new AppError("payload_too_large", `The file is ${mb(opts.bytes.byteLength)}; the limit is ${mb(cap)}.`, { file: [`Files may be at most ${mb(cap)}.`] });
+  }
+  const detected = await fileTypeFromBuffer(opts.bytes);
+  let kind: "image" | "trace";
+  let contentType: string;
+  if (detected && IMAGE_TYPES.has(detected.mime)) {
+    kind = "image";
+    contentType = detected.mime;
+  } else if (!detected && looksLikeCsv(opts.bytes)) {
+    kind = "trace";
+    contentType = "text/csv";
+  } else {
+    const what = detected ? `a ${detected.ext.toUpperCase()} file` : "not a PNG, JPEG or CSV file";
+    throw new AppError("unsupported_media_type", `That file is ${what}. Upload a scope capture as PNG or JPEG, or a logged trace as CSV (time and current).`, {
+      file: ["Only PNG or JPEG images and CSV traces are accepted."],
+    });
+  }
+  const sha256 = crypto.createHash("sha256").update(opts.bytes).digest("hex");
+  let analysis: unknown = null;
+  if (kind === "trace") {
+    const capacity = typeof opts.params?.batteryCapacity === "number" ? opts.params.batteryCapacity : undefined;
+    const usable = typeof opts.params?.usableFraction === "number" ? opts.params.usableFraction : undefined;
+    try {
+      analysis = await analyzeTrace(Buffer.from(opts.bytes), { batteryCapacity: capacity, usableFraction: usable });
+    } catch (e) {
+      throw new AppError("bad_request", `The trace could not be read: ${(e as Error).message}`, { file: [(e as Error).message] });
+    }
+  }
+  const storageKey = `${opts.courseId}/${opts.ownerId}/${crypto.randomUUID()}${kind === "trace" ? ".csv" : contentType === "image/png" ? ".png" : ".jpg"}`;
+  await putObject(storageKey, opts.bytes, contentType);
+  const id = await insertUpload(db, {
+    ownerId: opts.ownerId,
+    courseId: opts.courseId,
+    labId: opts.labId,
+    kind,
+    contentType,
+    size: opts.bytes.byteLength,
+    sha256,
+    storageKey,
+    originalName: opts.fileName.slice(0, 200),
+    analysis,
+  });
+  return { id, kind, contentType, size: opts.bytes.byteLength, sha256, analysis };
+}
+
+export async function uploadView(id: string) {
+  const u = await findUpload(db, id);
+  if (!u) return undefined;
+  return {
+    upload: u,
+    view: {
+      id: u.id,
+      kind: u.kind,
+      contentType: u.contentType,
+      size: u.size,
+      sha256: u.sha256,
+      originalName: u.originalName,
+      createdAt: u.createdAt,
+      analysis: u.analysis,
+      url: await signedUrl(u.storageKey, 60, u.originalName),
+      urlExpiresInSeconds: 60,
+    },
+  };
+}

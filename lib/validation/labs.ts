@@ -1,0 +1,74 @@
+// The lab a builder saves and the attempt a student submits: one schema each, shared by the forms and
+// the route handlers. The parameter spec, questions and policy use the grader's own schemas.
+import { z } from "zod";
+import { drawVariant, gradePolicySchema, questionSchema, TEMPLATE_KEYS, templates, variantSpecSchema, type TemplateKey } from "@/lib/grader";
+
+const isoDate = z
+  .union([z.iso.datetime({ offset: true, local: true }), z.literal(""), z.null()])
+  .transform((v) => (v ? new Date(v) : null))
+  .refine((d) => d === null || !Number.isNaN(d.getTime()), { message: "Enter a valid date and time." });
+
+export const labFields = {
+  title: z.string({ error: "Give the lab a title." }).trim().min(1, "Give the lab a title.").max(120, "Use at most 120 characters."),
+  templateKey: z.enum(TEMPLATE_KEYS as [TemplateKey, ...TemplateKey[]], { error: "Choose a circuit template." }),
+  spec: variantSpecSchema,
+  questions: z.array(questionSchema).min(1, "Ask at least one question.").max(20, "Ask at most 20 questions."),
+  policy: gradePolicySchema.partial().default({}),
+  attemptsAllowed: z.number({ error: "Enter a whole number." }).int("Enter a whole number.").min(1, "Allow at least one attempt.").max(20, "Allow at most 20 attempts."),
+  counting: z.enum(["best", "last"], { error: "Choose best or last attempt." }),
+  opensAt: isoDate,
+  dueAt: isoDate,
+  latePenaltyPercentPerDay: z.number({ error: "Enter a number." }).min(0, "Use 0 or more.").max(100, "Use at most 100."),
+  lateFloorPercent: z.number({ error: "Enter a number." }).min(0, "Use 0 or more.").max(100, "Use at most 100."),
+  showExpected: z.enum(["after_attempt", "after_due", "never"], { error: "Choose when expected values are shown." }),
+  instructions: z.string().max(20_000, "Use at most 20,000 characters.").default(""),
+  safetyNotes: z.string().max(5_000, "Use at most 5,000 characters.").default(""),
+};
+
+function checkLab(lab: { templateKey: TemplateKey; spec: { template: string; parameters: Record<string, unknown> }; questions: { quantity: string }[]; opensAt: Date | null; dueAt: Date | null }, ctx: z.RefinementCtx) {
+  if (lab.spec.template !== lab.templateKey) {
+    ctx.addIssue({ code: "custom", path: ["spec", "template"], message: "The parameter spec belongs to another template." });
+  }
+  const template = templates[lab.templateKey];
+  const quantities = new Set(template.quantities.map((q) => q.key));
+  lab.questions.forEach((q, i) => {
+    if (!quantities.has(q.quantity)) {
+      ctx.addIssue({ code: "custom", path: ["questions", i, "quantity"], message: `"${q.quantity}" is not a quantity of this template.` });
+    }
+  });
+  const params = new Set(template.parameters.map((p) => p.key));
+  for (const key of Object.keys(lab.spec.parameters)) {
+    if (!params.has(key)) ctx.addIssue({ code: "custom", path: ["spec", "parameters", key], message: `"${key}" is not a parameter of this template.` });
+  }
+  if (lab.spec.template === lab.templateKey && [...Object.keys(lab.spec.parameters)].every((k) => params.has(k))) {
+    try {
+      drawVariant(lab.spec as Parameters<typeof drawVariant>[0], "lab-check");
+    } catch (e) {
+      ctx.addIssue({ code: "custom", path: ["spec"], message: (e as Error).message });
+    }
+  }
+  if (lab.opensAt && lab.dueAt && lab.dueAt <= lab.opensAt) {
+    ctx.addIssue({ code: "custom", path: ["dueAt"], message: "The due date must come after the opening date." });
+  }
+}
+
+export const labInputSchema = z.object(labFields).superRefine(checkLab);
+export type LabInput = z.input<typeof labInputSchema>;
+export type LabData = z.output<typeof labInputSchema>;
+
+/** PATCH: any subset of the fields, plus publishing. */
+export const labPatchSchema = z
+  .object({ ...Object.fromEntries(Object.entries(labFields).map(([k, v]) => [k, v.optional()])), status: z.enum(["draft", "published"]).optional() })
+  .strict();
+
+export const attemptInputSchema = z.object({
+  idempotencyKey: z.string({ error: "An idempotency key is required." }).min(8, "The idempotency key is too short.").max(100),
+  readings: z.record(z.string(), z.string().max(200, "Use at most 200 characters.").nullable()),
+  measured: z.record(z.string(), z.string().max(200, "Use at most 200 characters.").nullable()).optional().default({}),
+  uploadIds: z.array(z.uuid({ error: "Not an upload id." })).max(4, "Attach at most 4 files.").optional().default([]),
+});
+export type AttemptInput = z.input<typeof attemptInputSchema>;
+
+export const reviewRequestSchema = z.object({
+  message: z.string({ error: "Say what you would like reviewed." }).trim().min(5, "Say a little more (at least 5 characters).").max(2000, "Use at most 2,000 characters."),
+});
