@@ -140,9 +140,28 @@ const TEX_SYMBOL: Record<string, string> = {
   "V/A": "\\mathrm{V/A}",
 };
 
+/** Memo of texQuantity for default options: solutions repeat the same parameter values many times. */
+const TEX_MEMO = new Map<string, Map<number, string>>();
+const TEX_MEMO_LIMIT = 4096;
+
 /** LaTeX for a value with its unit, e.g. "3.267\,\mathrm{mA}", "4.7\,\mathrm{k}\Omega", "9.10\,\mu\mathrm{A}". */
 export function texQuantity(value: number, unit: string, opts?: FormatOptions): string {
-  const p = quantityParts(value, unit, opts);
+  if (opts) return texFromParts(quantityParts(value, unit, opts));
+  let memo = TEX_MEMO.get(unit);
+  if (!memo) {
+    memo = new Map();
+    TEX_MEMO.set(unit, memo);
+  }
+  let out = memo.get(value);
+  if (out === undefined) {
+    out = texFromParts(quantityParts(value, unit));
+    if (memo.size >= TEX_MEMO_LIMIT) memo.clear();
+    memo.set(value, out);
+  }
+  return out;
+}
+
+function texFromParts(p: Parts): string {
   const num = texNumber(p.number);
   const special = TEX_SYMBOL[p.symbol];
   let u: string;

@@ -228,6 +228,16 @@ interface NumberContext {
   measured?: Params;
 }
 
+function finish(r: QuestionResult, verdict: Verdict, feedback: string): QuestionResult {
+  r.verdict = verdict;
+  r.feedback = feedback;
+  return r;
+}
+
+function bandRange(band: [number, number], spec: QuantitySpec): string {
+  return `${fmt(band[0], spec)} to ${fmt(band[1], spec)}`;
+}
+
 function prefixSlips(expected: number): MistakeCandidate[] {
   return [1e3, 1e-3, 1e6, 1e-6].map((f) => ({ key: "prefix-slip" as const, value: expected * f }));
 }
@@ -283,16 +293,11 @@ function gradeNumber(t: Template, spec: QuantitySpec, p: Params, q: Question, ex
   const read = readAs ? `Read as ${readAs}. ` : "";
   solution.push(`\\text{your answer: } ${texQuantity(answer, spec.unit)}`);
   const slack = 1e-12 * Math.max(Math.abs(expected), half);
-  const result = (verdict: Verdict, feedback: string, mistake?: MistakeKey): QuestionResult => {
-    const r: QuestionResult = { quantity: q.quantity, kind: q.kind, verdict, points: 0, maxPoints: q.points, expected, band, answer, method, feedback, solution };
-    if (readAs) r.readAs = readAs;
-    if (mistake) r.mistake = mistake;
-    return r;
-  };
-  const range = () => `${fmt(band[0], spec)} to ${fmt(band[1], spec)}`;
+  const out: QuestionResult = { quantity: q.quantity, kind: q.kind, verdict: "wrong", points: 0, maxPoints: q.points, expected, band, answer, method, feedback: "", solution };
+  if (readAs) out.readAs = readAs;
 
   if (Math.abs(answer - expected) <= half + slack)
-    return result("correct", `${read}Correct: within the accepted band ${range()} (${bandText.replace(/\.$/, "")}).`);
+    return finish(out, "correct", `${read}Correct: within the accepted band ${bandRange(band, spec)} (${bandText.replace(/\.$/, "")}).`);
 
   // recognised wrong methods: count only when the correct value is not also inside the candidate's band
   const relHalf = expected !== 0 ? half / Math.abs(expected) : c.rel;
@@ -304,13 +309,15 @@ function gradeNumber(t: Template, spec: QuantitySpec, p: Params, q: Question, ex
     if (Math.abs(expected - m.value) <= cHalf + slack) continue;
     if (Math.abs(answer - m.value) <= cHalf) {
       const info = MISTAKES[m.key];
-      return result("mistake", `${read}${info.title}. ${m.detail ?? info.explain} ${info.fix} The answer is ${fmt(expected, spec)}.`, m.key);
+      out.mistake = m.key;
+      return finish(out, "mistake", `${read}${info.title}. ${m.detail ?? info.explain} ${info.fix} The answer is ${fmt(expected, spec)}.`);
     }
   }
   if (Math.abs(answer - expected) <= c.closeMultiple * half + slack)
-    return result(
+    return finish(
+      out,
       "close",
-      `${read}Close: ${fmt(answer, spec)} is outside the accepted band ${range()} (${bandText.replace(/\.$/, "")}) but within ${c.closeMultiple}× of it, so it earns ${Math.round(100 * c.closeCredit)} % of the points. Check your rounding and the values you used; the answer is ${fmt(expected, spec)}.`,
+      `${read}Close: ${fmt(answer, spec)} is outside the accepted band ${bandRange(band, spec)} (${bandText.replace(/\.$/, "")}) but within ${c.closeMultiple}× of it, so it earns ${Math.round(100 * c.closeCredit)} % of the points. Check your rounding and the values you used; the answer is ${fmt(expected, spec)}.`,
     );
-  return result("wrong", `${read}Not accepted: the answer is ${fmt(expected, spec)} (accepted ${range()}). Compare your steps with the worked solution.`);
+  return finish(out, "wrong", `${read}Not accepted: the answer is ${fmt(expected, spec)} (accepted ${bandRange(band, spec)}). Compare your steps with the worked solution.`);
 }
