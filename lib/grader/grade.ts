@@ -290,7 +290,8 @@ function gradeNumber(t: Template, spec: QuantitySpec, p: Params, q: Question, ex
     answer = parsed.value;
     readAs = fmt(answer, spec);
   }
-  const read = readAs ? `Read as ${readAs}. ` : "";
+  const note = t.answerNote?.(p, q.quantity, answer);
+  const read = (readAs ? `Read as ${readAs}. ` : "") + (note ? `${note} ` : "");
   solution.push(`\\text{your answer: } ${texQuantity(answer, spec.unit)}`);
   const slack = 1e-12 * Math.max(Math.abs(expected), half);
   const out: QuestionResult = { quantity: q.quantity, kind: q.kind, verdict: "wrong", points: 0, maxPoints: q.points, expected, band, answer, method, feedback: "", solution };

@@ -89,6 +89,8 @@ export interface Template {
   mistakes(params: Params, quantity: string): MistakeCandidate[];
   /** smallest half-width of an acceptance band (SI) for a value that can be near zero */
   bandFloor?(params: Params, quantity: string, relativeTolerance: number): number;
+  /** an extra remark about a particular answer (e.g. a saturated ADC code), or undefined */
+  answerNote?(params: Params, quantity: string, answer: number): string | undefined;
   /** a fixed half-width that replaces the relative tolerance (one ADC code), or undefined */
   exactBand?(params: Params, quantity: string): number | undefined;
 }

@@ -1,6 +1,7 @@
 // A load that sleeps at I_s and wakes to I_a for t_a once every period T, run from a battery.
 import type { MistakeCandidate, Params, Template } from "../types";
 import { allPositive, num, tq } from "./util";
+import { texNumber } from "../format";
 
 function values(p: Params) {
   const is = num(p, "sleepCurrent");
@@ -61,7 +62,7 @@ export const dutyCycle: Template = {
       return [
         ...avg,
         `C_\\mathrm{bat} = ${tq(v.cap, "C", { displayUnit: "mAh" })} \\times 3.6\\,\\mathrm{C/mAh} = ${tq(v.cap, "C")}`,
-        `t_\\mathrm{life} = \\frac{\\eta\\,C_\\mathrm{bat}}{\\bar I} = \\frac{${v.eta} \\times ${tq(v.cap, "C")}}{${tq(v.averageCurrent, "A")}} = ${tq(v.batteryLife, "s")} = ${tq(v.batteryLife, "s", { displayUnit: "h" })} = ${tq(v.batteryLife, "s", { displayUnit: "d" })}`,
+        `t_\\mathrm{life} = \\frac{\\eta\\,C_\\mathrm{bat}}{\\bar I} = \\frac{${texNumber(v.eta)} \\times ${tq(v.cap, "C")}}{${tq(v.averageCurrent, "A")}} = ${tq(v.batteryLife, "s")} = ${tq(v.batteryLife, "s", { displayUnit: "h" })} = ${tq(v.batteryLife, "s", { displayUnit: "d" })}`,
       ];
     return [];
   },

@@ -144,6 +144,13 @@ export const rangeResolution: Template = {
     }
     return out;
   },
+  answerNote(p, q, answer) {
+    const v = values(p);
+    const top = 2 ** v.bits - 1;
+    if ((q === "adcCode" && answer >= top) || (q === "outputVoltage" && answer >= v.topVoltage))
+      return `That reading is saturated (at or above the top code ${top}, ${v.topVoltage.toPrecision(4)} V): a saturated reading must be flagged, not used; move to a less sensitive range.`;
+    return undefined;
+  },
   exactBand(_p, q) {
     return q === "adcCode" ? 1 : undefined;
   },

@@ -247,3 +247,18 @@ describe("public contract", () => {
     }
   });
 });
+
+describe("saturation", () => {
+  it("a saturated ADC code is flagged in the feedback", () => {
+    // 5 µA on the nA range clips at code 4095 (DOMAIN §12.3); the best range is µA
+    const r = gradeAttempt({
+      template: "range-resolution",
+      params: { current: 5e-6, fullScaleVoltage: 3.3, adcBits: 12, adcReference: 3.3 },
+      questions: [q1("adcCode")],
+      readings: ["4095"],
+    }).results[0];
+    expect(r.verdict).toBe("mistake");
+    expect(r.mistake).toBe("wrong-range");
+    expect(r.feedback).toMatch(/saturated/);
+  });
+});
