@@ -7,9 +7,9 @@
 // wave that starts and ends asleep the two agree, because each rising edge's extra half-step is taken
 // back by its falling edge.
 //
-// Sleep and active: the threshold comes from levels.ts. The active state starts at a sample above
-// threshold + 10 % of the level gap and ends at a sample below threshold − 10 % (a Schmitt trigger), so
-// noise near the threshold does not count as extra wakes. Charge per wake is ∫ i dt over each wake's
+// Sleep and active: the threshold and its hysteresis band come from levels.ts. The active state starts at
+// a sample above the band and ends at a sample below it (a Schmitt trigger), so noise near the threshold
+// does not count as extra wakes. Charge per wake is ∫ i dt over each wake's
 // active run (DOMAIN.md §8: Q_wake = I_a·t_a), averaged over the runs that both start and end inside
 // the trace.
 import { minMaxDecimate } from "./decimate";
@@ -29,8 +29,6 @@ export class TraceError extends Error {
 export type TraceStats = Omit<TraceAnalysis, "badRows" | "badRowExamples" | "units" | "format" | "warnings"> & {
   warnings: string[];
 };
-
-const HYSTERESIS = 0.1;
 
 export function analyzeSamples(t: Float64Array, i: Float64Array, options: TraceOptions = {}): TraceStats {
   const n = Math.min(t.length, i.length);
@@ -61,7 +59,7 @@ export function analyzeSamples(t: Float64Array, i: Float64Array, options: TraceO
   const duration = t[n - 1] - t[0];
   const averageCurrent = hold / duration;
 
-  const split = splitLevels(t, i, averageCurrent);
+  const split = splitLevels(t.subarray(0, n), i.subarray(0, n));
   const twoLevel = split.threshold !== null && split.separation >= MIN_SEPARATION;
 
   let sleepLevel = averageCurrent;
@@ -75,9 +73,8 @@ export function analyzeSamples(t: Float64Array, i: Float64Array, options: TraceO
 
   if (twoLevel) {
     threshold = split.threshold!;
-    const band = HYSTERESIS * (split.high! - split.low!);
-    const on = threshold + band;
-    const off = threshold - band;
+    const on = split.on!;
+    const off = split.off!;
     let active = i[0] > threshold;
     let runStart = active ? -1 : 0; // -1: the run began before the trace did
     let runTime = 0;

@@ -66,7 +66,7 @@ export type TraceAnalysis = {
   totalCharge: number;
   /** True when the trace splits clearly into a sleep and an active level. */
   twoLevel: boolean;
-  /** Otsu's separation measure (between-class over total variance, 0..1). */
+  /** Otsu's separation measure (between-class over total variance, 0..1) on the scale of levels.ts. */
   separation: number;
   /** Current that divides sleep from active, A; null when the trace is not two-level. */
   threshold: number | null;
