@@ -198,6 +198,7 @@ function gradeCategory(t: Template, spec: QuantitySpec, p: Params, q: Question, 
   if (reading === null || reading === undefined || String(reading).trim() === "") return missing(q, expected, null, method, solution);
   const answer = normaliseCategory(String(reading));
   const shown = (v: string) => v.replace(/^u/, "µ");
+  solution.push(`\\text{your answer: } \\text{${String(reading).trim().replace(/[µμ]/g, "u").replace(/[^A-Za-z0-9 ]/g, "")}}`);
   if (answer === normaliseCategory(expected))
     return { ...base, verdict: "correct", answer: expected, feedback: `Correct: ${shown(expected)}.` };
   for (const c of t.mistakes(p, q.quantity)) {
@@ -292,7 +293,7 @@ function gradeNumber(t: Template, spec: QuantitySpec, p: Params, q: Question, ex
   }
   const note = t.answerNote?.(p, q.quantity, answer);
   const read = (readAs ? `Read as ${readAs}. ` : "") + (note ? `${note} ` : "");
-  solution.push(`\\text{your answer: } ${texQuantity(answer, spec.unit)}`);
+  solution.push(`\\text{your answer: } ${texQuantity(answer, spec.unit, NON_PREFIX_DISPLAY.has(spec.displayUnit) ? { displayUnit: spec.displayUnit } : undefined)}`);
   const slack = 1e-12 * Math.max(Math.abs(expected), half);
   const out: QuestionResult = { quantity: q.quantity, kind: q.kind, verdict: "wrong", points: 0, maxPoints: q.points, expected, band, answer, method, feedback: "", solution };
   if (readAs) out.readAs = readAs;

@@ -9,6 +9,9 @@ export const RANGES = [
   { name: "mA", sensitivity: 1, tex: "\\mathrm{mA}" },
 ] as const;
 
+const SHOWN = ["nA", "µA", "mA"];
+const SENS = ["1 mV/nA", "1 mV/µA", "1 mV/mA"];
+
 export interface RangeRow {
   range: "nA" | "uA" | "mA";
   /** V/A */
@@ -136,7 +139,7 @@ export const rangeResolution: Template = {
     const out: { key: "wrong-range"; value: number | string; detail: string }[] = [];
     for (const i of neighbours(v.best)) {
       const r = v.rows[i];
-      const detail = `You used the ${RANGES[i].name} range (${r.sensitivity} V/A); the best range is ${RANGES[v.best].name}${i < v.best ? ", because the " + RANGES[i].name + " range saturates" : ", the most sensitive one that does not saturate"}.`;
+      const detail = `You used the ${SHOWN[i]} range (${SENS[i]}); the best range is ${SHOWN[v.best]}${i < v.best ? `, because the ${SHOWN[i]} range saturates` : ", the most sensitive one that does not saturate"}.`;
       if (q === "bestRange") out.push({ key: "wrong-range", value: r.range, detail });
       if (q === "outputVoltage") out.push({ key: "wrong-range", value: Math.abs(v.current) * r.sensitivity, detail });
       if (q === "adcCode") out.push({ key: "wrong-range", value: r.code, detail });

@@ -166,10 +166,11 @@ describe("worked solutions", () => {
         const params = i === 0 ? defaultParams(key) : drawVariant(defaultVariantSpec(key), `sol-${i}`);
         const questions = templates[key].quantities.map((q) => q1(q.key));
         const values = templates[key].compute(params);
-        const g = gradeAttempt({ template: key, params, questions, readings: questions.map((q) => values[q.quantity]) });
+        const readings = i % 2 === 0 ? questions.map((q) => values[q.quantity]) : questions.map((q) => (typeof values[q.quantity] === "string" ? "µA" : `${values[q.quantity]} kg`));
+        const g = gradeAttempt({ template: key, params, questions, readings });
         for (const r of g.results) {
           expect(r.solution.length, `${key}.${r.quantity}`).toBeGreaterThan(0);
-          for (const step of r.solution) expect(() => katex.renderToString(step, { throwOnError: true }), step).not.toThrow();
+          for (const step of r.solution) expect(() => katex.renderToString(step, { throwOnError: true, strict: "error" }), step).not.toThrow();
         }
       }
     }
