@@ -5,6 +5,7 @@ import path from "node:path";
 import { createDb } from "../db";
 import { migrateToLatest } from "../db/migrator";
 import { DEMO_PASSWORD, demoLogins, seedDemo } from "../db/seed/demo";
+import { seedStorageFromEnv } from "../db/seed/storage";
 import { appEnv } from "./lib/app-env";
 import { buildIfStale } from "./lib/build";
 import { databaseUrl, serviceConfig } from "./lib/config";
@@ -45,21 +46,26 @@ async function main() {
   const pg = await ensurePostgres(cfg);
   const dbUrl = process.env.DATABASE_URL ?? databaseUrl(cfg, cfg.databases[0]);
   console.log(`PostgreSQL is running on 127.0.0.1:${pg.port} (data in ${pg.dataDir}).`);
+  const env = appEnv(cfg, dbUrl);
+  const standIns = await startStandIns(cfg);
+  console.log(`Local mail server: ${standIns.smtpUrl} (messages kept in ${standIns.mailDir}).`);
+  console.log(`Local object storage: ${standIns.s3Endpoint}.`);
   const db = createDb(dbUrl, 2);
   try {
     const applied = await migrateToLatest(db);
     console.log(applied.length ? `Applied ${applied.length} migration(s).` : "Database schema is up to date.");
-    await seedDemo(db);
+    await seedDemo(db, { storage: seedStorageFromEnv(env) });
     console.log("Demo course is in place.");
   } finally {
     await db.destroy();
   }
 
-  const env = appEnv(cfg, dbUrl);
-  buildIfStale(".next", env);
-  const standIns = await startStandIns(cfg);
-  console.log(`Local mail server: ${standIns.smtpUrl} (messages kept in ${standIns.mailDir}).`);
-  console.log(`Local object storage: ${standIns.s3Endpoint}.`);
+  try {
+    buildIfStale(".next", env);
+  } catch (e) {
+    await standIns.close();
+    throw e;
+  }
 
   const next = startNext({ distDir: ".next", port: cfg.appPort, host: cfg.appHost, env });
   let stopping = false;

@@ -8,6 +8,7 @@ import pg from "pg";
 import { createDb } from "../db";
 import { migrateToLatest } from "../db/migrator";
 import { seedDemo } from "../db/seed/demo";
+import { seedStorageFromEnv } from "../db/seed/storage";
 import { appEnv } from "./lib/app-env";
 import { buildIfStale } from "./lib/build";
 import { databaseUrl, root, serviceConfig } from "./lib/config";
@@ -76,23 +77,23 @@ async function main(): Promise<Counts> {
   for (const name of cfg.databases) await recreate(name);
   const testUrl = databaseUrl(cfg, "shuntwise_test");
   const e2eUrl = databaseUrl(cfg, "shuntwise_e2e");
-  for (const url of [testUrl, e2eUrl]) {
-    const db = createDb(url, 2);
-    try {
-      await migrateToLatest(db);
-      if (url === e2eUrl) await seedDemo(db);
-    } finally {
-      await db.destroy();
-    }
-  }
-
   ensureChromium();
-  if (await portInUse(cfg.appPort)) throw new Error(`Port ${cfg.appPort} is in use; set SHUNTWISE_TEST_APP_PORT to a free port.`);
+  if (await portInUse(cfg.appPort)) throw new Error(`Port ${cfg.appPort} is in use (another test run?); set SHUNTWISE_TEST_APP_PORT to a free port.`);
   const env = appEnv(cfg, e2eUrl);
-  buildIfStale(DIST, env);
   const standIns = await startStandIns(cfg);
-  const server = startNext({ distDir: DIST, port: cfg.appPort, host: cfg.appHost, env, quiet: true });
+  let server: ReturnType<typeof startNext> | undefined;
   try {
+    for (const url of [testUrl, e2eUrl]) {
+      const db = createDb(url, 2);
+      try {
+        await migrateToLatest(db);
+        if (url === e2eUrl) await seedDemo(db, { storage: seedStorageFromEnv(env) });
+      } finally {
+        await db.destroy();
+      }
+    }
+    buildIfStale(DIST, env);
+    server = startNext({ distDir: DIST, port: cfg.appPort, host: cfg.appHost, env, quiet: true });
     const url = `http://${cfg.appHost}:${cfg.appPort}`;
     await waitForHttp(`${url}/api/health`, server);
     return runVitest(
@@ -106,7 +107,7 @@ async function main(): Promise<Counts> {
       extra,
     );
   } finally {
-    server.kill("SIGTERM");
+    server?.kill("SIGTERM");
     await standIns.close();
   }
 }

@@ -3,6 +3,7 @@
 import type { Kysely } from "kysely";
 import { hash } from "@node-rs/argon2";
 import type { Database, Role } from "../types";
+import { seedLabs, type SeedStorage } from "./labs";
 
 export const DEMO_PASSWORD = "bench-demo-2026";
 export const DEMO_DOMAIN = "larkmoor-tech.example";
@@ -74,7 +75,7 @@ async function member(db: Kysely<Database>, courseId: string, userId: string, ro
     .execute();
 }
 
-export async function seedDemo(db: Kysely<Database>): Promise<{ courseId: string }> {
+export async function seedDemo(db: Kysely<Database>, opts: { storage?: SeedStorage } = {}): Promise<{ courseId: string }> {
   const passwordHash = await hash(DEMO_PASSWORD); // argon2id, the library default
   return db.transaction().execute(async (trx) => {
     const courseId = await upsertCourse(trx, DEMO_COURSE);
@@ -88,10 +89,21 @@ export async function seedDemo(db: Kysely<Database>): Promise<{ courseId: string
     await member(trx, courseId, ta2, "ta", "B");
     await member(trx, courseId, ids[`student.one@${DEMO_DOMAIN}`], "student", "A");
     await member(trx, courseId, ids[`student.two@${DEMO_DOMAIN}`], "student", "B");
+    const others: { id: string }[] = [];
     for (const s of demoStudents()) {
       const id = await upsertUser(trx, s, passwordHash);
       await member(trx, courseId, id, "student", s.section);
+      others.push({ id });
     }
+    // The two demo student logins have attempts in the graded labs but not in the open ones, so a
+    // visitor can try submitting.
+    await seedLabs(
+      trx,
+      courseId,
+      ids[`instructor@${DEMO_DOMAIN}`],
+      { graded: [{ id: ids[`student.one@${DEMO_DOMAIN}`] }, { id: ids[`student.two@${DEMO_DOMAIN}`] }, ...others], open: others },
+      opts.storage,
+    );
 
     // Roles are per course: the first TA is a student in the advanced workshop.
     await member(trx, secondId, ids[`instructor@${DEMO_DOMAIN}`], "instructor");

@@ -18,6 +18,11 @@ export interface StandIns {
 export async function startStandIns(cfg: ServiceConfig): Promise<StandIns> {
   const mailDir = path.join(cfg.dataDir, `mail-${cfg.profile}`);
   const s3Dir = path.join(cfg.dataDir, `s3-${cfg.profile}`);
+  if (cfg.profile === "test") {
+    // every test run starts with empty storage and an empty mailbox
+    fs.rmSync(mailDir, { recursive: true, force: true });
+    fs.rmSync(s3Dir, { recursive: true, force: true });
+  }
   fs.mkdirSync(mailDir, { recursive: true });
   fs.mkdirSync(s3Dir, { recursive: true });
 

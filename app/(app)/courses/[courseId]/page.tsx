@@ -17,17 +17,22 @@ export default async function CoursePage({ params }: { params: Promise<{ courseI
       <p className="mt-2 text-sm text-ink-soft">You are in this course as: {roleLabel[role]}.</p>
       <nav aria-label="Course" className="mt-6 flex flex-wrap gap-3">
         <Link className="btn-quiet" href="/lessons">Lessons</Link>
+        <Link className="btn-quiet" href={`/courses/${course.id}/labs`}>Bench labs</Link>
         {isStaff(role) ? (
           <Link className="btn-quiet" href={`/courses/${course.id}/roster`}>Roster</Link>
         ) : null}
       </nav>
       <section className="mt-8 grid gap-4 sm:grid-cols-2">
         <div className="card">
-          <h2 className="text-lg">Lessons</h2>
+          <h2 className="text-lg">
+            <Link href="/lessons">Lessons</Link>
+          </h2>
           <p className="mt-1 text-sm text-ink-soft">Read them in order; each prepares one or more bench labs.</p>
         </div>
         <div className="card">
-          <h2 className="text-lg">Bench labs</h2>
+          <h2 className="text-lg">
+            <Link href={`/courses/${course.id}/labs`}>Bench labs</Link>
+          </h2>
           <p className="mt-1 text-sm text-ink-soft">Your own circuit values, your readings, graded against the physics.</p>
         </div>
       </section>
