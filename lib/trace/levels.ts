@@ -40,8 +40,15 @@ export function splitLevels(t: Float64Array, i: Float64Array): LevelSplit {
   let hi = -Infinity;
   let total = 0;
   let gSum = 0;
+  let last = NaN;
+  let gLast = NaN;
   for (let k = 0; k < n - 1; k++) {
-    const v = Math.asinh(i[k] / s);
+    // logged currents repeat (flat levels, ADC codes): reuse the last transform
+    if (i[k] !== last) {
+      last = i[k];
+      gLast = Math.asinh(last / s);
+    }
+    const v = gLast;
     g[k] = v;
     if (v < lo) lo = v;
     if (v > hi) hi = v;

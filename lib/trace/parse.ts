@@ -116,10 +116,10 @@ export async function readTrace(input: TraceInput, options: TraceOptions = {}): 
     if (!started && !start(row)) return; // the header
     const tCell = row[timeColumn];
     const iCell = row[currentColumn];
-    if (tCell === undefined || iCell === undefined || tCell.trim() === "" || iCell.trim() === "") return bad("missing cell");
     const t = parseNumberCell(tCell, decimalComma);
     const i = parseNumberCell(iCell, decimalComma);
     if (t === null || i === null) {
+      if (tCell === undefined || iCell === undefined || tCell.trim() === "" || iCell.trim() === "") return bad("missing cell");
       if (header && row.length === header.length && row.every((c, k) => c.trim() === header![k])) return bad("repeated header");
       return bad(t === null ? "time is not a number" : "current is not a number");
     }

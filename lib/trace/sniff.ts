@@ -19,7 +19,16 @@ export function sniffSeparator(head: string): Pick<TraceFormat, "delimiter" | "d
 
 /** A cell as a finite number, or null. Empty cells, "NaN", "Infinity" and hex are refused. */
 export function parseNumberCell(cell: string | undefined, decimalComma: boolean): number | null {
-  if (cell === undefined) return null;
+  if (cell === undefined || cell.length === 0) return null;
+  // fast path: a plain decimal number ("0.0012", "-3e-6") that Number reads as it is
+  const c0 = cell.charCodeAt(0);
+  if (!decimalComma && ((c0 >= 48 && c0 <= 57) || c0 === 45 || c0 === 46)) {
+    const c1 = cell.length > 1 ? cell.charCodeAt(1) : 48;
+    if (c1 !== 120 && c1 !== 88 && c1 !== 98 && c1 !== 111) {
+      const v = Number(cell);
+      return Number.isFinite(v) ? v : null;
+    }
+  }
   let s = cell.trim();
   if (s.length === 0) return null;
   if (decimalComma) s = s.replace(",", ".");
