@@ -143,7 +143,11 @@ function paramLabel(t: Template, key: string): string {
   return t.parameters.find((p) => p.key === key)?.label.toLowerCase() ?? key;
 }
 
-/** Grade one attempt. Throws only for a question naming a quantity the template does not have. */
+/**
+ * Grade one attempt. Throws only for a lab configuration error: parameters the template cannot compute, or a
+ * question naming a quantity the template does not have. Measured values that do not describe a working
+ * circuit are ignored (with a note in the feedback).
+ */
 export function gradeAttempt(input: GradeInput): GradeResult {
   const t = typeof input.template === "string" ? templates[input.template] : input.template;
   if (!t) throw new Error(`Unknown template "${String(input.template)}"`);
@@ -153,12 +157,22 @@ export function gradeAttempt(input: GradeInput): GradeResult {
   const closeCredit = policy.closeCredit ?? 0.5;
   const tolerances = policy.componentTolerances ?? {};
   const instrument = policy.instrumentAccuracyPercent ?? 0;
-  const measured = input.measuredParams && Object.keys(input.measuredParams).length > 0 ? input.measuredParams : undefined;
+  const nominalProblem = t.check(input.params);
+  if (nominalProblem !== null) throw new Error(`Template "${t.key}" cannot grade these parameters: ${nominalProblem}`);
+  let measured = input.measuredParams && Object.keys(input.measuredParams).length > 0 ? input.measuredParams : undefined;
   let benchParams = input.params;
+  let measuredNote = "";
   if (measured) {
     benchParams = {};
     for (const k in input.params) benchParams[k] = input.params[k];
     for (const k in measured) benchParams[k] = measured[k];
+    const problem = t.check(benchParams);
+    if (problem !== null) {
+      // the student's measured values do not describe a working circuit: grade against the nominal one
+      measuredNote = ` Your measured component values were not used (${problem}); the nominal values were.`;
+      measured = undefined;
+      benchParams = input.params;
+    }
   }
   const ev = new Evaluator(t);
 
@@ -177,6 +191,7 @@ export function gradeAttempt(input: GradeInput): GradeResult {
       ev, tag, rel: q.tolerancePercent !== undefined ? q.tolerancePercent / 100 : relDefault,
       closeMultiple, closeCredit, tolerances, instrument, measured,
     });
+    if (bench && measuredNote) r.feedback += measuredNote;
     r.maxPoints = q.points;
     r.points = r.verdict === "correct" ? q.points : r.verdict === "close" ? q.points * closeCredit : 0;
     if (q.id !== undefined) r.id = q.id;

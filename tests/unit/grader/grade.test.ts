@@ -263,3 +263,21 @@ describe("saturation", () => {
     expect(r.feedback).toMatch(/saturated/);
   });
 });
+
+describe("bad input", () => {
+  it("measured values that cannot be computed are ignored, with a note", () => {
+    const r = gradeAttempt({
+      template: "shunt-burden",
+      params: sb,
+      measuredParams: { loadResistance: -5 },
+      questions: [q1("indicatedCurrent", "bench")],
+      readings: ["3.267 mA"],
+    }).results[0];
+    expect(r.verdict).toBe("correct");
+    expect(r.feedback).toMatch(/measured component values were not used/);
+  });
+  it("a lab configuration error throws a clear error", () => {
+    expect(() => gradeAttempt({ template: "shunt-burden", params: { ...sb, loadResistance: 0 }, questions: [q1("trueCurrent")], readings: ["1 mA"] })).toThrow(/cannot grade/);
+    expect(() => gradeAttempt({ template: "shunt-burden", params: sb, questions: [q1("noSuchQuantity")], readings: ["1 mA"] })).toThrow(/no quantity/);
+  });
+});
