@@ -1,0 +1,22 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { forPage, refused, requireCourseRole } from "@/lib/auth/access";
+import { Refusal } from "@/components/shell/refusal";
+import { LabBuilder } from "@/components/labs/builder/lab-builder";
+
+export const metadata: Metadata = { title: "New lab" };
+
+export default async function NewLabPage({ params }: { params: Promise<{ courseId: string }> }) {
+  const { courseId } = await params;
+  const access = await forPage(requireCourseRole(courseId, ["instructor"]), `/courses/${courseId}/labs/new`);
+  if (refused(access)) return <Refusal message="Only the course's instructors build and edit labs." backHref={`/courses/${courseId}`} />;
+  return (
+    <>
+      <p className="text-sm">
+        <Link href={`/courses/${courseId}/labs`}>← Bench labs of {access.course.title}</Link>
+      </p>
+      <h1 className="mt-2 mb-6 text-3xl">New lab</h1>
+      <LabBuilder courseId={courseId} />
+    </>
+  );
+}

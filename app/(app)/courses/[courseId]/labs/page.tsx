@@ -1,0 +1,115 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { forPage, isStaff, refused, requireCourseRole } from "@/lib/auth/access";
+import { templates } from "@/lib/grader";
+import { labsForCourse } from "@/lib/labs/service";
+import { Refusal } from "@/components/shell/refusal";
+import { labState, STATE_LABEL } from "@/components/labs/builder/schedule";
+
+export const metadata: Metadata = { title: "Bench labs" };
+
+const NOTICES: Record<string, string> = {
+  published: "The lab is published: students in the course can now open it.",
+};
+
+function when(d: Date | null): string {
+  if (!d) return "—";
+  return new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZoneName: "short" }).format(d);
+}
+
+export default async function LabsPage({ params, searchParams }: { params: Promise<{ courseId: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+  const { courseId } = await params;
+  const sp = await searchParams;
+  const access = await forPage(requireCourseRole(courseId), `/courses/${courseId}/labs`);
+  if (refused(access)) return <Refusal message={access.refused} backHref="/" />;
+  const staff = isStaff(access.role);
+  const instructor = access.role === "instructor";
+  const labs = await labsForCourse(access);
+  const now = new Date();
+  const notice = typeof sp.notice === "string" ? NOTICES[sp.notice] : undefined;
+  return (
+    <>
+      <p className="text-sm">
+        <Link href={`/courses/${courseId}`}>← {access.course.title}</Link>
+      </p>
+      <div className="mt-2 flex flex-wrap items-end justify-between gap-3">
+        <h1 className="text-3xl">Bench labs</h1>
+        {instructor ? (
+          <Link className="btn-primary no-underline hover:no-underline" href={`/courses/${courseId}/labs/new`}>
+            New lab
+          </Link>
+        ) : null}
+      </div>
+      <p className="mt-1 text-sm text-ink-soft">
+        {staff
+          ? "All labs of the course, drafts included. Students see only published labs."
+          : "Each lab gives you your own circuit values. Open a lab to read its handout and submit your readings."}
+      </p>
+      {notice ? (
+        <p role="status" className="mt-4 rounded-md bg-trace-pale p-3 text-sm text-trace">
+          {notice}
+        </p>
+      ) : null}
+      {labs.length === 0 ? (
+        <p className="card mt-6">{staff ? "No labs yet." : "No labs are published yet."}</p>
+      ) : (
+        <div className="card mt-6 overflow-x-auto p-0">
+          <table className="min-w-full text-sm" data-testid="labs-table">
+            <caption className="sr-only">Labs of {access.course.title}</caption>
+            <thead className="bg-paper-sunk text-left">
+              <tr>
+                <th scope="col" className="px-4 py-2">Lab</th>
+                <th scope="col" className="px-4 py-2">Opens</th>
+                <th scope="col" className="px-4 py-2">Due</th>
+                <th scope="col" className="px-4 py-2">State</th>
+                {staff ? (
+                  <th scope="col" className="px-4 py-2">
+                    <span className="sr-only">Actions</span>
+                  </th>
+                ) : null}
+              </tr>
+            </thead>
+            <tbody>
+              {labs.map((lab) => {
+                const state = labState(lab, now);
+                return (
+                  <tr key={lab.id} className="border-t border-ink/10 align-top" data-lab={lab.id}>
+                    <td className="px-4 py-2">
+                      {lab.status === "published" ? <Link href={`/labs/${lab.id}`}>{lab.title}</Link> : <span className="font-medium">{lab.title}</span>}
+                      <span className="block text-xs text-ink-faint">{templates[lab.templateKey]?.title}</span>
+                    </td>
+                    <td className="px-4 py-2 whitespace-nowrap">{when(lab.opensAt)}</td>
+                    <td className="px-4 py-2 whitespace-nowrap">{when(lab.dueAt)}</td>
+                    <td className="px-4 py-2">
+                      {staff && lab.status === "draft" ? (
+                        <span className="rounded-full border border-ink/30 px-2 py-0.5 text-xs font-semibold">Draft</span>
+                      ) : (
+                        <span className="rounded-full bg-paper-sunk px-2 py-0.5 text-xs font-semibold" data-state={state}>
+                          {STATE_LABEL[state]}
+                        </span>
+                      )}
+                      {staff && lab.status === "published" ? <span className="ml-1 text-xs text-ink-faint">published</span> : null}
+                    </td>
+                    {staff ? (
+                      <td className="px-4 py-2 whitespace-nowrap">
+                        {instructor ? (
+                          <Link href={`/labs/${lab.id}/edit`} aria-label={`Edit ${lab.title}`}>
+                            Edit
+                          </Link>
+                        ) : null}
+                        {instructor ? " · " : null}
+                        <Link href={`/labs/${lab.id}/preview`} aria-label={`Preview ${lab.title}`}>
+                          Preview
+                        </Link>
+                      </td>
+                    ) : null}
+                  </tr>
+                );
+              })}
+            </tbody>
+          </table>
+        </div>
+      )}
+    </>
+  );
+}

@@ -1,0 +1,376 @@
+"use client";
+// The lab builder: one form for a new lab and for editing one. It checks the form with the same
+// labInputSchema the API uses (through builderSchema), sends it as JSON to the route handlers and puts
+// the API's field errors back under the fields they name.
+import { zodResolver } from "@hookform/resolvers/zod";
+import Link from "next/link";
+import { useRouter } from "next/navigation";
+import { useEffect, useMemo, useRef, useState } from "react";
+import { FormProvider, get, useForm, useWatch } from "react-hook-form";
+import { templates, TEMPLATE_KEYS, type TemplateKey, type VariantSpec } from "@/lib/grader";
+import type { LabInput } from "@/lib/validation/labs";
+import { RegradeProgress } from "../regrade-progress";
+import {
+  builderSchema,
+  changedFields,
+  changesGrades,
+  emptyForm,
+  formToInput,
+  inputToForm,
+  mapServerErrors,
+  templateDefaults,
+  toLocalInput,
+  type BuilderForm,
+  type KeptPolicy,
+} from "./form-model";
+import { SelectInput, TextInput } from "./inputs";
+import { ParameterFields } from "./parameter-fields";
+import { QuestionFields } from "./question-fields";
+
+/** A stored lab as the builder receives it (labAsInput's shape, dates as ISO strings). */
+export interface StoredLabInput {
+  title: string;
+  templateKey: TemplateKey;
+  spec: VariantSpec;
+  questions: { id?: string; quantity: string; kind: "prediction" | "bench"; points: number; tolerancePercent?: number }[];
+  policy: { relativeTolerance?: number; closeCredit?: number; instrumentAccuracyPercent?: number } & KeptPolicy;
+  attemptsAllowed: number;
+  counting: "best" | "last";
+  opensAt: string | null;
+  dueAt: string | null;
+  latePenaltyPercentPerDay: number;
+  lateFloorPercent: number;
+  showExpected: "after_attempt" | "after_due" | "never";
+  instructions: string;
+  safetyNotes: string;
+}
+
+export interface LabBuilderProps {
+  courseId: string;
+  /** absent for a new lab */
+  lab?: { id: string; status: "draft" | "published"; attemptCount: number; input: StoredLabInput };
+  /** a message to show once, e.g. after a new lab was created */
+  notice?: string;
+}
+
+type Intent = "draft" | "preview" | "publish";
+type ApiError = { error?: { code?: string; message?: string; fields?: Record<string, string[]> } };
+
+function withoutDates(input: StoredLabInput): StoredLabInput {
+  return { ...input, opensAt: null, dueAt: null };
+}
+
+export function LabBuilder({ courseId, lab, notice }: LabBuilderProps) {
+  const router = useRouter();
+  const kept: KeptPolicy = useMemo(
+    () => ({ closeMultiple: lab?.input.policy.closeMultiple, componentTolerances: lab?.input.policy.componentTolerances }),
+    [lab],
+  );
+  const schema = useMemo(() => builderSchema(kept), [kept]);
+  // Dates are shown in the browser's time zone, so they are filled in after hydration (the server may be elsewhere).
+  const defaults = useMemo(() => (lab ? inputToForm(withoutDates(lab.input)) : emptyForm()), [lab]);
+  const methods = useForm<BuilderForm, unknown, LabInput>({ resolver: zodResolver(schema), defaultValues: defaults, mode: "onSubmit", reValidateMode: "onChange" });
+  const { handleSubmit, setValue, setError, reset, getValues, formState, clearErrors } = methods;
+  const [timeZone, setTimeZone] = useState<string>("");
+  const [status, setStatus] = useState(lab?.status ?? "draft");
+  const [message, setMessage] = useState<{ tone: "error" | "info"; text: string } | null>(notice ? { tone: "info", text: notice } : null);
+  const [confirm, setConfirm] = useState<{ input: LabInput; intent: Intent } | null>(null);
+  const [regrade, setRegrade] = useState<{ id: string; total: number } | null>(null);
+  const [busy, setBusy] = useState(false);
+  const intent = useRef<Intent>("draft");
+  // What was last saved, as the form would send it: only fields that differ from it are PATCHed.
+  const baseline = useRef<LabInput | null>(null);
+  const confirmRef = useRef<HTMLDivElement>(null);
+  const messageRef = useRef<HTMLDivElement>(null);
+
+  useEffect(() => {
+    setTimeZone(Intl.DateTimeFormat().resolvedOptions().timeZone);
+    if (lab) {
+      setValue("opensAt", toLocalInput(lab.input.opensAt));
+      setValue("dueAt", toLocalInput(lab.input.dueAt));
+      baseline.current = formToInput(inputToForm(lab.input), kept).input;
+    }
+  }, [lab, kept, setValue]);
+
+  useEffect(() => {
+    if (confirm) confirmRef.current?.focus();
+  }, [confirm]);
+
+  const templateKey = useWatch({ control: methods.control, name: "templateKey" });
+  const template = templates[templateKey] ?? templates["shunt-burden"];
+  const attempts = lab?.attemptCount ?? 0;
+  const specError = (get(formState.errors, "root.spec") as { message?: string } | undefined)?.message;
+
+  function say(tone: "error" | "info", text: string) {
+    setMessage({ tone, text });
+    requestAnimationFrame(() => messageRef.current?.focus());
+  }
+
+  function onTemplateChange(key: string) {
+    if (!(TEMPLATE_KEYS as string[]).includes(key)) return;
+    const d = templateDefaults(key as TemplateKey);
+    setValue("parameters", d.parameters, { shouldDirty: true });
+    setValue("questions", d.questions, { shouldDirty: true });
+    clearErrors();
+  }
+
+  async function send(url: string, method: "POST" | "PATCH", body: unknown): Promise<{ ok: true; data: Record<string, unknown> } | { ok: false }> {
+    let res: Response;
+    try {
+      res = await fetch(url, { method, headers: { "content-type": "application/json", accept: "application/json" }, body: JSON.stringify(body) });
+    } catch {
+      say("error", "The server could not be reached. Nothing was saved; try again.");
+      return { ok: false };
+    }
+    const data = (await res.json().catch(() => ({}))) as Record<string, unknown> & ApiError;
+    if (res.ok) return { ok: true, data };
+    const mapped = mapServerErrors(data.error?.fields);
+    let first = true;
+    for (const [path, text] of Object.entries(mapped)) {
+      setError(path as never, { type: "server", message: text }, { shouldFocus: first && !path.startsWith("root.") });
+      first = false;
+    }
+    say("error", data.error?.message ?? `The lab could not be saved (HTTP ${res.status}).`);
+    return { ok: false };
+  }
+
+  async function save(input: LabInput, how: Intent) {
+    setBusy(true);
+    setMessage(null);
+    try {
+      if (!lab) {
+        const created = await send(`/api/courses/${courseId}/labs`, "POST", input);
+        if (!created.ok) return;
+        const id = (created.data.lab as { id: string }).id;
+        if (how === "publish") {
+          const published = await send(`/api/labs/${id}`, "PATCH", { status: "published" });
+          if (!published.ok) {
+            router.push(`/labs/${id}/edit?notice=draft-saved`);
+            return;
+          }
+          router.push(`/courses/${courseId}/labs?notice=published`);
+          return;
+        }
+        router.push(how === "preview" ? `/labs/${id}/preview` : `/labs/${id}/edit?notice=created`);
+        return;
+      }
+      const before = baseline.current ?? formToInput(inputToForm(lab.input), kept).input;
+      const patch: Record<string, unknown> = { ...changedFields(before, input) };
+      if (how === "publish" && status === "draft") patch.status = "published";
+      if (Object.keys(patch).length > 0) {
+        const saved = await send(`/api/labs/${lab.id}`, "PATCH", patch);
+        if (!saved.ok) return;
+        baseline.current = input;
+        reset(getValues(), { keepValues: true });
+        if (patch.status === "published") setStatus("published");
+        const r = saved.data.regrade as { id: string; total: number } | null | undefined;
+        if (r) {
+          setRegrade(r);
+          say("info", `Saved. The grades of ${r.total} attempt${r.total === 1 ? " are" : "s are"} being recomputed.`);
+          return;
+        }
+      }
+      if (how === "preview") {
+        router.push(`/labs/${lab.id}/preview`);
+        return;
+      }
+      if (how === "publish") {
+        router.push(`/courses/${courseId}/labs?notice=published`);
+        return;
+      }
+      say("info", Object.keys(patch).length ? `Saved at ${new Date().toLocaleTimeString([], { hour: "2-digit", minute: "2-digit" })}.` : "Nothing has changed since the last save.");
+      router.refresh();
+    } finally {
+      setBusy(false);
+    }
+  }
+
+  const onValid = async (input: LabInput) => {
+    const how = intent.current;
+    if (lab && status === "published" && attempts > 0) {
+      const before = baseline.current ?? formToInput(inputToForm(lab.input), kept).input;
+      if (changesGrades(changedFields(before, input))) {
+        setConfirm({ input, intent: how });
+        return;
+      }
+    }
+    await save(input, how);
+  };
+
+  const onInvalid = () => {
+    say("error", "Some fields need attention; each one says what to change.");
+  };
+
+  const submitLabel = lab ? (status === "published" ? "Save changes" : "Save draft") : "Save draft";
+
+  return (
+    <FormProvider {...methods}>
+      <form noValidate onSubmit={handleSubmit(onValid, onInvalid)} aria-label={lab ? "Edit the lab" : "New lab"} className="grid gap-6">
+        <div ref={messageRef} tabIndex={-1} className="outline-none">
+          <div
+            role={message?.tone === "error" ? "alert" : "status"}
+            className={message ? (message.tone === "error" ? "rounded-md bg-verdict-wrong/10 p-3 text-sm text-verdict-wrong" : "rounded-md bg-trace-pale p-3 text-sm text-trace") : ""}
+          >
+            {message ? (message.tone === "error" ? `Not saved: ${message.text}` : message.text) : ""}
+          </div>
+          {formState.errors.root?.server?.message ? <p className="field-error">{formState.errors.root.server.message}</p> : null}
+        </div>
+
+        {regrade && lab ? <RegradeProgress labId={lab.id} regradeId={regrade.id} total={regrade.total} /> : null}
+
+        {lab && status === "published" && attempts > 0 ? (
+          <p className="caution-box m-0" role="note">
+            <strong>Published, with {attempts} attempt{attempts === 1 ? "" : "s"}.</strong> Changing the circuit values, questions,
+            tolerances or late rules recomputes the grades of every attempt. Titles, dates, attempts allowed, instructions and safety
+            notes can change without a regrade.
+          </p>
+        ) : null}
+
+        <section className="card" aria-labelledby="sec-about">
+          <h2 id="sec-about" className="text-lg">
+            The lab
+          </h2>
+          <TextInput name="title" label="Title" />
+          {attempts > 0 ? (
+            <p className="mb-2 text-sm">
+              <span className="font-medium">Circuit template:</span> {template.title}. Students have submitted attempts, so the template can
+              no longer change.
+            </p>
+          ) : (
+            <SelectInput
+              name="templateKey"
+              label="Circuit template"
+              options={TEMPLATE_KEYS.map((k) => ({ value: k, label: templates[k].title }))}
+              onChangeValue={onTemplateChange}
+              hint="Changing the template resets the parameters and questions to its defaults."
+            />
+          )}
+          <p className="text-sm text-ink-soft">{template.summary}</p>
+        </section>
+
+        <section className="card" aria-labelledby="sec-params">
+          <h2 id="sec-params" className="text-lg">
+            Circuit values
+          </h2>
+          <p className="mb-3 text-sm text-ink-soft">
+            Each student gets their own values, drawn once from these settings and kept. Type every value with its unit (for example 4.7 kΩ,
+            1.8 V, 20 mA).
+          </p>
+          <p id="lab-spec-error" className="field-error" aria-live="polite">
+            {specError ? `Check: ${specError}` : ""}
+          </p>
+          <div className="grid gap-4">
+            {template.parameters.map((p) => (
+              <ParameterFields key={`${template.key}:${p.key}`} p={p} />
+            ))}
+          </div>
+        </section>
+
+        <section className="card" aria-labelledby="sec-questions">
+          <h2 id="sec-questions" className="text-lg">
+            Questions
+          </h2>
+          <QuestionFields templateKey={template.key} />
+          <div className="mt-4 grid gap-x-4 sm:grid-cols-3">
+            <TextInput name="defaultTolerancePercent" label="Default tolerance (%)" inputMode="decimal" hint="Accepted band around the expected value, unless the circuit's own tolerances give a wider one." />
+            <TextInput name="closeCreditPercent" label="Credit for a close answer (%)" inputMode="decimal" hint="Just outside the band: this share of the points." />
+            <TextInput name="instrumentAccuracyPercent" label="Instrument accuracy (% of reading, optional)" inputMode="decimal" hint="Widens the band of bench readings." />
+          </div>
+        </section>
+
+        <section className="card" aria-labelledby="sec-rules">
+          <h2 id="sec-rules" className="text-lg">
+            Attempts, dates and feedback
+          </h2>
+          <div className="grid gap-x-4 sm:grid-cols-2">
+            <TextInput name="attemptsAllowed" label="Attempts allowed" inputMode="numeric" />
+            <SelectInput
+              name="counting"
+              label="Attempt that counts"
+              options={[
+                { value: "best", label: "The best attempt" },
+                { value: "last", label: "The last attempt" },
+              ]}
+            />
+            <TextInput name="opensAt" label="Opens" type="datetime-local" hint={`Leave empty to open at once.${timeZone ? ` Times are in ${timeZone}.` : ""}`} />
+            <TextInput name="dueAt" label="Due" type="datetime-local" hint={`Leave empty for no due date.${timeZone ? ` Times are in ${timeZone}.` : ""}`} />
+            <TextInput name="latePenaltyPercentPerDay" label="Late penalty (% per day)" inputMode="decimal" hint="Each day or part of a day after the due date." />
+            <TextInput name="lateFloorPercent" label="Late floor (%)" inputMode="decimal" hint="A late attempt always keeps at least this share of its score." />
+            <SelectInput
+              name="showExpected"
+              label="Expected values shown to students"
+              className="mb-4 sm:col-span-2"
+              options={[
+                { value: "after_attempt", label: "After each attempt" },
+                { value: "after_due", label: "After the due date" },
+                { value: "never", label: "Never" },
+              ]}
+            />
+          </div>
+        </section>
+
+        <section className="card" aria-labelledby="sec-text">
+          <h2 id="sec-text" className="text-lg">
+            Handout text
+          </h2>
+          <TextInput
+            name="instructions"
+            label="Instructions (Markdown)"
+            multiline={10}
+            hint="Paragraphs, lists (- or 1.), **bold**, *italic*, `code` and # headings are shown on the handout."
+          />
+          <TextInput name="safetyNotes" label="Safety notes" multiline={4} hint="Shown in a caution box on the handout, with a reminder to follow your institution's lab rules." />
+        </section>
+
+        {confirm ? (
+          <div ref={confirmRef} tabIndex={-1} role="alertdialog" aria-labelledby="confirm-title" aria-describedby="confirm-text" className="caution-box m-0 outline-none">
+            <h2 id="confirm-title" className="text-lg">
+              Recompute grades?
+            </h2>
+            <p id="confirm-text" className="mt-1">
+              This lab is published and students have submitted. If you save, the grades of {attempts} attempt{attempts === 1 ? "" : "s"} will be
+              recomputed with the new settings. Late penalties already applied are kept.
+            </p>
+            <div className="mt-3 flex flex-wrap gap-3">
+              <button
+                type="button"
+                className="btn-primary"
+                disabled={busy}
+                onClick={() => {
+                  const c = confirm;
+                  setConfirm(null);
+                  void save(c.input, c.intent);
+                }}
+              >
+                Save and recompute {attempts} attempt{attempts === 1 ? "" : "s"}
+              </button>
+              <button type="button" className="btn-quiet" onClick={() => setConfirm(null)}>
+                Cancel
+              </button>
+            </div>
+          </div>
+        ) : null}
+
+        <div className="flex flex-wrap items-center gap-3">
+          <button type="submit" className="btn-quiet" disabled={busy} onClick={() => (intent.current = "draft")}>
+            {submitLabel}
+          </button>
+          <button type="submit" className="btn-quiet" disabled={busy} onClick={() => (intent.current = "preview")}>
+            Save and preview
+          </button>
+          {status === "draft" ? (
+            <button type="submit" className="btn-primary" disabled={busy} onClick={() => (intent.current = "publish")}>
+              Publish
+            </button>
+          ) : null}
+          <span className="text-sm text-ink-soft">{status === "published" ? "Status: published (students see it)." : "Status: draft (students do not see it)."}</span>
+          {lab ? (
+            <Link className="ml-auto text-sm" href={`/labs/${lab.id}/preview`}>
+              Preview the last saved version
+            </Link>
+          ) : null}
+        </div>
+      </form>
+    </FormProvider>
+  );
+}

@@ -1,0 +1,70 @@
+"use client";
+// Progress of a lab's regrade job: polls GET /api/labs/{labId} until the latest regrade is done or failed.
+import { useEffect, useState } from "react";
+
+type Regrade = { id?: string; status: "queued" | "running" | "done" | "failed"; total: number; done: number };
+
+export function RegradeProgress({ labId, regradeId, total, intervalMs = 1000 }: { labId: string; regradeId: string; total: number; intervalMs?: number }) {
+  const [state, setState] = useState<Regrade>({ id: regradeId, status: "queued", total, done: 0 });
+  const [problem, setProblem] = useState<string | null>(null);
+
+  useEffect(() => {
+    let stopped = false;
+    let timer: ReturnType<typeof setTimeout> | undefined;
+    async function poll() {
+      try {
+        const res = await fetch(`/api/labs/${labId}`, { headers: { accept: "application/json" }, cache: "no-store" });
+        if (!res.ok) throw new Error(`status ${res.status}`);
+        const body = (await res.json()) as { regrade?: Regrade | null };
+        const r = body.regrade;
+        if (!stopped && r && (!r.id || r.id === regradeId)) {
+          setState(r);
+          setProblem(null);
+          if (r.status === "done" || r.status === "failed") return;
+        }
+      } catch {
+        if (!stopped) setProblem("Could not fetch the progress; trying again.");
+      }
+      if (!stopped) timer = setTimeout(poll, intervalMs);
+    }
+    void poll();
+    return () => {
+      stopped = true;
+      if (timer) clearTimeout(timer);
+    };
+  }, [labId, regradeId, intervalMs]);
+
+  const max = Math.max(state.total, 0);
+  const now = state.status === "done" ? max : Math.min(state.done, max);
+  const percent = max === 0 ? 100 : Math.round((now / max) * 100);
+  const label =
+    state.status === "done"
+      ? `Regrade finished: ${max} attempt${max === 1 ? "" : "s"} recomputed.`
+      : state.status === "failed"
+        ? `Regrade failed after ${now} of ${max} attempts. Save again to retry, or ask an administrator.`
+        : state.status === "queued"
+          ? `Regrade waiting to start (${max} attempt${max === 1 ? "" : "s"}).`
+          : `Recomputing grades: ${now} of ${max} attempts.`;
+  return (
+    <section className="card my-4" aria-labelledby="regrade-title" data-testid="regrade-progress">
+      <h2 id="regrade-title" className="text-lg">
+        Recomputing grades
+      </h2>
+      <div
+        role="progressbar"
+        aria-label="Attempts recomputed"
+        aria-valuemin={0}
+        aria-valuemax={max}
+        aria-valuenow={now}
+        aria-valuetext={`${now} of ${max} attempts (${percent} %)`}
+        className="mt-2 h-3 w-full overflow-hidden rounded-full bg-paper-sunk"
+      >
+        <div className={`h-full ${state.status === "failed" ? "bg-verdict-wrong" : "bg-copper"} transition-[width]`} style={{ width: `${percent}%` }} />
+      </div>
+      <p className="mt-2 text-sm" role="status" aria-live="polite">
+        {label}
+      </p>
+      {problem ? <p className="mt-1 text-sm text-ink-soft">{problem}</p> : null}
+    </section>
+  );
+}
