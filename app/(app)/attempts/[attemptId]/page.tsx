@@ -1,0 +1,46 @@
+import katex from "katex";
+import type { Metadata } from "next";
+import { forPage, isStaff, refused } from "@/lib/auth/access";
+import { attemptAccess, attemptsFor, presentAttempt } from "@/lib/labs/service";
+import { Refusal } from "@/components/shell/refusal";
+import { FeedbackView } from "@/components/labs/feedback/feedback-view";
+
+export const metadata: Metadata = { title: "Feedback" };
+
+/** Every worked-solution line this viewer may see, typeset once here so no KaTeX code reaches the browser. */
+function typeset(lines: string[]): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const line of lines) {
+    if (out[line] !== undefined) continue;
+    out[line] = katex.renderToString(line, { displayMode: true, throwOnError: false, output: "html", strict: false });
+  }
+  return out;
+}
+
+export default async function AttemptPage({ params }: { params: Promise<{ attemptId: string }> }) {
+  const { attemptId } = await params;
+  const found = await forPage(attemptAccess(attemptId), `/attempts/${attemptId}`);
+  if (refused(found)) return <Refusal message={found.refused} backHref="/" />;
+  const { attempt, lab, access } = found;
+  const staff = isStaff(access.role);
+  const isOwner = attempt.userId === access.user.id;
+  // The score and verdicts are fetched in the browser; the server only typesets the solutions it may show.
+  const presented = presentAttempt(attempt, lab, staff);
+  const lines = presented.results.flatMap((r) => r.solution ?? []);
+  let studentName: string | null = null;
+  if (staff && !isOwner) {
+    const all = await attemptsFor(lab, access);
+    studentName = all.find((a) => a.id === attempt.id)?.studentName ?? null;
+  }
+  return (
+    <FeedbackView
+      attemptId={attempt.id}
+      labId={lab.id}
+      studentId={attempt.userId}
+      studentName={studentName}
+      isOwner={isOwner}
+      typed={(attempt.readings ?? {}) as Record<string, string | null>}
+      solutionHtml={typeset(lines)}
+    />
+  );
+}

@@ -1,0 +1,227 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { forPage, isStaff, refused } from "@/lib/auth/access";
+import { templates } from "@/lib/grader";
+import { handoutFor } from "@/lib/labs/handout";
+import { isOpen } from "@/lib/labs/policy";
+import { attemptsFor, labAccess, type Lab } from "@/lib/labs/service";
+import { Refusal } from "@/components/shell/refusal";
+import { HandoutSummary } from "@/components/labs/submit/handout-summary";
+import { attemptsLeftText, lateRuleText, utcDate, type FormMeasured, type FormQuestion } from "@/components/labs/submit/read";
+import { SubmissionForm } from "@/components/labs/submit/submission-form";
+import { VERDICT_ORDER, VERDICTS, points, verdictCounts, verdictSummary } from "@/components/labs/feedback/verdict";
+
+export const metadata: Metadata = { title: "Lab" };
+
+type Attempts = Awaited<ReturnType<typeof attemptsFor>>;
+
+const SHOW_EXPECTED: Record<Lab["showExpected"], string> = {
+  after_attempt: "after each attempt",
+  after_due: "after the due date",
+  never: "never",
+};
+
+export default async function LabPage({ params }: { params: Promise<{ labId: string }> }) {
+  const { labId } = await params;
+  const here = `/labs/${labId}`;
+  const found = await forPage(labAccess(labId), here);
+  if (refused(found)) return <Refusal message={found.refused} backHref="/" />;
+  const { lab, access } = found;
+  const attempts = await attemptsFor(lab, access);
+  const back = (
+    <p className="no-print text-sm">
+      <Link href={`/courses/${lab.courseId}`}>← {access.course.title}</Link>
+    </p>
+  );
+  if (isStaff(access.role)) {
+    return (
+      <>
+        {back}
+        <StaffOverview lab={lab} attempts={attempts} canEdit={access.role === "instructor"} />
+      </>
+    );
+  }
+
+  const handout = await handoutFor(lab, access.user.id);
+  const now = new Date();
+  const used = attempts.length;
+  const open = isOpen(lab, now);
+  const left = lab.attemptsAllowed - used;
+  const questions: FormQuestion[] = handout.questions.map((q) => ({
+    id: q.id,
+    label: q.label,
+    unit: q.unit,
+    displayUnit: q.displayUnit,
+    answerKind: q.answerKind,
+    choices: q.choices,
+    points: q.points,
+  }));
+  const components: FormMeasured[] = handout.parameters
+    .filter((p) => p.kind === "resistor" && typeof p.value === "number")
+    .map((p) => ({ key: p.key, label: p.label, unit: p.unit, displayUnit: p.displayUnit, shown: p.shown }));
+  const ordered = [...attempts].sort((a, b) => b.number - a.number);
+
+  return (
+    <>
+      {back}
+      <h1 className="mt-2 text-3xl">{lab.title}</h1>
+      <ul className="mt-2 space-y-1 text-sm text-ink-soft" aria-label="Rules of this lab">
+        <li data-testid="attempts-left">{attemptsLeftText(used, lab.attemptsAllowed)}</li>
+        <li>{lateRuleText(lab)}</li>
+        <li>Your {lab.counting === "best" ? "best" : "last"} attempt counts. Expected values are shown {SHOW_EXPECTED[lab.showExpected]}.</li>
+      </ul>
+
+      <div className="mt-6">
+        <HandoutSummary handout={handout} />
+      </div>
+
+      {ordered.length ? (
+        <section aria-labelledby="previous-heading" className="no-print mt-6">
+          <h2 id="previous-heading" className="text-xl">
+            Your attempts
+          </h2>
+          <ul className="mt-2 space-y-1 text-sm">
+            {ordered.map((a) => (
+              <li key={a.id}>
+                <Link href={`/attempts/${a.id}`}>
+                  Attempt {a.number}: {points(a.score)} of {points(a.maxScore)} points
+                </Link>{" "}
+                <span className="text-ink-soft">
+                  ({verdictSummary(a.results)}; submitted {utcDate(a.submittedAt)}
+                  {a.lateDays > 0 ? `, ${a.lateDays} day${a.lateDays === 1 ? "" : "s"} late` : ""})
+                </span>
+              </li>
+            ))}
+          </ul>
+        </section>
+      ) : null}
+
+      <section className="no-print mt-6">
+        {!open ? (
+          <p className="card" role="status">
+            This lab opens on {utcDate(lab.opensAt)}. You can read the handout now and submit from then on.
+          </p>
+        ) : left <= 0 ? (
+          <p className="card" role="status">
+            You have used all your attempts. Open an attempt above to see its feedback or to ask for a review.
+          </p>
+        ) : (
+          <SubmissionForm labId={lab.id} questions={questions} components={components} />
+        )}
+      </section>
+    </>
+  );
+}
+
+function StaffOverview({ lab, attempts, canEdit }: { lab: Lab; attempts: Attempts; canEdit: boolean }) {
+  const students = new Set(attempts.map((a) => a.studentId)).size;
+  const sorted = [...attempts].sort((a, b) => a.studentName.localeCompare(b.studentName) || a.number - b.number);
+  return (
+    <>
+      <p className="mt-2 text-xs font-semibold uppercase tracking-wide text-copper">{lab.status === "published" ? "Published" : "Draft"} · {templates[lab.templateKey].title}</p>
+      <h1 className="mt-1 text-3xl">{lab.title}</h1>
+      <nav aria-label="Lab" className="mt-4 flex flex-wrap gap-3">
+        {canEdit ? (
+          <Link className="btn-quiet" href={`/labs/${lab.id}/edit`}>
+            Edit lab
+          </Link>
+        ) : null}
+        <Link className="btn-quiet" href={`/labs/${lab.id}/preview`}>
+          Preview as a student
+        </Link>
+      </nav>
+      <dl className="card mt-6 grid gap-x-6 gap-y-2 text-sm sm:grid-cols-2">
+        <div>
+          <dt className="text-ink-soft">Opens</dt>
+          <dd className="m-0">{lab.opensAt ? utcDate(lab.opensAt) : "As soon as it is published"}</dd>
+        </div>
+        <div>
+          <dt className="text-ink-soft">Due and late rule</dt>
+          <dd className="m-0">{lateRuleText(lab)}</dd>
+        </div>
+        <div>
+          <dt className="text-ink-soft">Attempts</dt>
+          <dd className="m-0">
+            {lab.attemptsAllowed} allowed; the {lab.counting} one counts
+          </dd>
+        </div>
+        <div>
+          <dt className="text-ink-soft">Expected values shown to students</dt>
+          <dd className="m-0">{SHOW_EXPECTED[lab.showExpected]}</dd>
+        </div>
+        <div>
+          <dt className="text-ink-soft">Questions</dt>
+          <dd className="m-0">
+            {lab.questions.length} ({points(lab.questions.reduce((s, q) => s + q.points, 0))} points)
+          </dd>
+        </div>
+        <div>
+          <dt className="text-ink-soft">Submissions</dt>
+          <dd className="m-0">
+            {attempts.length} attempt{attempts.length === 1 ? "" : "s"} from {students} student{students === 1 ? "" : "s"}
+          </dd>
+        </div>
+      </dl>
+
+      <h2 className="mt-8 text-xl">All attempts</h2>
+      {sorted.length === 0 ? (
+        <p className="mt-2 text-sm text-ink-soft">No attempts yet.</p>
+      ) : (
+        <div className="card mt-3 overflow-x-auto p-0">
+          <table className="min-w-full text-sm" data-testid="attempts-table">
+            <caption className="sr-only">Attempts at this lab, by student</caption>
+            <thead className="bg-paper-sunk text-left">
+              <tr>
+                <th scope="col" className="px-3 py-2">Student</th>
+                <th scope="col" className="px-3 py-2">Attempt</th>
+                <th scope="col" className="px-3 py-2">Submitted</th>
+                <th scope="col" className="px-3 py-2">Score</th>
+                <th scope="col" className="px-3 py-2">Verdicts</th>
+                <th scope="col" className="px-3 py-2">Review</th>
+                <th scope="col" className="px-3 py-2">
+                  <span className="sr-only">Feedback</span>
+                </th>
+              </tr>
+            </thead>
+            <tbody>
+              {sorted.map((a) => {
+                const counts = verdictCounts(a.results);
+                return (
+                  <tr key={a.id} className="border-t border-ink/10 align-top">
+                    <th scope="row" className="px-3 py-2 text-left font-normal">
+                      {a.studentName}
+                    </th>
+                    <td className="px-3 py-2 tabular-nums">{a.number}</td>
+                    <td className="px-3 py-2">
+                      {utcDate(a.submittedAt)}
+                      {a.lateDays > 0 ? <span className="block text-xs text-verdict-close">{a.lateDays} day{a.lateDays === 1 ? "" : "s"} late</span> : null}
+                    </td>
+                    <td className="px-3 py-2 tabular-nums">
+                      {points(a.score)} / {points(a.maxScore)}
+                    </td>
+                    <td className="px-3 py-2">
+                      <ul className="flex flex-wrap gap-x-3 gap-y-1" aria-label="Verdicts">
+                        {VERDICT_ORDER.filter((k) => counts[k] > 0).map((k) => (
+                          <li key={k} className={VERDICTS[k].text}>
+                            <span aria-hidden="true">{VERDICTS[k].icon} </span>
+                            {counts[k]} {VERDICTS[k].word.toLowerCase()}
+                          </li>
+                        ))}
+                      </ul>
+                    </td>
+                    <td className="px-3 py-2">{a.reviewRequestedAt ? "Requested" : "—"}</td>
+                    <td className="px-3 py-2">
+                      <Link href={`/attempts/${a.id}`} aria-label={`Feedback on attempt ${a.number} by ${a.studentName}`}>
+                        Feedback
+                      </Link>
+                    </td>
+                  </tr>
+                );
+              })}
+            </tbody>
+          </table>
+        </div>
+      )}
+    </>
+  );
+}

@@ -1,0 +1,190 @@
+// Pure helpers of the submission form: how a typed reading was read, the request body, idempotency
+// keys and the messages for server and upload errors. No React, so the unit tests run them directly.
+import { formatQuantity } from "@/lib/grader/format";
+import { parseQuantity } from "@/lib/grader/units";
+
+/** What the form needs to know about one question (a subset of the handout's `questions`). */
+export interface FormQuestion {
+  id: string;
+  label: string;
+  unit: string;
+  displayUnit: string;
+  answerKind: "number" | "category";
+  choices?: string[];
+  points: number;
+}
+
+/** A component whose measured value the student may enter (a subset of the handout's `parameters`). */
+export interface FormMeasured {
+  key: string;
+  label: string;
+  unit: string;
+  displayUnit: string;
+  shown: string;
+}
+
+export type Echo = { status: "empty" } | { status: "ok"; value: number; readAs: string } | { status: "error"; message: string };
+
+const UNIT_SYMBOL: Record<string, string> = { ohm: "Ω" };
+
+/** Display units that are not an SI prefix of the unit itself (h, d, mAh, °C): worth a second reading. */
+function isOwnDisplayUnit(displayUnit: string, unit: string): boolean {
+  if (!displayUnit || !unit) return false;
+  const symbol = UNIT_SYMBOL[unit] ?? unit;
+  return !displayUnit.endsWith(symbol);
+}
+
+/**
+ * How a typed value is read, exactly as the grader will read it: "9.1 uA" → "9.10 µA". A value in a
+ * display unit of its own (battery life in hours) is shown in it: "10.0 h", "220 mAh (= 792 C)".
+ */
+export function echoReading(text: string, unit: string, displayUnit = ""): Echo {
+  if (text.trim() === "") return { status: "empty" };
+  const r = parseQuantity(text, unit);
+  if (!r.ok) return r.reason === "empty" ? { status: "empty" } : { status: "error", message: r.message };
+  const si = formatQuantity(r.value, unit);
+  let readAs = si;
+  if (isOwnDisplayUnit(displayUnit, unit)) {
+    // Hours for a battery life, mAh for a capacity: the unit the handout uses, with SI beside it when short.
+    readAs = formatQuantity(r.value, unit, { displayUnit });
+    if (!/e/.test(si) && si !== readAs) readAs = `${readAs} (= ${si})`;
+  }
+  return { status: "ok", value: r.value, readAs };
+}
+
+/** The words a screen reader and a sighted reader get under a field. */
+export function echoText(echo: Echo): string {
+  if (echo.status === "ok") return `Read as ${echo.readAs}`;
+  if (echo.status === "error") return echo.message;
+  return "";
+}
+
+/** Trimmed text, and null for a blank field (the API's "no answer"). */
+export function toPayload(values: Record<string, string | undefined | null>): Record<string, string | null> {
+  const out: Record<string, string | null> = {};
+  for (const [k, v] of Object.entries(values)) {
+    const t = (v ?? "").trim();
+    out[k] = t === "" ? null : t;
+  }
+  return out;
+}
+
+/** Only the measured values the student filled in. */
+export function measuredPayload(values: Record<string, string | undefined | null>): Record<string, string | null> {
+  return Object.fromEntries(Object.entries(toPayload(values)).filter(([, v]) => v !== null));
+}
+
+/** One client-side check per field: a number question with text that does not read is refused before sending. */
+export function readingProblems(questions: FormQuestion[], readings: Record<string, string | undefined | null>): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const q of questions) {
+    const text = readings[q.id] ?? "";
+    if (q.answerKind === "category") {
+      if (text && q.choices && !q.choices.includes(text)) out[q.id] = `Choose one of: ${q.choices.join(", ")}.`;
+      continue;
+    }
+    const echo = echoReading(text, q.unit, q.displayUnit);
+    if (echo.status === "error") out[q.id] = echo.message;
+  }
+  return out;
+}
+
+export function measuredProblems(components: FormMeasured[], measured: Record<string, string | undefined | null>): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const c of components) {
+    const echo = echoReading(measured[c.key] ?? "", c.unit, c.displayUnit);
+    if (echo.status === "error") out[c.key] = echo.message;
+    else if (echo.status === "ok" && !(echo.value > 0)) out[c.key] = "A measured value must be greater than zero.";
+  }
+  return out;
+}
+
+/** A random key for one form: crypto.randomUUID where there is one, else 128 random bits in hex. */
+export function newIdempotencyKey(c: Pick<Crypto, "getRandomValues"> & { randomUUID?: () => string } = globalThis.crypto): string {
+  if (typeof c.randomUUID === "function") return c.randomUUID();
+  const bytes = c.getRandomValues(new Uint8Array(16));
+  return Array.from(bytes, (b) => b.toString(16).padStart(2, "0")).join("");
+}
+
+export interface ApiError {
+  code?: string;
+  message?: string;
+  fields?: Record<string, string[]>;
+}
+
+/** Reads `{error:{…}}` from a response body, whatever it holds. */
+export function apiError(body: unknown): ApiError {
+  if (body && typeof body === "object" && "error" in body) {
+    const e = (body as { error: unknown }).error;
+    if (e && typeof e === "object") return e as ApiError;
+  }
+  return {};
+}
+
+export interface MappedErrors {
+  /** react-hook-form paths ("readings.q2", "measured.loadResistance") and their first message */
+  fields: { path: string; message: string }[];
+  /** errors about the attached files */
+  files: string[];
+  /** anything that belongs to no field */
+  form: string[];
+}
+
+/** Spreads a 400's `fields` onto the form's fields; unknown question ids and other keys go to the form message. */
+export function mapServerFields(fields: Record<string, string[]> | undefined, known: { readings: string[]; measured: string[] }): MappedErrors {
+  const out: MappedErrors = { fields: [], files: [], form: [] };
+  for (const [key, messages] of Object.entries(fields ?? {})) {
+    const message = messages[0] ?? "Check this value.";
+    const [head, ...rest] = key.split(".");
+    const sub = rest.join(".");
+    if (head === "readings" && known.readings.includes(sub)) out.fields.push({ path: key, message });
+    else if (head === "measured" && known.measured.includes(sub)) out.fields.push({ path: key, message });
+    else if (head === "uploadIds" || head === "file") out.files.push(message);
+    else out.form.push(message);
+  }
+  return out;
+}
+
+/** The message for a failed submission, by status. */
+export function submitErrorMessage(status: number, error: ApiError): string {
+  if (status === 0) return "Your answers did not reach the server. Check your connection and submit again: nothing you typed is lost, and a retry cannot make a second attempt.";
+  if (status === 401) return "Your session has ended. Sign in again in another tab, then submit: your answers stay in this form.";
+  if (status === 409) return error.message ?? "This lab does not accept an attempt now.";
+  if (status === 400) return error.message ?? "Some answers need another look; see the messages under the fields.";
+  if (status >= 500) return "The server could not grade this attempt just now. Submit again in a moment: a retry cannot make a second attempt.";
+  return error.message ?? `The submission failed (HTTP ${status}).`;
+}
+
+/** The message shown under a file field when its upload fails. */
+export function uploadErrorMessage(status: number, error: ApiError): string {
+  if (status === 0) return "The file did not reach the server. Check your connection and choose the file again.";
+  if (status === 413) return error.message ?? "That file is too large to upload.";
+  if (status === 415) return error.message ?? "That kind of file is not accepted. Attach a PNG or JPEG scope capture, or a CSV trace.";
+  if (status === 401) return "Your session has ended. Sign in again, then attach the file.";
+  return error.message ?? `The upload failed (HTTP ${status}).`;
+}
+
+/** "3 of 5 attempts left" and friends. */
+export function attemptsLeftText(used: number, allowed: number): string {
+  const left = Math.max(0, allowed - used);
+  if (left === 0) return `You have used all ${allowed} attempt${allowed === 1 ? "" : "s"}.`;
+  return `${left} of ${allowed} attempt${allowed === 1 ? "" : "s"} left.`;
+}
+
+/** A date as the server and the browser both show it: "12 Mar 2027, 17:00 UTC". */
+export function utcDate(d: Date | string | null | undefined): string {
+  if (!d) return "";
+  const date = typeof d === "string" ? new Date(d) : d;
+  if (Number.isNaN(date.getTime())) return "";
+  const text = new Intl.DateTimeFormat("en-GB", { timeZone: "UTC", day: "numeric", month: "short", year: "numeric", hour: "2-digit", minute: "2-digit", hourCycle: "h23" }).format(date);
+  return `${text} UTC`;
+}
+
+/** The due date and late rule in one sentence. */
+export function lateRuleText(rules: { dueAt: Date | string | null; latePenaltyPercentPerDay: number; lateFloorPercent: number }): string {
+  if (!rules.dueAt) return "This lab has no due date.";
+  const due = `Due ${utcDate(rules.dueAt)}.`;
+  if (!(rules.latePenaltyPercentPerDay > 0)) return `${due} Late attempts are graded without a penalty.`;
+  const floor = rules.lateFloorPercent > 0 ? `, but a late attempt keeps at least ${rules.lateFloorPercent} % of its score` : "";
+  return `${due} Each day late (or part of a day) takes ${rules.latePenaltyPercentPerDay} % off the score${floor}.`;
+}

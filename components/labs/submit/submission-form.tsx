@@ -1,0 +1,320 @@
+"use client";
+// The student's submission: one field per question that echoes how the value was read as they type,
+// optional measured component values, optional files with upload progress, and one idempotency key per
+// form so that a double click or a retry makes a single attempt.
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useRouter } from "next/navigation";
+import { useId, useMemo, useRef, useState } from "react";
+import { useForm, useWatch, type Control, type UseFormRegisterReturn } from "react-hook-form";
+import type { z } from "zod";
+import { attemptInputSchema, type AttemptInput } from "@/lib/validation/labs";
+import { FileField } from "./file-field";
+import {
+  apiError,
+  echoReading,
+  echoText,
+  mapServerFields,
+  measuredPayload,
+  measuredProblems,
+  newIdempotencyKey,
+  readingProblems,
+  submitErrorMessage,
+  toPayload,
+  type FormMeasured,
+  type FormQuestion,
+} from "./read";
+import type { UploadedFile } from "./upload";
+
+type FormValues = { idempotencyKey: string; readings: Record<string, string>; measured: Record<string, string>; uploadIds: string[] };
+type FormOutput = z.output<typeof attemptInputSchema>;
+
+function choiceLabel(choice: string): string {
+  return choice.replace(/^u/, "µ");
+}
+
+function QuantityInput({
+  label,
+  hint,
+  unit,
+  displayUnit,
+  path,
+  control,
+  error,
+  registration,
+}: {
+  label: string;
+  hint: string;
+  unit: string;
+  displayUnit: string;
+  path: `readings.${string}` | `measured.${string}`;
+  control: Control<FormValues, unknown, FormOutput>;
+  error?: string;
+  registration: UseFormRegisterReturn;
+}) {
+  const id = useId();
+  const text = (useWatch({ control, name: path }) as string | undefined) ?? "";
+  const echo = echoReading(text, unit, displayUnit);
+  const problem = error ?? (echo.status === "error" ? echo.message : undefined);
+  return (
+    <div className="mb-4">
+      <label htmlFor={id} className="field-label">
+        {label}
+      </label>
+      <input
+        id={id}
+        className="field-input max-w-xs"
+        autoComplete="off"
+        spellCheck={false}
+        inputMode="text"
+        aria-invalid={problem ? true : undefined}
+        aria-describedby={`${id}-hint ${id}-echo`}
+        {...registration}
+      />
+      <p id={`${id}-hint`} className="mt-1 text-xs text-ink-soft">
+        {hint}
+      </p>
+      <p id={`${id}-echo`} aria-live="polite" data-testid={`echo-${path}`} className={problem ? "field-error" : "mt-1 text-sm text-ink-soft"}>
+        {problem ? (
+          <>
+            <span aria-hidden="true">✗ </span>
+            {problem}
+          </>
+        ) : echo.status === "ok" ? (
+          <>
+            <span aria-hidden="true">✓ </span>
+            {echoText(echo)}
+          </>
+        ) : null}
+      </p>
+    </div>
+  );
+}
+
+const UNIT_HINT: Record<string, string> = {
+  A: "a current, e.g. 9.1 uA, 0.0091 mA or 9.1e-6 A",
+  V: "a voltage, e.g. 12.4 mV",
+  ohm: "a resistance, e.g. 4.7 kΩ, 4k7 or 0R1",
+  "V/A": "a transresistance in V/A",
+  F: "a capacitance, e.g. 100 nF",
+  s: "a time, e.g. 4.6 ms or 10 h",
+  Hz: "a frequency, e.g. 159 Hz",
+  K: "a temperature, e.g. 300 K",
+  C: "a charge, e.g. 200 uC or 220 mAh",
+  W: "a power, e.g. 2.5 mW",
+  "%": "a percentage, e.g. 1.5 %",
+  "": "a plain number",
+};
+
+export function SubmissionForm({ labId, questions, components }: { labId: string; questions: FormQuestion[]; components: FormMeasured[] }) {
+  const router = useRouter();
+  const [idempotencyKey] = useState(() => newIdempotencyKey());
+  const [message, setMessage] = useState<string | null>(null);
+  const [fileErrors, setFileErrors] = useState<string | undefined>();
+  const [image, setImage] = useState<UploadedFile | null>(null);
+  const [trace, setTrace] = useState<UploadedFile | null>(null);
+  const [busyUploads, setBusyUploads] = useState({ image: false, trace: false });
+  const [sent, setSent] = useState(false);
+  const inFlight = useRef(false);
+
+  const schema = useMemo(
+    () =>
+      attemptInputSchema.superRefine((v, ctx) => {
+        const readings = Object.fromEntries(Object.entries(v.readings).map(([k, t]) => [k, t ?? ""]));
+        for (const [qid, msg] of Object.entries(readingProblems(questions, readings))) ctx.addIssue({ code: "custom", path: ["readings", qid], message: msg });
+        const measured = Object.fromEntries(Object.entries(v.measured ?? {}).map(([k, t]) => [k, t ?? ""]));
+        for (const [key, msg] of Object.entries(measuredProblems(components, measured))) ctx.addIssue({ code: "custom", path: ["measured", key], message: msg });
+      }),
+    [questions, components],
+  );
+
+  const { register, handleSubmit, control, formState, setError, setValue, setFocus } = useForm<FormValues, unknown, FormOutput>({
+    resolver: zodResolver(schema) as never,
+    defaultValues: {
+      idempotencyKey,
+      readings: Object.fromEntries(questions.map((q) => [q.id, ""])),
+      measured: Object.fromEntries(components.map((c) => [c.key, ""])),
+      uploadIds: [],
+    },
+    shouldFocusError: true,
+  });
+
+  function attach(which: "image" | "trace", upload: UploadedFile | null) {
+    const next = { image, trace, [which]: upload };
+    if (which === "image") setImage(upload);
+    else setTrace(upload);
+    setFileErrors(undefined);
+    setValue("uploadIds", [next.image?.id, next.trace?.id].filter((x): x is string => Boolean(x)));
+  }
+
+  const uploading = busyUploads.image || busyUploads.trace;
+  const errors = formState.errors;
+  const readingError = (qid: string) => errors.readings?.[qid]?.message;
+  const measuredError = (key: string) => errors.measured?.[key]?.message;
+
+  const onSubmit = handleSubmit(
+    async (values) => {
+      if (inFlight.current || uploading) return;
+      inFlight.current = true;
+      setMessage(null);
+      const body: AttemptInput = {
+        idempotencyKey,
+        readings: toPayload(values.readings),
+        measured: measuredPayload(values.measured ?? {}),
+        uploadIds: [image?.id, trace?.id].filter((x): x is string => Boolean(x)),
+      };
+      let status = 0;
+      let json: unknown = null;
+      try {
+        const res = await fetch(`/api/labs/${labId}/attempts`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
+        status = res.status;
+        json = await res.json().catch(() => null);
+      } catch {
+        status = 0;
+      }
+      if (status === 200 || status === 201) {
+        const attempt = (json as { attempt: { id: string } }).attempt;
+        setSent(true);
+        router.push(`/attempts/${attempt.id}`);
+        return;
+      }
+      inFlight.current = false;
+      const err = apiError(json);
+      const mapped = mapServerFields(err.fields, { readings: questions.map((q) => q.id), measured: components.map((c) => c.key) });
+      for (const f of mapped.fields) setError(f.path as `readings.${string}`, { type: "server", message: f.message });
+      if (mapped.files.length) setFileErrors(mapped.files.join(" "));
+      setMessage([submitErrorMessage(status, err), ...mapped.form.filter((m) => m !== err.message)].join(" "));
+      if (mapped.fields[0]) setFocus(mapped.fields[0].path as `readings.${string}`);
+    },
+    (invalid) => {
+      const names: string[] = [];
+      for (const q of questions) if (invalid.readings?.[q.id]) names.push(q.label);
+      for (const c of components) if (invalid.measured?.[c.key]) names.push(`measured ${c.label.toLowerCase()}`);
+      setMessage(names.length ? `Check ${names.length === 1 ? "this answer" : "these answers"} before submitting: ${names.join("; ")}.` : "Check the form before submitting.");
+    },
+  );
+
+  const submitting = formState.isSubmitting || sent;
+
+  return (
+    <form onSubmit={onSubmit} noValidate aria-labelledby="submit-heading" data-testid="submission-form">
+      <h2 id="submit-heading" className="text-xl">
+        Your readings
+      </h2>
+      <p className="mt-1 mb-4 text-sm text-ink-soft">
+        Type each value with its unit. Under each field you see how it will be read before you submit. Leave a field empty to skip that question.
+      </p>
+      <div role="alert" className={message ? "mb-4 rounded-md bg-verdict-wrong/10 p-3 text-sm text-verdict-wrong" : ""}>
+        {message ?? ""}
+      </div>
+      <input type="hidden" {...register("idempotencyKey")} />
+
+      <fieldset className="card mb-4">
+        <legend className="px-1 text-sm font-semibold">Answers</legend>
+        {questions.map((q, i) => {
+          const label = `${i + 1}. ${q.label}`;
+          const pts = `${q.points} point${q.points === 1 ? "" : "s"}`;
+          if (q.answerKind === "category") {
+            const error = readingError(q.id);
+            const selId = `reading-${q.id}`;
+            return (
+              <div className="mb-4" key={q.id}>
+                <label htmlFor={selId} className="field-label">
+                  {label}
+                </label>
+                <select
+                  id={selId}
+                  className="field-input max-w-xs"
+                  aria-invalid={error ? true : undefined}
+                  aria-describedby={`${selId}-hint ${selId}-error`}
+                  {...register(`readings.${q.id}`)}
+                >
+                  <option value="">Choose…</option>
+                  {(q.choices ?? []).map((c) => (
+                    <option key={c} value={c}>
+                      {choiceLabel(c)}
+                    </option>
+                  ))}
+                </select>
+                <p id={`${selId}-hint`} className="mt-1 text-xs text-ink-soft">
+                  Pick one. {pts}.
+                </p>
+                <p id={`${selId}-error`} className="field-error" aria-live="polite">
+                  {error ?? ""}
+                </p>
+              </div>
+            );
+          }
+          return (
+            <QuantityInput
+              key={q.id}
+              label={label}
+              hint={`Answer with ${UNIT_HINT[q.unit] ?? `a value in ${q.displayUnit || q.unit}`}. ${pts}.`}
+              unit={q.unit}
+              displayUnit={q.displayUnit}
+              path={`readings.${q.id}`}
+              control={control}
+              error={readingError(q.id)}
+              registration={register(`readings.${q.id}`)}
+            />
+          );
+        })}
+      </fieldset>
+
+      {components.length ? (
+        <fieldset className="card mb-4">
+          <legend className="px-1 text-sm font-semibold">Measured component values (optional)</legend>
+          <p className="mb-3 text-sm text-ink-soft">
+            If you measured your resistors with a meter, enter what you measured: your bench readings are then checked against the circuit you actually built.
+          </p>
+          {components.map((c) => (
+            <QuantityInput
+              key={c.key}
+              label={`Measured ${c.label.toLowerCase()}`}
+              hint={`Nominal value on your handout: ${c.shown}.`}
+              unit={c.unit}
+              displayUnit={c.displayUnit}
+              path={`measured.${c.key}`}
+              control={control}
+              error={measuredError(c.key)}
+              registration={register(`measured.${c.key}`)}
+            />
+          ))}
+        </fieldset>
+      ) : null}
+
+      <fieldset className="card mb-4">
+        <legend className="px-1 text-sm font-semibold">Files (optional)</legend>
+        <FileField
+          label="Scope capture"
+          hint="A PNG or JPEG screenshot of your oscilloscope or meter."
+          accept="image/png,image/jpeg,.png,.jpg,.jpeg"
+          expectKind="image"
+          labId={labId}
+          onChange={(u) => attach("image", u)}
+          onBusy={(b) => setBusyUploads((s) => ({ ...s, image: b }))}
+          testId="file-image"
+        />
+        <FileField
+          label="Logged current trace"
+          hint="A CSV file with a time column and a current column (units in the header, e.g. time (ms), current (uA))."
+          accept=".csv,text/csv"
+          expectKind="trace"
+          labId={labId}
+          serverError={fileErrors}
+          onChange={(u) => attach("trace", u)}
+          onBusy={(b) => setBusyUploads((s) => ({ ...s, trace: b }))}
+          testId="file-trace"
+        />
+      </fieldset>
+
+      <div className="flex flex-wrap items-center gap-3">
+        <button type="submit" className="btn-primary" disabled={submitting || uploading} aria-describedby="submit-note">
+          {submitting ? "Submitting…" : "Submit for grading"}
+        </button>
+        <p id="submit-note" className="text-sm text-ink-soft" aria-live="polite">
+          {uploading ? "Wait for the upload to finish." : submitting ? "Grading your readings…" : "Each submission uses one attempt."}
+        </p>
+      </div>
+    </form>
+  );
+}
