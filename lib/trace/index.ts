@@ -6,6 +6,7 @@ import type { TraceAnalysis, TraceOptions } from "./types";
 
 export { analyzeSamples, TraceError, type TraceStats } from "./analyze";
 export { minMaxDecimate, type PlotPoints } from "./decimate";
+export { currentScale, timeScale, formatCurrent, formatDuration, formatCharge, formatPercent, type Scale } from "./format";
 export { squareWaveCsv, type SquareWaveSpec } from "./generate";
 export { splitLevels, MIN_SEPARATION, type LevelSplit } from "./levels";
 export { readTrace, type TraceInput, type ReadResult } from "./parse";

@@ -1,0 +1,1 @@
+export { TracePlot, type TracePlotData } from "./TracePlot";
