@@ -320,7 +320,7 @@ describe("uploads", () => {
   async function upload(c: Client, labId: string, bytes: Uint8Array, name: string, type = "application/octet-stream") {
     const form = new FormData();
     form.set("labId", labId);
-    form.set("file", new Blob([bytes], { type }), name);
+    form.set("file", new Blob([new Uint8Array(bytes)], { type }), name);
     return c.json("/api/uploads", { method: "POST", body: form });
   }
   // the eight-byte PNG signature (ISO/IEC 15948, 5.2) followed by an IHDR chunk
