@@ -1,36 +1,5 @@
-// The numbers of a logged trace's analysis as label/value rows. Pure, for the feedback page and tests.
-import { formatQuantity } from "@/lib/grader/format";
+// Notes on a logged trace's analysis that the plot's own summary leaves out. Pure, for the feedback page and tests.
 import type { TraceAnalysis } from "@/lib/trace/types";
-
-export type TraceRow = { label: string; value: string; key: string };
-
-export function traceRows(a: Partial<TraceAnalysis>): TraceRow[] {
-  const rows: TraceRow[] = [];
-  const add = (key: string, label: string, v: number | null | undefined, unit: string, opts?: { displayUnit?: string }) => {
-    if (typeof v === "number" && Number.isFinite(v)) rows.push({ key, label, value: formatQuantity(v, unit, opts) });
-  };
-  add("averageCurrent", "Average current (time-weighted)", a.averageCurrent, "A");
-  add("minCurrent", "Lowest current", a.minCurrent, "A");
-  add("maxCurrent", "Highest current", a.maxCurrent, "A");
-  if (a.twoLevel !== false) {
-    add("sleepLevel", "Sleep level", a.sleepLevel, "A");
-    add("activeLevel", "Active level", a.activeLevel, "A");
-    if (typeof a.dutyCycle === "number") rows.push({ key: "dutyCycle", label: "Duty cycle", value: formatQuantity(a.dutyCycle * 100, "%") });
-    if (typeof a.wakes === "number") rows.push({ key: "wakes", label: "Wakes in the trace", value: String(a.wakes) });
-    add("period", "Time between wakes", a.period, "s");
-    add("activeTimePerWake", "Active time per wake", a.activeTimePerWake, "s");
-    add("chargePerWake", "Charge per wake", a.chargePerWake, "C");
-  }
-  if (typeof a.batteryLife === "number" && Number.isFinite(a.batteryLife)) {
-    rows.push({
-      key: "batteryLife",
-      label: "Estimated battery life",
-      value: `${formatQuantity(a.batteryLife, "s", { displayUnit: "h" })} = ${formatQuantity(a.batteryLife, "s", { displayUnit: "d" })}`,
-    });
-  }
-  add("duration", "Length of the trace", a.duration, "s");
-  return rows;
-}
 
 /** "4,000 rows read; 3 bad rows skipped (line 12: not a number, …)". */
 export function traceRowsNote(a: Partial<TraceAnalysis>): string {

@@ -1,7 +1,7 @@
 // The feedback page's pure helpers: verdict words and counts, values, bands, score line, trace rows.
 import { describe, expect, it } from "vitest";
 import { bandText, expectedValue, scoreLine, studentValue, verdictCounts, verdictInfo, verdictSummary, VERDICTS } from "@/components/labs/feedback/verdict";
-import { traceRows, traceRowsNote, traceUnitsNote } from "@/components/labs/feedback/trace-numbers";
+import { traceRowsNote, traceUnitsNote } from "@/components/labs/feedback/trace-numbers";
 
 describe("verdicts", () => {
   it("every verdict has a word and an icon, not only a colour", () => {
@@ -38,7 +38,7 @@ describe("values", () => {
   });
 });
 
-describe("trace rows", () => {
+describe("trace notes", () => {
   const a = {
     rows: 4000,
     badRows: 2,
@@ -58,18 +58,6 @@ describe("trace rows", () => {
     duration: 4,
     units: { time: "ms" as const, current: "uA" as const, timeSource: "header" as const, currentSource: "header" as const, inferred: false },
   };
-  it("formats the numbers with units", () => {
-    const rows = Object.fromEntries(traceRows(a).map((r) => [r.key, r.value]));
-    expect(rows.averageCurrent).toBe("202 µA");
-    expect(rows.dutyCycle).toBe("1.00 %");
-    expect(rows.chargePerWake).toBe("200 µC");
-    expect(rows.batteryLife).toBe("1000 h = 41.67 d");
-  });
-  it("leaves out the levels of a trace that is not two-level", () => {
-    const keys = traceRows({ ...a, twoLevel: false }).map((r) => r.key);
-    expect(keys).not.toContain("dutyCycle");
-    expect(keys).toContain("averageCurrent");
-  });
   it("reports bad rows and units", () => {
     expect(traceRowsNote(a)).toBe("4,000 rows read; 2 bad rows skipped (line 12: not a number; line 40: time not increasing).");
     expect(traceUnitsNote(a)).toBe("Time in ms, current in µA, as the header says.");

@@ -84,7 +84,7 @@ describe("client-side checks", () => {
 
 describe("idempotency keys", () => {
   it("uses randomUUID when there is one", () => {
-    expect(newIdempotencyKey({ randomUUID: () => "11111111-2222-4333-8444-555555555555", getRandomValues: (a) => a } as never)).toBe("11111111-2222-4333-8444-555555555555");
+    expect(newIdempotencyKey({ randomUUID: () => "11111111-2222-4333-8444-555555555555", getRandomValues: (a: Uint8Array) => a } as never)).toBe("11111111-2222-4333-8444-555555555555");
   });
   it("falls back to 128 random bits in hex", () => {
     const key = newIdempotencyKey({ getRandomValues: <T extends ArrayBufferView | null>(a: T) => { (a as unknown as Uint8Array).fill(171); return a; } });

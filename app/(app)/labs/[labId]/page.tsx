@@ -3,10 +3,10 @@ import Link from "next/link";
 import { forPage, isStaff, refused } from "@/lib/auth/access";
 import { templates } from "@/lib/grader";
 import { handoutFor } from "@/lib/labs/handout";
-import { isOpen } from "@/lib/labs/policy";
+import { isOpen, lateDays } from "@/lib/labs/policy";
 import { attemptsFor, labAccess, type Lab } from "@/lib/labs/service";
 import { Refusal } from "@/components/shell/refusal";
-import { HandoutSummary } from "@/components/labs/submit/handout-summary";
+import { Handout } from "@/components/labs/handout";
 import { attemptsLeftText, lateRuleText, utcDate, type FormMeasured, type FormQuestion } from "@/components/labs/submit/read";
 import { SubmissionForm } from "@/components/labs/submit/submission-form";
 import { VERDICT_ORDER, VERDICTS, points, verdictCounts, verdictSummary } from "@/components/labs/feedback/verdict";
@@ -60,20 +60,27 @@ export default async function LabPage({ params }: { params: Promise<{ labId: str
     .filter((p) => p.kind === "resistor" && typeof p.value === "number")
     .map((p) => ({ key: p.key, label: p.label, unit: p.unit, displayUnit: p.displayUnit, shown: p.shown }));
   const ordered = [...attempts].sort((a, b) => b.number - a.number);
+  const late = lateDays(lab, now);
 
   return (
     <>
       {back}
-      <h1 className="mt-2 text-3xl">{lab.title}</h1>
-      <ul className="mt-2 space-y-1 text-sm text-ink-soft" aria-label="Rules of this lab">
-        <li data-testid="attempts-left">{attemptsLeftText(used, lab.attemptsAllowed)}</li>
-        <li>{lateRuleText(lab)}</li>
-        <li>Your {lab.counting === "best" ? "best" : "last"} attempt counts. Expected values are shown {SHOW_EXPECTED[lab.showExpected]}.</li>
-      </ul>
-
-      <div className="mt-6">
-        <HandoutSummary handout={handout} />
+      <div className="mt-4">
+        <Handout handout={handout} headingLevel={1} timeZone="UTC" />
       </div>
+
+      <section aria-label="Your standing in this lab" className="no-print card mt-6">
+        <p className="font-semibold" data-testid="attempts-left">
+          {attemptsLeftText(used, lab.attemptsAllowed)}
+        </p>
+        <p className="mt-1 text-sm text-ink-soft">{lateRuleText(lab)}</p>
+        {late ? (
+          <p className="mt-1 text-sm font-semibold text-verdict-close">
+            <span aria-hidden="true">! </span>
+            The due date has passed: an attempt now is {late} day{late === 1 ? "" : "s"} late.
+          </p>
+        ) : null}
+      </section>
 
       {ordered.length ? (
         <section aria-labelledby="previous-heading" className="no-print mt-6">
