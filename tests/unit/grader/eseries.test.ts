@@ -1,6 +1,9 @@
-import { describe, expect, it } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 import fc from "fast-check";
 import { nearestStandard, seriesValues, SERIES_NAMES } from "../../../lib/grader";
+
+// thousands of generated cases: allow for a busy machine
+vi.setConfig({ testTimeout: 60_000 });
 
 describe("IEC 60063 tables", () => {
   it("have the right lengths and increase strictly", () => {

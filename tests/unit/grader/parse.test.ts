@@ -1,6 +1,9 @@
-import { describe, expect, it } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 import fc from "fast-check";
 import { formatQuantity, parseQuantity, texQuantity } from "../../../lib/grader";
+
+// thousands of generated cases: allow for a busy machine
+vi.setConfig({ testTimeout: 60_000 });
 
 const value = (text: string, unit: string) => {
   const r = parseQuantity(text, unit);

@@ -1,4 +1,4 @@
-import { describe, expect, it } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 import fc from "fast-check";
 import {
   TEMPLATE_KEYS,
@@ -14,6 +14,9 @@ import {
   type TemplateKey,
   type VariantSpec,
 } from "../../../lib/grader";
+
+// thousands of generated cases: allow for a busy machine
+vi.setConfig({ testTimeout: 60_000 });
 
 function allQuestions(key: TemplateKey, kind: "prediction" | "bench"): Question[] {
   return templates[key].quantities.map((q) => ({ quantity: q.key, kind, points: 1 }));
