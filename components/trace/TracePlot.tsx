@@ -10,7 +10,7 @@ import { minMaxDecimate } from "@/lib/trace/decimate";
 import { currentScale, formatCharge, formatCurrent, formatDuration, formatPercent, timeScale } from "@/lib/trace/format";
 import type { TraceAnalysis } from "@/lib/trace/types";
 
-export type TracePlotData = Pick<
+export type TraceSummary = Pick<
   TraceAnalysis,
   | "plot"
   | "rows"
@@ -37,7 +37,7 @@ export function TracePlot({
   maxPoints = 4000,
   testId,
 }: {
-  trace: TracePlotData;
+  trace: TraceSummary;
   caption?: string;
   maxPoints?: number;
   testId?: string;

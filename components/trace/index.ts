@@ -1,1 +1,1 @@
-export { TracePlot, type TracePlotData } from "./TracePlot";
+export { TracePlot, type TraceSummary } from "./TracePlot";

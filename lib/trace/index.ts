@@ -7,7 +7,7 @@ import type { TraceAnalysis, TraceOptions } from "./types";
 export { analyzeSamples, TraceError, type TraceStats } from "./analyze";
 export { minMaxDecimate, type PlotPoints } from "./decimate";
 export { currentScale, timeScale, formatCurrent, formatDuration, formatCharge, formatPercent, type Scale } from "./format";
-export { squareWaveCsv, type SquareWaveSpec } from "./generate";
+export { squareWaveCsv, squareWaveRows, type SquareWaveSpec } from "./generate";
 export { splitLevels, MIN_SEPARATION, type LevelSplit } from "./levels";
 export { readTrace, type TraceInput, type ReadResult } from "./parse";
 export { columnsFromHeader, readHeaderCell, TIME_DIVISOR, CURRENT_DIVISOR } from "./units";

@@ -8,7 +8,8 @@ import { parseNumberCell, sniffSeparator } from "./sniff";
 import { columnsFromHeader, CURRENT_DIVISOR, TIME_DIVISOR } from "./units";
 import type { BadRow, TraceFormat, TraceOptions, TraceUnits } from "./types";
 
-export type TraceInput = NodeJS.ReadableStream | string | Buffer;
+/** A Node stream (file, upload, object-store body), a web stream (a File's stream()), bytes or text. */
+export type TraceInput = NodeJS.ReadableStream | ReadableStream<Uint8Array> | AsyncIterable<Uint8Array | string> | Uint8Array | string;
 
 const PIECE = 1 << 16;
 const HEAD = 1 << 13;
@@ -20,10 +21,12 @@ async function* textPieces(input: TraceInput): AsyncGenerator<string> {
     return;
   }
   const decoder = new StringDecoder("utf8");
-  if (Buffer.isBuffer(input)) {
-    for (let k = 0; k < input.length; k += PIECE) yield decoder.write(input.subarray(k, k + PIECE));
+  if (input instanceof Uint8Array) {
+    const bytes = Buffer.from(input.buffer, input.byteOffset, input.byteLength);
+    for (let k = 0; k < bytes.length; k += PIECE) yield decoder.write(bytes.subarray(k, k + PIECE));
   } else {
-    for await (const chunk of input) yield typeof chunk === "string" ? chunk : decoder.write(chunk);
+    const chunks = input as AsyncIterable<Uint8Array | string>;
+    for await (const chunk of chunks) yield typeof chunk === "string" ? chunk : decoder.write(Buffer.from(chunk.buffer, chunk.byteOffset, chunk.byteLength));
   }
   const rest = decoder.end();
   if (rest) yield rest;

@@ -39,8 +39,6 @@ export type TraceFormat = {
   currentColumn: number;
 };
 
-export type TracePlotData = { t: number[]; i: number[] };
-
 export type TraceAnalysis = {
   /** Good rows used in the analysis. */
   rows: number;
@@ -86,6 +84,7 @@ export type TraceAnalysis = {
   chargePerWake: number | null;
   /** usableFraction · batteryCapacity / averageCurrent, s; null without a capacity. */
   batteryLife: number | null;
-  plot: TracePlotData;
+  /** The trace min/max-decimated to at most maxPlotPoints points (see decimate.ts), SI units. */
+  plot: { t: number[]; i: number[] };
   warnings: string[];
 };

@@ -161,7 +161,7 @@ describe("bad rows", () => {
 });
 
 describe("inputs", () => {
-  it("reads a stream, a Buffer and a string alike, even with µ split between chunks", async () => {
+  it("reads a Node stream, a web stream, a Buffer, bytes and a string alike, even with µ split between chunks", async () => {
     const csv = squareWaveCsv({ sleepCurrent: 1e-6, activeCurrent: 5e-3, activeTime: 0.002, period: 0.1, cycles: 30, sampleInterval: 0.001, units: { time: "ms", current: "uA" } })
       .replace("current (uA)", "current (µA)");
     const bytes = Buffer.from(csv, "utf8");
@@ -172,6 +172,10 @@ describe("inputs", () => {
     const fromStream = await analyzeTrace(Readable.from(pieces, { objectMode: false }));
     const fromBuffer = await analyzeTrace(bytes);
     const fromString = await analyzeTrace(csv);
+    const fromWeb = await analyzeTrace(Readable.toWeb(Readable.from(pieces, { objectMode: false })) as ReadableStream<Uint8Array>);
+    const fromBytes = await analyzeTrace(new Uint8Array(bytes));
+    expect(fromWeb).toEqual(fromString);
+    expect(fromBytes).toEqual(fromString);
     expect(fromStream.units).toMatchObject({ time: "ms", current: "uA", timeSource: "header" });
     expect(fromStream.badRows).toBe(0);
     expect(fromStream).toEqual(fromString);
