@@ -2,7 +2,7 @@
 // The feedback on one attempt. The attempt, its history and its files are fetched in the browser from the
 // JSON API; the worked solutions arrive already typeset (KaTeX on the server) as a LaTeX → HTML map.
 import Link from "next/link";
-import { useCallback, useEffect, useState } from "react";
+import { useCallback, useEffect, useMemo, useState } from "react";
 import type { PresentedAttempt } from "@/lib/labs/service";
 import type { TraceAnalysis } from "@/lib/trace/types";
 import { utcDate } from "../submit/read";
@@ -73,11 +73,14 @@ export function FeedbackView({ attemptId, labId, studentId, studentName, isOwner
       <p className="no-print text-sm">
         <Link href={`/labs/${labId}`}>← Back to the lab</Link>
       </p>
-      <div aria-live="polite" aria-busy={attempt.state === "loading"}>
+      <p role="status" className="sr-only">
+        {attempt.state === "ready" ? `Graded: ${points(attempt.data.score)} of ${points(attempt.data.maxScore)} points.` : attempt.state === "loading" ? "Loading your grade." : ""}
+      </p>
+      <div aria-busy={attempt.state === "loading"}>
         {attempt.state === "loading" ? (
           <>
             <h1 className="mt-2 text-3xl">Feedback</h1>
-            <p className="mt-4 text-ink-soft" role="status">
+            <p className="mt-4 text-ink-soft">
               Loading your grade…
             </p>
           </>
@@ -243,7 +246,8 @@ function ResultCard({ r, index, typed, solutionHtml }: { r: Result; index: numbe
 
 function Files({ attempt }: { attempt: Attempt }) {
   const [uploads, setUploads] = useState<Load<UploadView[]>>({ state: "loading" });
-  const ids = attempt.uploadIds;
+  const key = attempt.uploadIds.join(",");
+  const ids = useMemo(() => (key ? key.split(",") : []), [key]);
   useEffect(() => {
     if (!ids.length) {
       setUploads({ state: "ready", data: [] });
