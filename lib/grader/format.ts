@@ -133,6 +133,30 @@ export function formatQuantity(value: number, unit: string, opts?: FormatOptions
   return u === "" ? p.number : `${p.number} ${u}`;
 }
 
+/**
+ * A bounded memo for a formatter, keyed by unit (and display unit) and value: a worked solution repeats
+ * the same parameter values in many steps and questions.
+ */
+function memoised(format: (value: number, unit: string, opts?: FormatOptions) => string) {
+  const memo = new Map<string, Map<number, string>>();
+  return (value: number, unit: string, opts?: FormatOptions): string => {
+    if (opts && (opts.digits !== undefined || opts.trim !== undefined)) return format(value, unit, opts);
+    const key = opts?.displayUnit ? `${unit}|${opts.displayUnit}` : unit;
+    let m = memo.get(key);
+    if (!m) {
+      m = new Map();
+      memo.set(key, m);
+    }
+    let out = m.get(value);
+    if (out === undefined) {
+      out = format(value, unit, opts);
+      if (m.size >= 4096) m.clear();
+      m.set(value, out);
+    }
+    return out;
+  };
+}
+
 const TEX_SYMBOL: Record<string, string> = {
   Ω: "\\Omega",
   "%": "\\%",
@@ -140,26 +164,10 @@ const TEX_SYMBOL: Record<string, string> = {
   "V/A": "\\mathrm{V/A}",
 };
 
-/** Memo of texQuantity for default options: solutions repeat the same parameter values many times. */
-const TEX_MEMO = new Map<string, Map<number, string>>();
-const TEX_MEMO_LIMIT = 4096;
-
-/** LaTeX for a value with its unit, e.g. "3.267\,\mathrm{mA}", "4.7\,\mathrm{k}\Omega", "9.10\,\mu\mathrm{A}". */
-export function texQuantity(value: number, unit: string, opts?: FormatOptions): string {
-  if (opts) return texFromParts(quantityParts(value, unit, opts));
-  let memo = TEX_MEMO.get(unit);
-  if (!memo) {
-    memo = new Map();
-    TEX_MEMO.set(unit, memo);
-  }
-  let out = memo.get(value);
-  if (out === undefined) {
-    out = texFromParts(quantityParts(value, unit));
-    if (memo.size >= TEX_MEMO_LIMIT) memo.clear();
-    memo.set(value, out);
-  }
-  return out;
-}
+/** LaTeX for a value with its unit, e.g. "3.267\\,\\mathrm{mA}", "4.7\\,\\mathrm{k}\\Omega", "9.10\\,\\mu\\mathrm{A}". */
+export const texQuantity: (value: number, unit: string, opts?: FormatOptions) => string = memoised((value, unit, opts) =>
+  texFromParts(quantityParts(value, unit, opts)),
+);
 
 function texFromParts(p: Parts): string {
   const num = texNumber(p.number);
