@@ -1,7 +1,7 @@
 // `npm test`: the same set-up as `npm start` on a separate PostgreSQL cluster, then every test tier
 // (unit, integration against real PostgreSQL, HTTP and browser tests against a production build).
 // The last line is always `summary: N passed, N failed, N skipped`.
-import { spawnSync } from "node:child_process";
+import { spawn, spawnSync } from "node:child_process";
 import fs from "node:fs";
 import path from "node:path";
 import pg from "pg";
@@ -49,15 +49,17 @@ interface Counts {
   skipped: number;
 }
 
-function runVitest(env: NodeJS.ProcessEnv, extra: string[]): Counts {
+// Asynchronous on purpose: the storage and mail stand-ins run in this process and must keep answering.
+async function runVitest(env: NodeJS.ProcessEnv, extra: string[]): Promise<Counts> {
   const out = path.join(root, "tests", ".artifacts", "vitest.json");
   fs.mkdirSync(path.dirname(out), { recursive: true });
   fs.rmSync(out, { force: true });
-  const r = spawnSync(
+  const child = spawn(
     process.execPath,
     [path.join(root, "node_modules/vitest/vitest.mjs"), "run", "--reporter=default", "--reporter=json", `--outputFile.json=${out}`, ...extra],
     { cwd: root, stdio: "inherit", env },
   );
+  const r = await new Promise<{ status: number | null }>((resolve) => child.on("exit", (status) => resolve({ status })));
   if (!fs.existsSync(out)) return { passed: 0, failed: 1, skipped: 0 };
   const report = JSON.parse(fs.readFileSync(out, "utf8"));
   const counts = {
@@ -96,7 +98,7 @@ async function main(): Promise<Counts> {
     server = startNext({ distDir: DIST, port: cfg.appPort, host: cfg.appHost, env, quiet: true });
     const url = `http://${cfg.appHost}:${cfg.appPort}`;
     await waitForHttp(`${url}/api/health`, server);
-    return runVitest(
+    return await runVitest(
       {
         ...env,
         NODE_ENV: "test",
