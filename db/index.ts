@@ -8,9 +8,11 @@ export type { Database } from "./types";
 const globalForDb = globalThis as unknown as { shuntwiseDb?: Kysely<Database> };
 
 export function createDb(connectionString: string, max = 10): Kysely<Database> {
-  return new Kysely<Database>({
-    dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString, max }) }),
-  });
+  const pool = new pg.Pool({ connectionString, max });
+  // An idle connection closed by the server (a restart, a dropped database) must not crash the process;
+  // the pool replaces it on the next query.
+  pool.on("error", (e) => console.warn(`database connection closed: ${e.message}`));
+  return new Kysely<Database>({ dialect: new PostgresDialect({ pool }) });
 }
 
 function connectionString(): string {
