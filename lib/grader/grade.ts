@@ -103,6 +103,17 @@ function pct(x: number): string {
 class Evaluator {
   private cache = new Map<string, Record<string, QuantityValue>>();
   constructor(private t: Template) {}
+  private solutions = new Map<string, string[]>();
+  /** the worked solution for a quantity, as a fresh array (callers append the student's answer) */
+  solution(tag: string, p: Params, quantity: string): string[] {
+    const key = `${tag}:${quantity}`;
+    let s = this.solutions.get(key);
+    if (!s) {
+      s = this.t.solution(p, quantity);
+      this.solutions.set(key, s);
+    }
+    return s.slice();
+  }
   values(tag: string, p: Params): Record<string, QuantityValue> {
     let v = this.cache.get(tag);
     if (!v) {
@@ -187,7 +198,7 @@ export function gradeAttempt(input: GradeInput): GradeResult {
     const p = bench && measured ? benchParams : input.params;
     const expected = ev.values(tag, p)[q.quantity];
     const reading = lookupReading(input, q, index);
-    const r = spec.kind === "category" ? gradeCategory(t, spec, p, q, expected as string, reading) : gradeNumber(t, spec, p, q, expected as number, reading, {
+    const r = spec.kind === "category" ? gradeCategory(t, spec, p, q, expected as string, reading, ev, tag) : gradeNumber(t, spec, p, q, expected as number, reading, {
       ev, tag, rel: q.tolerancePercent !== undefined ? q.tolerancePercent / 100 : relDefault,
       closeMultiple, closeCredit, tolerances, instrument, measured,
     });
@@ -206,8 +217,8 @@ function missing(q: Question, expected: QuantityValue, band: [number, number] | 
   return { quantity: q.quantity, kind: q.kind, verdict: "missing", points: 0, maxPoints: q.points, expected, band, answer: null, method, feedback: "No answer was given.", solution };
 }
 
-function gradeCategory(t: Template, spec: QuantitySpec, p: Params, q: Question, expected: string, reading: Reading): QuestionResult {
-  const solution = t.solution(p, q.quantity);
+function gradeCategory(t: Template, spec: QuantitySpec, p: Params, q: Question, expected: string, reading: Reading, ev: Evaluator, tag: string): QuestionResult {
+  const solution = ev.solution(tag, p, q.quantity);
   const method = "exact match";
   const base = { quantity: q.quantity, kind: q.kind, expected, band: null, maxPoints: q.points, points: 0, method, solution };
   if (reading === null || reading === undefined || String(reading).trim() === "") return missing(q, expected, null, method, solution);
@@ -287,7 +298,7 @@ function gradeNumber(t: Template, spec: QuantitySpec, p: Params, q: Question, ex
     }
   }
   const band: [number, number] = [expected - half, expected + half];
-  const solution = t.solution(p, q.quantity);
+  const solution = c.ev.solution(c.tag, p, q.quantity);
 
   // read the answer
   let answer: number;
