@@ -131,6 +131,15 @@ export interface LabRegradesTable {
   finished_at: Timestamp | null;
 }
 
+export interface CourseLessonsTable {
+  course_id: string;
+  slug: string;
+  position: number;
+  visible: Generated<boolean>;
+  opens_at: Timestamp | null;
+  updated_at: Generated<Date>;
+}
+
 export interface Database {
   users: UsersTable;
   courses: CoursesTable;
@@ -141,6 +150,7 @@ export interface Database {
   uploads: UploadsTable;
   attempts: AttemptsTable;
   lab_regrades: LabRegradesTable;
+  course_lessons: CourseLessonsTable;
 }
 
 export type User = Selectable<UsersTable>;

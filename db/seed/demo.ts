@@ -4,6 +4,7 @@ import type { Kysely } from "kysely";
 import { hash } from "@node-rs/argon2";
 import type { Database, Role } from "../types";
 import { seedLabs, type SeedStorage } from "./labs";
+import { readLessonFiles } from "../../lib/lessons/files";
 
 export const DEMO_PASSWORD = "bench-demo-2026";
 export const DEMO_DOMAIN = "larkmoor-tech.example";
@@ -104,6 +105,25 @@ export async function seedDemo(db: Kysely<Database>, opts: { storage?: SeedStora
       { graded: [{ id: ids[`student.one@${DEMO_DOMAIN}`] }, { id: ids[`student.two@${DEMO_DOMAIN}`] }, ...others], open: others },
       opts.storage,
     );
+
+    // The lesson plan: the whole syllabus, the last three lessons opening over the coming weeks.
+    const planned = await trx.selectFrom("course_lessons").select("slug").where("course_id", "=", courseId).executeTakeFirst();
+    if (!planned) {
+      const now = Date.now();
+      const slugs = readLessonFiles().map((l) => l.slug);
+      await trx
+        .insertInto("course_lessons")
+        .values(
+          slugs.map((slug, i) => ({
+            course_id: courseId,
+            slug,
+            position: i + 1,
+            visible: true,
+            opens_at: new Date(now + (i < slugs.length - 3 ? -(30 - i * 2) : (i - slugs.length + 4) * 7) * 24 * 3600 * 1000),
+          })),
+        )
+        .execute();
+    }
 
     // Roles are per course: the first TA is a student in the advanced workshop.
     await member(trx, secondId, ids[`instructor@${DEMO_DOMAIN}`], "instructor");

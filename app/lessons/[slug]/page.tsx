@@ -5,6 +5,8 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { getLesson, lessonContents, listLessons, neighbours } from "@/lib/lessons";
 import { lessonComponents } from "@/components/lesson/mdx";
+import { CourseLessonNav } from "@/components/lesson/CourseLessonNav";
+import { Suspense } from "react";
 
 export const dynamicParams = false;
 
@@ -49,6 +51,9 @@ export default async function LessonPage({ params }: Props) {
               ))}
             </ul>
           </header>
+          <Suspense fallback={null}>
+            <CourseLessonNav slug={slug} />
+          </Suspense>
           <Content components={lessonComponents} />
           <nav aria-label="Lesson sequence" className="no-print mt-12 flex flex-wrap justify-between gap-4 border-t border-ink/10 pt-4">
             {previous ? (

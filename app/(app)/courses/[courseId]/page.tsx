@@ -16,7 +16,7 @@ export default async function CoursePage({ params }: { params: Promise<{ courseI
       <h1 className="mt-1 text-3xl">{course.title}</h1>
       <p className="mt-2 text-sm text-ink-soft">You are in this course as: {roleLabel[role]}.</p>
       <nav aria-label="Course" className="mt-6 flex flex-wrap gap-3">
-        <Link className="btn-quiet" href="/lessons">Lessons</Link>
+        <Link className="btn-quiet" href={`/courses/${course.id}/lessons`}>Lessons</Link>
         <Link className="btn-quiet" href={`/courses/${course.id}/labs`}>Bench labs</Link>
         {isStaff(role) ? (
           <Link className="btn-quiet" href={`/courses/${course.id}/roster`}>Roster</Link>
@@ -25,7 +25,7 @@ export default async function CoursePage({ params }: { params: Promise<{ courseI
       <section className="mt-8 grid gap-4 sm:grid-cols-2">
         <div className="card">
           <h2 className="text-lg">
-            <Link href="/lessons">Lessons</Link>
+            <Link href={`/courses/${course.id}/lessons`}>Lessons</Link>
           </h2>
           <p className="mt-1 text-sm text-ink-soft">Read them in order; each prepares one or more bench labs.</p>
         </div>

@@ -1,0 +1,70 @@
+// The course's lesson plan over HTTP: the instructor chooses which lessons appear, in which order and
+// from when; students see the visible ones only.
+import { beforeAll, describe, expect, it } from "vitest";
+import { Client } from "../support/http";
+import { clientFor, courseWithPeople } from "./fixtures";
+
+let f: Awaited<ReturnType<typeof courseWithPeople>>;
+let as: Record<"instructor" | "ta" | "student" | "outsider", Client>;
+
+beforeAll(async () => {
+  f = await courseWithPeople();
+  as = {
+    instructor: await clientFor(f.people.instructor.email),
+    ta: await clientFor(f.people.ta.email),
+    student: await clientFor(f.people.student.email),
+    outsider: await clientFor(f.people.outsider.email),
+  };
+});
+
+const path = () => `/api/courses/${f.courseId}/lessons`;
+const put = (c: Client, body: unknown) => c.json(path(), { method: "PUT", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
+
+describe("a course's lesson plan", () => {
+  it("shows every lesson, open, in the syllabus order until the instructor sets a plan", async () => {
+    const r = await as.student.json(path());
+    expect(r.status).toBe(200);
+    expect(r.body.lessons.length).toBe(11);
+    expect(r.body.lessons.every((l: { open: boolean }) => l.open)).toBe(true);
+    expect(r.body.lessons.map((l: { order: number }) => l.order)).toEqual([1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11]);
+  });
+
+  it("lets only the instructor set it; others get 403 or 404", async () => {
+    const plan = { lessons: [{ slug: "bench-safety", visible: true }] };
+    expect((await put(as.ta, plan)).status).toBe(403);
+    expect((await put(as.student, plan)).status).toBe(403);
+    expect((await put(as.outsider, plan)).status).toBe(404);
+    expect((await new Client().json(path())).status).toBe(401);
+  });
+
+  it("students see the chosen lessons in the chosen order, a future one not yet open, hidden ones not at all", async () => {
+    const later = new Date(Date.now() + 5 * 24 * 3600 * 1000).toISOString();
+    const r = await put(as.instructor, {
+      lessons: [
+        { slug: "burden-voltage", visible: true },
+        { slug: "bench-safety", visible: true },
+        { slug: "duty-cycled-loads", visible: true, opensAt: later },
+        { slug: "noise-floor", visible: false },
+      ],
+    });
+    expect(r.status).toBe(200);
+    const seen = await as.student.json(path());
+    expect(seen.body.lessons.map((l: { slug: string; open: boolean }) => [l.slug, l.open])).toEqual([
+      ["burden-voltage", true],
+      ["bench-safety", true],
+      ["duty-cycled-loads", false],
+    ]);
+    const staff = await as.ta.json(path());
+    expect(staff.body.lessons.find((l: { slug: string }) => l.slug === "noise-floor").visible).toBe(false);
+  });
+
+  it("answers an unknown lesson or a repeated one with 400 and keeps the saved plan", async () => {
+    const before = (await as.student.json(path())).body.lessons;
+    const unknown = await put(as.instructor, { lessons: [{ slug: "no-such-lesson", visible: true }] });
+    expect(unknown.status).toBe(400);
+    expect(Object.keys(unknown.body.error.fields)).toEqual(["lessons.0.slug"]);
+    const twice = await put(as.instructor, { lessons: [{ slug: "bench-safety", visible: true }, { slug: "bench-safety", visible: false }] });
+    expect(twice.status).toBe(400);
+    expect((await as.student.json(path())).body.lessons).toEqual(before);
+  });
+});

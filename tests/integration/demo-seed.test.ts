@@ -1,0 +1,51 @@
+// The demo course: idempotent seeding, labs in every state, and attempts that show every recognised
+// mistake, a late attempt and trace uploads (stored in the local object storage).
+import { sql } from "kysely";
+import { describe, expect, it } from "vitest";
+import { db } from "@/db";
+import { seedDemo } from "@/db/seed/demo";
+import { seedStorageFromEnv } from "@/db/seed/storage";
+import { MISTAKE_KEYS } from "@/lib/grader";
+
+describe("the demo seed", () => {
+  it("creates the course, its people and labs in every state, and a second run changes nothing", async () => {
+    await seedDemo(db, { storage: seedStorageFromEnv(process.env) });
+    const count = async () =>
+      (
+        await sql<{ users: number; labs: number; attempts: number; uploads: number }>`
+          select (select count(*)::int from users) users, (select count(*)::int from labs) labs,
+                 (select count(*)::int from attempts) attempts, (select count(*)::int from uploads) uploads`.execute(db)
+      ).rows[0];
+    const first = await count();
+    expect(first.users).toBeGreaterThanOrEqual(44);
+    await seedDemo(db, { storage: seedStorageFromEnv(process.env) });
+    expect(await count()).toEqual(first);
+
+    const roles = await sql<{ role: string; n: number }>`
+      select m.role, count(*)::int n from memberships m join courses c on c.id = m.course_id where c.code = 'ELM-214' group by m.role`.execute(db);
+    const byRole = Object.fromEntries(roles.rows.map((r) => [r.role, r.n]));
+    expect(byRole.instructor).toBe(1);
+    expect(byRole.ta).toBe(2);
+    expect(byRole.student).toBeGreaterThanOrEqual(40);
+
+    const now = new Date();
+    const labs = await db.selectFrom("labs").select(["status", "opens_at", "due_at"]).execute();
+    expect(labs.some((l) => l.status === "draft")).toBe(true);
+    expect(labs.some((l) => l.status === "published" && l.opens_at && l.opens_at > now)).toBe(true); // upcoming
+    expect(labs.some((l) => l.status === "published" && l.due_at && l.due_at < now)).toBe(true); // graded
+    expect(labs.some((l) => l.status === "published" && l.opens_at! < now && l.due_at! > now)).toBe(true); // open
+  });
+
+  it("has attempts showing every recognised mistake, a late attempt and analysed traces", async () => {
+    await seedDemo(db, { storage: seedStorageFromEnv(process.env) });
+    const mistakes = await sql<{ k: string }>`
+      select distinct r->>'mistake' k from attempts a, jsonb_array_elements(a.result->'results') r where r->>'mistake' is not null`.execute(db);
+    expect(mistakes.rows.map((r) => r.k).sort()).toEqual([...MISTAKE_KEYS].sort());
+    const late = await db.selectFrom("attempts").select(["late_days", "penalty_percent", "raw_score", "score"]).where("late_days", ">", 0).execute();
+    expect(late.length).toBeGreaterThan(0);
+    for (const a of late) expect(a.score).toBeCloseTo(a.raw_score * (1 - a.penalty_percent / 100), 6);
+    const traces = await db.selectFrom("uploads").select(["analysis", "sha256"]).where("kind", "=", "trace").execute();
+    expect(traces.length).toBeGreaterThan(0);
+    for (const t of traces) expect((t.analysis as { averageCurrent: number }).averageCurrent).toBeGreaterThan(0);
+  });
+});
