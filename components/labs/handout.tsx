@@ -170,7 +170,7 @@ function formatDate(d: Date | string | null | undefined, timeZone?: string): str
   if (!d) return null;
   const date = d instanceof Date ? d : new Date(d);
   if (Number.isNaN(date.getTime())) return null;
-  return new Intl.DateTimeFormat("en-GB", { dateStyle: "full", timeStyle: "short", timeZone, timeZoneName: "short" }).format(date);
+  return new Intl.DateTimeFormat("en-GB", { weekday: "long", day: "numeric", month: "long", year: "numeric", hour: "2-digit", minute: "2-digit", timeZone, timeZoneName: "short" }).format(date);
 }
 
 const SHOW_EXPECTED: Record<string, string> = {
