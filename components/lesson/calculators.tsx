@@ -176,10 +176,11 @@ export function DutyCycleCalculator() {
   const sane = f.allOk && v.activeTime! > 0 && v.period! > v.activeTime! && v.sleepCurrent! > 0 && v.activeCurrent! > 0;
   const c = sane ? compute("duty-cycle", v as Record<string, number>) : null;
   const average = num(c, "averageCurrent");
+  const ok = c !== null;
+  const { sleepCurrent, activeCurrent, activeTime, period } = v;
   const wave = useMemo(
-    () => (c ? dutyWaveform(v.sleepCurrent!, v.activeCurrent!, v.activeTime!, v.period!) : null),
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-    [c ? `${v.sleepCurrent}|${v.activeCurrent}|${v.activeTime}|${v.period}|${average}` : ""],
+    () => (ok ? dutyWaveform(sleepCurrent!, activeCurrent!, activeTime!, period!) : null),
+    [ok, sleepCurrent, activeCurrent, activeTime, period],
   );
   const series = useMemo(
     () =>
@@ -235,8 +236,9 @@ export function RcStepResponse() {
   const c = sane ? compute("filter-noise", { filterResistance: v.filterResistance!, filterCapacitance: v.filterCapacitance!, shuntResistance: 10e3, temperature: 300 }) : null;
   const tau = num(c, "timeConstant");
   const tp = v.pulseWidth ?? NaN;
+  const ok = c !== null;
   const data = useMemo(() => {
-    if (!c) return null;
+    if (!ok) return null;
     const end = Math.max(8 * tau, 2 * tp);
     const n = 400;
     const x = Array.from({ length: n + 1 }, (_, i) => (end * i) / n);
@@ -244,8 +246,7 @@ export function RcStepResponse() {
     const pulse = x.map((t) => (t <= tp ? 1 - Math.exp(-t / tau) : (1 - Math.exp(-tp / tau)) * Math.exp(-(t - tp) / tau)));
     const input = x.map((t) => (t <= tp ? 1 : 0));
     return { x: x.map((t) => t * 1e3), step, pulse, input };
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [tau, tp, c !== null]);
+  }, [tau, tp, ok]);
   const series = useMemo(
     () =>
       data

@@ -1,0 +1,12 @@
+import nextVitals from "eslint-config-next/core-web-vitals";
+import nextTs from "eslint-config-next/typescript";
+
+const config = [
+  ...nextVitals,
+  ...nextTs,
+  // Tests read loosely typed JSON answers; `any` is allowed there only.
+  { files: ["tests/**"], rules: { "@typescript-eslint/no-explicit-any": "off" } },
+  { ignores: ["node_modules/**", ".next*/**", ".data/**", "next-env.d.ts", "tests/.artifacts/**"] },
+];
+
+export default config;
