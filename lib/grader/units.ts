@@ -233,7 +233,8 @@ export function parseQuantity(text: unknown, unit: string): ParseResult {
           "no-unit",
         );
       }
-      const info = tokenFor(unitText);
+      // a capital K alone is kelvin, except where a resistance is asked for ("4.7K" on a resistor)
+      const info = unitText === "K" && want === "resistance" ? TOKENS.get("kohm") : tokenFor(unitText);
       if (info) {
         if (info.dim !== want) return fail("dimension", dimensionMessage(info.dim, want));
         const v = scale(sign, mantissa, exp, info);

@@ -32,6 +32,8 @@ describe("parseQuantity", () => {
     expect(value("10 ohms", "ohm")).toBe(10);
     expect(value("10k", "ohm")).toBe(10000);
     expect(value("47R", "ohm")).toBe(47);
+    expect(value("4.7K", "ohm")).toBe(4700);
+    expect(value("300 K", "K")).toBe(300);
   });
   it("reads decimal commas, scientific notation and signs", () => {
     expect(value("9,1 mA", "A")).toBe(Number("9.1e-3"));
