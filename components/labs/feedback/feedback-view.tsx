@@ -51,22 +51,28 @@ export function FeedbackView({ attemptId, labId, studentId, studentName, isOwner
   const [attempt, setAttempt] = useState<Load<Attempt>>({ state: "loading" });
   const [history, setHistory] = useState<Load<HistoryItem[]>>({ state: "loading" });
 
-  const loadAttempt = useCallback(async () => {
-    const { status, body } = await getJson<{ attempt: Attempt }>(`/api/attempts/${attemptId}`);
-    if (status === 200 && body?.attempt) setAttempt({ state: "ready", data: body.attempt });
-    else setAttempt({ state: "error", message: loadMessage(status, "this attempt") });
-  }, [attemptId]);
+  const loadAttempt = useCallback(
+    () =>
+      getJson<{ attempt: Attempt }>(`/api/attempts/${attemptId}`).then(({ status, body }) => {
+        if (status === 200 && body?.attempt) setAttempt({ state: "ready", data: body.attempt });
+        else setAttempt({ state: "error", message: loadMessage(status, "this attempt") });
+      }),
+    [attemptId],
+  );
 
   useEffect(() => {
     // Both requests start at once; each state is set when its answer arrives.
-    void loadAttempt();
+    void getJson<{ attempt: Attempt }>(`/api/attempts/${attemptId}`).then(({ status, body }) => {
+      if (status === 200 && body?.attempt) setAttempt({ state: "ready", data: body.attempt });
+      else setAttempt({ state: "error", message: loadMessage(status, "this attempt") });
+    });
     void getJson<{ attempts: HistoryItem[] }>(`/api/labs/${labId}/attempts`).then(({ status, body }) => {
       if (status === 200 && body?.attempts) {
         const mine = body.attempts.filter((a) => !a.studentId || a.studentId === studentId).sort((a, b) => a.number - b.number);
         setHistory({ state: "ready", data: mine });
       } else setHistory({ state: "error", message: loadMessage(status, "the attempt history") });
     });
-  }, [loadAttempt, labId, studentId]);
+  }, [attemptId, labId, studentId]);
 
   return (
     <>
@@ -128,7 +134,7 @@ export function FeedbackView({ attemptId, labId, studentId, studentName, isOwner
         )}
       </section>
 
-      {attempt.state === "ready" ? <Review attempt={attempt.data} isOwner={isOwner} onRequested={loadAttempt} /> : null}
+      {attempt.state === "ready" ? <Review attempt={attempt.data} isOwner={isOwner} onRequested={() => void loadAttempt()} /> : null}
     </>
   );
 }
@@ -249,10 +255,7 @@ function Files({ attempt }: { attempt: Attempt }) {
   const key = attempt.uploadIds.join(",");
   const ids = useMemo(() => (key ? key.split(",") : []), [key]);
   useEffect(() => {
-    if (!ids.length) {
-      setUploads({ state: "ready", data: [] });
-      return;
-    }
+    if (!ids.length) return;
     void Promise.all(ids.map((id) => getJson<{ upload: UploadView }>(`/api/uploads/${id}`))).then((all) => {
       const bad = all.find((a) => a.status !== 200 || !a.body?.upload);
       const data = all.filter((a) => a.status === 200 && a.body?.upload).map((a) => a.body!.upload);

@@ -4,7 +4,7 @@
 // form so that a double click or a retry makes a single attempt.
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
-import { useId, useMemo, useRef, useState } from "react";
+import { useId, useMemo, useRef, useState, type FormEvent } from "react";
 import { useForm, useWatch, type Control, type UseFormRegisterReturn } from "react-hook-form";
 import type { z } from "zod";
 import { attemptInputSchema, type AttemptInput } from "@/lib/validation/labs";
@@ -151,47 +151,48 @@ export function SubmissionForm({ labId, questions, components }: { labId: string
   const readingError = (qid: string) => errors.readings?.[qid]?.message;
   const measuredError = (key: string) => errors.measured?.[key]?.message;
 
-  const onSubmit = handleSubmit(
-    async (values) => {
-      if (inFlight.current || uploading) return;
-      inFlight.current = true;
-      setMessage(null);
-      const body: AttemptInput = {
-        idempotencyKey,
-        readings: toPayload(values.readings),
-        measured: measuredPayload(values.measured ?? {}),
-        uploadIds: [image?.id, trace?.id].filter((x): x is string => Boolean(x)),
-      };
-      let status = 0;
-      let json: unknown = null;
-      try {
-        const res = await fetch(`/api/labs/${labId}/attempts`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
-        status = res.status;
-        json = await res.json().catch(() => null);
-      } catch {
-        status = 0;
-      }
-      if (status === 200 || status === 201) {
-        const attempt = (json as { attempt: { id: string } }).attempt;
-        setSent(true);
-        router.push(`/attempts/${attempt.id}`);
-        return;
-      }
-      inFlight.current = false;
-      const err = apiError(json);
-      const mapped = mapServerFields(err.fields, { readings: questions.map((q) => q.id), measured: components.map((c) => c.key) });
-      for (const f of mapped.fields) setError(f.path as `readings.${string}`, { type: "server", message: f.message });
-      if (mapped.files.length) setFileErrors(mapped.files.join(" "));
-      setMessage([submitErrorMessage(status, err), ...mapped.form.filter((m) => m !== err.message)].join(" "));
-      if (mapped.fields[0]) setFocus(mapped.fields[0].path as `readings.${string}`);
-    },
-    (invalid) => {
-      const names: string[] = [];
-      for (const q of questions) if (invalid.readings?.[q.id]) names.push(q.label);
-      for (const c of components) if (invalid.measured?.[c.key]) names.push(`measured ${c.label.toLowerCase()}`);
-      setMessage(names.length ? `Check ${names.length === 1 ? "this answer" : "these answers"} before submitting: ${names.join("; ")}.` : "Check the form before submitting.");
-    },
-  );
+  const onSubmit = (event: FormEvent<HTMLFormElement>) =>
+    handleSubmit(
+      async (values) => {
+        if (inFlight.current || uploading) return;
+        inFlight.current = true;
+        setMessage(null);
+        const body: AttemptInput = {
+          idempotencyKey,
+          readings: toPayload(values.readings),
+          measured: measuredPayload(values.measured ?? {}),
+          uploadIds: [image?.id, trace?.id].filter((x): x is string => Boolean(x)),
+        };
+        let status = 0;
+        let json: unknown = null;
+        try {
+          const res = await fetch(`/api/labs/${labId}/attempts`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
+          status = res.status;
+          json = await res.json().catch(() => null);
+        } catch {
+          status = 0;
+        }
+        if (status === 200 || status === 201) {
+          const attempt = (json as { attempt: { id: string } }).attempt;
+          setSent(true);
+          router.push(`/attempts/${attempt.id}`);
+          return;
+        }
+        inFlight.current = false;
+        const err = apiError(json);
+        const mapped = mapServerFields(err.fields, { readings: questions.map((q) => q.id), measured: components.map((c) => c.key) });
+        for (const f of mapped.fields) setError(f.path as `readings.${string}`, { type: "server", message: f.message });
+        if (mapped.files.length) setFileErrors(mapped.files.join(" "));
+        setMessage([submitErrorMessage(status, err), ...mapped.form.filter((m) => m !== err.message)].join(" "));
+        if (mapped.fields[0]) setFocus(mapped.fields[0].path as `readings.${string}`);
+      },
+      (invalid) => {
+        const names: string[] = [];
+        for (const q of questions) if (invalid.readings?.[q.id]) names.push(q.label);
+        for (const c of components) if (invalid.measured?.[c.key]) names.push(`measured ${c.label.toLowerCase()}`);
+        setMessage(names.length ? `Check ${names.length === 1 ? "this answer" : "these answers"} before submitting: ${names.join("; ")}.` : "Check the form before submitting.");
+      },
+    )(event);
 
   const submitting = formState.isSubmitting || sent;
 
