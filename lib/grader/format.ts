@@ -138,19 +138,26 @@ export function formatQuantity(value: number, unit: string, opts?: FormatOptions
  * the same parameter values in many steps and questions.
  */
 function memoised(format: (value: number, unit: string, opts?: FormatOptions) => string) {
-  const memo = new Map<string, Map<number, string>>();
+  // unit → display unit ("" for none) → value → text, each map cleared when it reaches the limit
+  const memo = new Map<string, Map<string, Map<number, string>>>();
+  const limit = 1024;
   return (value: number, unit: string, opts?: FormatOptions): string => {
     if (opts && (opts.digits !== undefined || opts.trim !== undefined)) return format(value, unit, opts);
-    const key = opts?.displayUnit ? `${unit}|${opts.displayUnit}` : unit;
-    let m = memo.get(key);
+    let byDisplay = memo.get(unit);
+    if (!byDisplay) {
+      byDisplay = new Map();
+      memo.set(unit, byDisplay);
+    }
+    const display = opts?.displayUnit ?? "";
+    let m = byDisplay.get(display);
     if (!m) {
       m = new Map();
-      memo.set(key, m);
+      byDisplay.set(display, m);
     }
     let out = m.get(value);
     if (out === undefined) {
       out = format(value, unit, opts);
-      if (m.size >= 4096) m.clear();
+      if (m.size >= limit) m.clear();
       m.set(value, out);
     }
     return out;
