@@ -217,31 +217,38 @@ function missing(q: Question, expected: QuantityValue, band: [number, number] | 
   return { quantity: q.quantity, kind: q.kind, verdict: "missing", points: 0, maxPoints: q.points, expected, band, answer: null, method, feedback: "No answer was given.", solution };
 }
 
+function showCategory(v: string): string {
+  return v.replace(/^u/, "µ");
+}
+
 function gradeCategory(t: Template, spec: QuantitySpec, p: Params, q: Question, expected: string, reading: Reading, ev: Evaluator, tag: string): QuestionResult {
   const solution = ev.solution(tag, p, q.quantity);
   const method = "exact match";
-  const base = { quantity: q.quantity, kind: q.kind, expected, band: null, maxPoints: q.points, points: 0, method, solution };
   if (reading === null || reading === undefined || String(reading).trim() === "") return missing(q, expected, null, method, solution);
-  const answer = normaliseCategory(String(reading));
-  const shown = (v: string) => v.replace(/^u/, "µ");
-  solution.push(`\\text{your answer: } \\text{${String(reading).trim().replace(/[µμ]/g, "u").replace(/[^A-Za-z0-9 ]/g, "")}}`);
-  if (answer === normaliseCategory(expected))
-    return { ...base, verdict: "correct", answer: expected, feedback: `Correct: ${shown(expected)}.` };
+  const typed = String(reading).trim();
+  const answer = normaliseCategory(typed);
+  solution.push(`\\text{your answer: } \\text{${typed.replace(/[µμ]/g, "u").replace(/[^A-Za-z0-9 ]/g, "")}}`);
+  const r: QuestionResult = { quantity: q.quantity, kind: q.kind, verdict: "wrong", points: 0, maxPoints: q.points, expected, band: null, answer: typed, method, feedback: "", solution };
+  if (answer === normaliseCategory(expected)) {
+    r.answer = expected;
+    return finish(r, "correct", `Correct: ${showCategory(expected)}.`);
+  }
   for (const c of t.mistakes(p, q.quantity)) {
     if (typeof c.value === "string" && normaliseCategory(c.value) === answer) {
       const m = MISTAKES[c.key];
-      return { ...base, verdict: "mistake", mistake: c.key, answer: c.value, feedback: `${m.title}. ${c.detail ?? m.explain} ${m.fix}` };
+      r.answer = c.value;
+      r.mistake = c.key;
+      return finish(r, "mistake", `${m.title}. ${c.detail ?? m.explain} ${m.fix}`);
     }
   }
   const known = spec.choices?.map(normaliseCategory).includes(answer);
-  return {
-    ...base,
-    verdict: "wrong",
-    answer: String(reading).trim(),
-    feedback: known
-      ? `Not accepted: the answer is ${shown(expected)}. Compare your steps with the worked solution.`
-      : `"${String(reading).trim()}" is not one of the choices (${(spec.choices ?? []).map(shown).join(", ")}); the answer is ${shown(expected)}.`,
-  };
+  return finish(
+    r,
+    "wrong",
+    known
+      ? `Not accepted: the answer is ${showCategory(expected)}. Compare your steps with the worked solution.`
+      : `"${typed}" is not one of the choices (${(spec.choices ?? []).map(showCategory).join(", ")}); the answer is ${showCategory(expected)}.`,
+  );
 }
 
 interface NumberContext {
