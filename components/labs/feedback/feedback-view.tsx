@@ -162,7 +162,7 @@ function Graded({ attempt, typed, solutionHtml, studentName }: { attempt: Attemp
         {!attempt.expectedShown ? (
           <p className="mt-2 text-sm text-ink-soft">This lab does not show the expected values and worked solutions yet; the feedback below says how each answer was judged.</p>
         ) : null}
-        <p className="mt-2 text-xs text-ink-faint">Grader version {attempt.graderVersion}</p>
+        <p className="mt-2 text-xs text-ink-soft">Grader version {attempt.graderVersion}</p>
       </section>
 
       <section aria-labelledby="questions-heading" className="mt-6">
