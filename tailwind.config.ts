@@ -8,7 +8,7 @@ const config: Config = {
     extend: {
       colors: {
         paper: { DEFAULT: "#f7f5f0", raised: "#ffffff", sunk: "#eeeae1" },
-        ink: { DEFAULT: "#1d232b", soft: "#46505c", faint: "#7a828c" },
+        ink: { DEFAULT: "#1d232b", soft: "#46505c", faint: "#5d6570" },
         copper: { DEFAULT: "#a4532c", light: "#d9915f", pale: "#f6e6da", dark: "#7a3a1c" },
         trace: { DEFAULT: "#1f5f8b", pale: "#e1edf6" },
         verdict: {
