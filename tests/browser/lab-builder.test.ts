@@ -30,6 +30,11 @@ async function openCourse(page: Page): Promise<string> {
   return new URL(page.url()).pathname.split("/")[2];
 }
 
+/** The builder's form is hydrated (typing before that could be overwritten). */
+async function builderReady(page: Page): Promise<void> {
+  await page.locator('form[data-ready="true"]').waitFor({ timeout: 20_000 });
+}
+
 async function valuesTable(page: Page): Promise<string> {
   const table = page.getByTestId("handout-values");
   await table.waitFor();
@@ -45,6 +50,7 @@ describe("lab builder (flow 2)", () => {
       await page.goto(`/courses/${courseId}/labs`);
       await page.getByRole("link", { name: "New lab" }).click();
       await page.waitForURL(/\/labs\/new$/);
+      await builderReady(page);
 
       // Nothing typed yet: the form says what is missing, in place.
       await page.getByRole("button", { name: "Save draft" }).click();
@@ -124,6 +130,7 @@ describe("lab builder (flow 2)", () => {
       // Back to the builder, publish.
       await page.getByRole("link", { name: "Back to editing" }).click();
       await page.waitForURL(/\/edit$/);
+      await builderReady(page);
       expect(await page.getByLabel("Title", { exact: true }).inputValue()).toBe(title);
       expect(await page.getByRole("group", { name: "Load resistance" }).getByLabel("Largest value").inputValue()).toBe("47 kΩ");
       await page.getByRole("button", { name: "Publish" }).click();
@@ -172,11 +179,14 @@ describe("lab builder (flow 2)", () => {
     try {
       await signIn(page, demo.instructor);
       await page.goto(`/labs/${labId}/edit`);
+      await builderReady(page);
       await page.getByText("Published, with 1 attempt.").waitFor();
       // A title change alone recomputes nothing.
       await page.getByLabel("Title", { exact: true }).fill(`${title} (v2)`);
       await page.getByRole("button", { name: "Save changes" }).click();
-      await page.getByRole("status").filter({ hasText: /^Saved at/ }).waitFor();
+      const outcome = page.locator('[role="status"], [role="alert"], [role="alertdialog"]').filter({ hasText: /Saved at|Not saved|Recompute|Nothing has changed/ });
+      await outcome.first().waitFor();
+      expect(await outcome.first().innerText()).toMatch(/^Saved at/);
       expect(await page.getByRole("alertdialog").count()).toBe(0);
 
       await page.getByRole("group", { name: "Question 1" }).getByLabel("Points").fill("3");

@@ -77,6 +77,8 @@ export function LabBuilder({ courseId, lab, notice }: LabBuilderProps) {
   const [confirm, setConfirm] = useState<{ input: LabInput; intent: Intent } | null>(null);
   const [regrade, setRegrade] = useState<{ id: string; total: number } | null>(null);
   const [busy, setBusy] = useState(false);
+  // Until the form is hydrated a click would submit it natively (a page reload), so the buttons wait.
+  const [hydrated, setHydrated] = useState(false);
   const intent = useRef<Intent>("draft");
   // What was last saved, as the form would send it: only fields that differ from it are PATCHed.
   const baseline = useRef<LabInput | null>(null);
@@ -85,6 +87,7 @@ export function LabBuilder({ courseId, lab, notice }: LabBuilderProps) {
 
   useEffect(() => {
     setTimeZone(Intl.DateTimeFormat().resolvedOptions().timeZone);
+    setHydrated(true);
     if (lab) {
       setValue("opensAt", toLocalInput(lab.input.opensAt));
       setValue("dueAt", toLocalInput(lab.input.dueAt));
@@ -205,7 +208,7 @@ export function LabBuilder({ courseId, lab, notice }: LabBuilderProps) {
 
   return (
     <FormProvider {...methods}>
-      <form noValidate onSubmit={handleSubmit(onValid, onInvalid)} aria-label={lab ? "Edit the lab" : "New lab"} className="grid gap-6">
+      <form noValidate data-ready={hydrated ? "true" : undefined} onSubmit={handleSubmit(onValid, onInvalid)} aria-label={lab ? "Edit the lab" : "New lab"} className="grid gap-6">
         <div ref={messageRef} tabIndex={-1} className="outline-none">
           <div
             role={message?.tone === "error" ? "alert" : "status"}
@@ -352,14 +355,14 @@ export function LabBuilder({ courseId, lab, notice }: LabBuilderProps) {
         ) : null}
 
         <div className="flex flex-wrap items-center gap-3">
-          <button type="submit" className="btn-quiet" disabled={busy} onClick={() => (intent.current = "draft")}>
+          <button type="submit" className="btn-quiet" disabled={busy || !hydrated} onClick={() => (intent.current = "draft")}>
             {submitLabel}
           </button>
-          <button type="submit" className="btn-quiet" disabled={busy} onClick={() => (intent.current = "preview")}>
+          <button type="submit" className="btn-quiet" disabled={busy || !hydrated} onClick={() => (intent.current = "preview")}>
             Save and preview
           </button>
           {status === "draft" ? (
-            <button type="submit" className="btn-primary" disabled={busy} onClick={() => (intent.current = "publish")}>
+            <button type="submit" className="btn-primary" disabled={busy || !hydrated} onClick={() => (intent.current = "publish")}>
               Publish
             </button>
           ) : null}
