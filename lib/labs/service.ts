@@ -159,6 +159,8 @@ export function presentAttempt(attempt: AttemptRow, lab: Lab, viewerIsStaff: boo
     params: stored.params,
     results: presentResults(lab.templateKey, stored, show),
     uploadIds: attempt.uploadIds,
+    /** what the student typed, as typed */
+    typed: { readings: attempt.readings as Record<string, string | null>, measured: ((attempt.measured as { typed?: Record<string, string | null> }).typed ?? {}) },
     reviewRequestedAt: attempt.reviewRequestedAt,
     reviewMessage: attempt.reviewMessage,
   };
@@ -166,9 +168,10 @@ export function presentAttempt(attempt: AttemptRow, lab: Lab, viewerIsStaff: boo
 
 export type PresentedAttempt = ReturnType<typeof presentAttempt>;
 
-export async function attemptsFor(lab: Lab, access: CourseAccess, now = new Date()) {
+/** A student's own attempts; for staff every attempt, or one student's when `studentId` is given. */
+export async function attemptsFor(lab: Lab, access: CourseAccess, now = new Date(), studentId?: string) {
   const staff = isStaff(access.role);
-  const rows = await listAttempts(db, lab.id, staff ? undefined : access.user.id);
+  const rows = await listAttempts(db, lab.id, staff ? studentId : access.user.id);
   return rows.map((r) => ({ ...presentAttempt(r, lab, staff, now), studentId: r.userId, studentName: r.studentName }));
 }
 

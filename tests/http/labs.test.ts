@@ -266,6 +266,12 @@ describe("who can read attempts", () => {
     expect((await as.student2.json(`/api/labs/${id}/attempts`)).body.attempts).toHaveLength(0);
     const all = await as.ta.json(`/api/labs/${id}/attempts`);
     expect(all.body.attempts.map((a: { id: string }) => a.id)).toContain(attemptId);
+    const one = await as.ta.json(`/api/labs/${id}/attempts?userId=${f.people.student.id}`);
+    expect(one.body.attempts.map((a: { studentId: string }) => a.studentId)).toEqual([f.people.student.id]);
+    expect((await as.ta.json(`/api/labs/${id}/attempts?userId=nope`)).status).toBe(400);
+    // a student cannot widen their view with the filter
+    const sneaky = await as.student2.json(`/api/labs/${id}/attempts?userId=${f.people.student.id}`);
+    expect(sneaky.body.attempts).toHaveLength(0);
   });
 
   it("hides expected values from students until the due date when the lab says so", async () => {

@@ -4,13 +4,19 @@ import { json, jsonBody, route } from "@/lib/api";
 import { isStaff } from "@/lib/auth/access";
 import { attemptsFor, labAccess, presentAttempt, submitAttempt } from "@/lib/labs/service";
 import { attemptInputSchema } from "@/lib/validation/labs";
+import { uuidSchema } from "@/lib/validation/members";
+import { AppError } from "@/lib/errors";
 
 type Params = { labId: string };
 
-// A student's own attempts; every attempt for the course staff.
-export const GET = route<Params>(async (_req, { labId }) => {
+// A student's own attempts; every attempt for the course staff (or one student's with ?userId=).
+export const GET = route<Params>(async (req, { labId }) => {
   const { lab, access } = await labAccess(labId);
-  return json({ attempts: await attemptsFor(lab, access) });
+  const userId = new URL(req.url).searchParams.get("userId");
+  if (userId !== null && !uuidSchema.safeParse(userId).success) {
+    throw new AppError("bad_request", "userId must be a user's id.", { userId: ["Not a user id."] });
+  }
+  return json({ attempts: await attemptsFor(lab, access, new Date(), userId ?? undefined) });
 });
 
 // Submits bench readings and grades them at once. A retry with the same idempotency key answers 200
