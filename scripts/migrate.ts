@@ -2,16 +2,11 @@
 // `npm run db:migrate -- down` undoes the last one.
 import { createDb } from "../db";
 import { migrateToLatest, migrator } from "../db/migrator";
-import { databaseUrl, serviceConfig } from "./lib/config";
-import { ensurePostgres } from "./lib/postgres";
+import { serviceConfig } from "./lib/config";
+import { localDatabaseUrl } from "./lib/postgres";
 
 async function main() {
-  let url = process.env.DATABASE_URL;
-  if (!url) {
-    const cfg = serviceConfig("dev");
-    await ensurePostgres(cfg);
-    url = databaseUrl(cfg, cfg.databases[0]);
-  }
+  const url = await localDatabaseUrl(serviceConfig("dev"));
   const db = createDb(url, 2);
   try {
     if (process.argv[2] === "down") {

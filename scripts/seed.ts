@@ -1,16 +1,11 @@
 // `npm run db:seed`: adds the demo course to the database at DATABASE_URL (or the local one).
 import { createDb } from "../db";
 import { seedDemo } from "../db/seed/demo";
-import { databaseUrl, serviceConfig } from "./lib/config";
-import { ensurePostgres } from "./lib/postgres";
+import { serviceConfig } from "./lib/config";
+import { localDatabaseUrl } from "./lib/postgres";
 
 async function main() {
-  let url = process.env.DATABASE_URL;
-  if (!url) {
-    const cfg = serviceConfig("dev");
-    await ensurePostgres(cfg);
-    url = databaseUrl(cfg, cfg.databases[0]);
-  }
+  const url = await localDatabaseUrl(serviceConfig("dev"));
   const db = createDb(url, 2);
   try {
     await seedDemo(db);

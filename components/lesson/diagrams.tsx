@@ -2,15 +2,9 @@
 // Drawn from plain primitives so they print crisply; reused by the lab handouts through
 // <CircuitDiagram template="…" />. Server-safe: no hooks, no client code.
 import type { ReactNode } from "react";
+import type { TemplateKey } from "@/lib/grader";
 
-export type DiagramTemplate =
-  | "shunt-burden"
-  | "shunt-selection"
-  | "range-resolution"
-  | "duty-cycle"
-  | "bidirectional-offset"
-  | "filter-noise"
-  | "uncertainty";
+export type DiagramTemplate = TemplateKey;
 
 const INK = "currentColor";
 const COPPER = "#a4532c";

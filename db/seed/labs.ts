@@ -4,8 +4,7 @@
 import crypto from "node:crypto";
 import type { Kysely } from "kysely";
 import { drawVariant, formatQuantity, MISTAKE_KEYS, seededRandom, templates, type MistakeKey, type Params, type TemplateKey, type VariantSpec } from "../../lib/grader";
-import { gradeForLab, toLab, withIds, type TraceSummary } from "../../lib/labs/grading";
-import { applyPenalty, latePenaltyPercent, lateDays } from "../../lib/labs/policy";
+import { attemptRecord, gradeForLab, toLab, withIds, type TraceSummary } from "../../lib/labs/grading";
 import { analyzeTrace, squareWaveCsv } from "../../lib/trace";
 import { findLab, insertLab } from "../queries/labs";
 import { insertAttempt } from "../queries/attempts";
@@ -366,26 +365,10 @@ export async function seedLabs(
         // one student in each graded lab submits a day and a half late
         const late = demo.state === "graded" && si2 === 7 && n === 1;
         const submittedAt = new Date((late ? lab.dueAt!.getTime() + 1.5 * DAY : (lab.opensAt?.getTime() ?? now) + (1 + r() * 5) * DAY + n * 3600_000));
-        const days = lateDays(lab, submittedAt);
-        const penalty = latePenaltyPercent(lab, days);
-        await insertAttempt(db, {
-          labId: lab.id,
-          userId: student.id,
-          number: n,
-          idempotencyKey: `demo-${n}`,
-          readings,
-          measured: { typed: {}, values: {} },
-          uploadIds,
-          result: { ...result, params },
-          rawScore: result.score,
-          maxScore: result.maxScore,
-          lateDays: days,
-          penaltyPercent: penalty,
-          score: applyPenalty(result.score, penalty),
-          graderVersion: result.graderVersion,
-          labVersion: lab.version,
-          submittedAt,
-        });
+        await insertAttempt(
+          db,
+          attemptRecord({ lab, userId: student.id, number: n, idempotencyKey: `demo-${n}`, readings, measured: { typed: {}, values: {} }, uploadIds, params, result, submittedAt }),
+        );
       }
     }
   }

@@ -15,7 +15,7 @@ import {
   type TemplateKey,
   type VariantSpec,
 } from "@/lib/grader";
-import type { LabRules } from "./policy";
+import { applyPenalty, latePenaltyPercent, lateDays, type LabRules } from "./policy";
 import type { StoredResult } from "./present";
 
 export interface Lab extends LabRules {
@@ -121,3 +121,38 @@ export function gradeForLab(lab: Lab, params: Params, readings: Record<string, s
   return stored;
 }
 
+
+/** The row to store for a graded attempt: the grade, the late penalty at `submittedAt`, the final score. */
+export function attemptRecord(a: {
+  lab: Lab;
+  userId: string;
+  number: number;
+  idempotencyKey: string;
+  readings: Record<string, string | null>;
+  measured: { typed: Record<string, string | null>; values: Params };
+  uploadIds: string[];
+  params: Params;
+  result: StoredResult;
+  submittedAt: Date;
+}) {
+  const days = lateDays(a.lab, a.submittedAt);
+  const penalty = latePenaltyPercent(a.lab, days);
+  return {
+    labId: a.lab.id,
+    userId: a.userId,
+    number: a.number,
+    idempotencyKey: a.idempotencyKey,
+    readings: a.readings,
+    measured: a.measured,
+    uploadIds: a.uploadIds,
+    result: { ...a.result, params: a.params },
+    rawScore: a.result.score,
+    maxScore: a.result.maxScore,
+    lateDays: days,
+    penaltyPercent: penalty,
+    score: applyPenalty(a.result.score, penalty),
+    graderVersion: a.result.graderVersion,
+    labVersion: a.lab.version,
+    submittedAt: a.submittedAt,
+  };
+}

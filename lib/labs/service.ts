@@ -18,8 +18,8 @@ import { findUploads } from "@/db/queries/uploads";
 import { EVERYONE, isStaff, requireCourseRole, type CourseAccess } from "@/lib/auth/access";
 import { AppError, notFound } from "@/lib/errors";
 import { drawVariant, type Params } from "@/lib/grader";
-import { gradeForLab, parseMeasured, toLab, withIds, type Lab, type TraceSummary } from "./grading";
-import { applyPenalty, expectedVisible, isOpen, latePenaltyPercent, lateDays } from "./policy";
+import { attemptRecord, gradeForLab, parseMeasured, toLab, withIds, type Lab, type TraceSummary } from "./grading";
+import { expectedVisible, isOpen } from "./policy";
 import { presentResults, type StoredResult } from "./present";
 
 export { gradeForLab, parseMeasured, policyFor, toLab, withIds, type Lab } from "./grading";
@@ -94,26 +94,21 @@ export async function submitAttempt(lab: Lab, access: CourseAccess, input: Submi
     }
     const params = await variantForTrx(trx, lab, userId);
     const result = gradeForLab(lab, params, input.readings, measured, traces);
-    const days = lateDays(lab, now);
-    const penalty = latePenaltyPercent(lab, days);
-    const attemptId = await insertAttempt(trx, {
-      labId: lab.id,
-      userId,
-      number: used + 1,
-      idempotencyKey: input.idempotencyKey,
-      readings: input.readings,
-      measured: { typed: input.measured, values: measured },
-      uploadIds: input.uploadIds,
-      result: { ...result, params },
-      rawScore: result.score,
-      maxScore: result.maxScore,
-      lateDays: days,
-      penaltyPercent: penalty,
-      score: applyPenalty(result.score, penalty),
-      graderVersion: result.graderVersion,
-      labVersion: lab.version,
-      submittedAt: now,
-    });
+    const attemptId = await insertAttempt(
+      trx,
+      attemptRecord({
+        lab,
+        userId,
+        number: used + 1,
+        idempotencyKey: input.idempotencyKey,
+        readings: input.readings,
+        measured: { typed: input.measured, values: measured },
+        uploadIds: input.uploadIds,
+        params,
+        result,
+        submittedAt: now,
+      }),
+    );
     return { attemptId, created: true };
   });
 }

@@ -139,3 +139,10 @@ export function stopPostgres(cfg: ServiceConfig): boolean {
   if (r.status !== 0) throw new Error(`pg_ctl stop failed:\n${r.out}`);
   return true;
 }
+
+/** DATABASE_URL when set; otherwise the project's own demo database, started if need be. */
+export async function localDatabaseUrl(cfg: ServiceConfig): Promise<string> {
+  if (process.env.DATABASE_URL) return process.env.DATABASE_URL;
+  await ensurePostgres(cfg);
+  return databaseUrl(cfg, cfg.databases[0]);
+}
