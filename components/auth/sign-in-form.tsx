@@ -21,7 +21,6 @@ export function SignInForm({ next }: { next?: string }) {
       return;
     }
     // A full navigation, so no page prefetched while signed out is reused.
-    // eslint-disable-next-line @next/next/no-location-assign-relative-destination
     window.location.assign(next && next.startsWith("/") && !next.startsWith("//") ? next : "/");
   });
 
