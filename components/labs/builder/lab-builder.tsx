@@ -56,6 +56,14 @@ export interface LabBuilderProps {
 type Intent = "draft" | "preview" | "publish";
 type ApiError = { error?: { code?: string; message?: string; fields?: Record<string, string[]> } };
 
+/**
+ * Sent with every PATCH: the API's patch schema fills in defaults for absent instructions, safety notes
+ * and policy, which would otherwise erase them (see the report); sending the current values keeps them.
+ */
+function alwaysSent(input: LabInput): Pick<LabInput, "instructions" | "safetyNotes" | "policy"> {
+  return { instructions: input.instructions, safetyNotes: input.safetyNotes, policy: input.policy };
+}
+
 function withoutDates(input: StoredLabInput): StoredLabInput {
   return { ...input, opensAt: null, dueAt: null };
 }
@@ -146,7 +154,7 @@ export function LabBuilder({ courseId, lab, notice }: LabBuilderProps) {
         if (!created.ok) return;
         const id = (created.data.lab as { id: string }).id;
         if (how === "publish") {
-          const published = await send(`/api/labs/${id}`, "PATCH", { status: "published" });
+          const published = await send(`/api/labs/${id}`, "PATCH", { ...alwaysSent(input), status: "published" });
           if (!published.ok) {
             router.push(`/labs/${id}/edit?notice=draft-saved`);
             return;
@@ -158,8 +166,9 @@ export function LabBuilder({ courseId, lab, notice }: LabBuilderProps) {
         return;
       }
       const before = baseline.current ?? formToInput(inputToForm(lab.input), kept).input;
-      const patch: Record<string, unknown> = { ...changedFields(before, input) };
-      if (how === "publish" && status === "draft") patch.status = "published";
+      const changed: Record<string, unknown> = { ...changedFields(before, input) };
+      if (how === "publish" && status === "draft") changed.status = "published";
+      const patch = Object.keys(changed).length > 0 ? { ...alwaysSent(input), ...changed } : changed;
       if (Object.keys(patch).length > 0) {
         const saved = await send(`/api/labs/${lab.id}`, "PATCH", patch);
         if (!saved.ok) return;
@@ -181,7 +190,7 @@ export function LabBuilder({ courseId, lab, notice }: LabBuilderProps) {
         router.push(`/courses/${courseId}/labs?notice=published`);
         return;
       }
-      say("info", Object.keys(patch).length ? `Saved at ${new Date().toLocaleTimeString([], { hour: "2-digit", minute: "2-digit" })}.` : "Nothing has changed since the last save.");
+      say("info", Object.keys(changed).length ? `Saved at ${new Date().toLocaleTimeString([], { hour: "2-digit", minute: "2-digit" })}.` : "Nothing has changed since the last save.");
       router.refresh();
     } finally {
       setBusy(false);
@@ -192,7 +201,10 @@ export function LabBuilder({ courseId, lab, notice }: LabBuilderProps) {
     const how = intent.current;
     if (lab && status === "published" && attempts > 0) {
       const before = baseline.current ?? formToInput(inputToForm(lab.input), kept).input;
-      if (changesGrades(changedFields(before, input))) {
+      const changed = changedFields(before, input);
+      // The API currently recomputes on every save of a published lab with attempts (see the report on
+      // labPatchSchema), so any change is confirmed first, not only those that affect grading.
+      if (Object.keys(changed).length > 0 || changesGrades(changed)) {
         setConfirm({ input, intent: how });
         return;
       }
@@ -223,9 +235,8 @@ export function LabBuilder({ courseId, lab, notice }: LabBuilderProps) {
 
         {lab && status === "published" && attempts > 0 ? (
           <p className="caution-box m-0" role="note">
-            <strong>Published, with {attempts} attempt{attempts === 1 ? "" : "s"}.</strong> Changing the circuit values, questions,
-            tolerances or late rules recomputes the grades of every attempt. Titles, dates, attempts allowed, instructions and safety
-            notes can change without a regrade.
+            <strong>Published, with {attempts} attempt{attempts === 1 ? "" : "s"}.</strong> Saving changes recomputes the grades of every
+            attempt; you are asked to confirm first. Late penalties already applied are kept.
           </p>
         ) : null}
 
