@@ -8,12 +8,35 @@ import { updateLab } from "@/db/queries/labs";
 import { sql } from "kysely";
 import { AppError } from "@/lib/errors";
 import { enqueue, QUEUES } from "@/lib/jobs";
-import { labInputSchema, labPatchSchema } from "@/lib/validation/labs";
+import { gradePolicySchema } from "@/lib/grader";
+import { labInputSchema, labPatchSchema, type LabData } from "@/lib/validation/labs";
 import { parseOr400 } from "@/lib/validation/zod-errors";
 import { startRegrade } from "./regrade";
 import { type Lab, withIds } from "./grading";
 
-const GRADING_FIELDS = ["spec", "questions", "policy", "latePenaltyPercentPerDay", "lateFloorPercent", "templateKey"] as const;
+/** JSON with object keys sorted, so equal values give equal text whatever order their keys came in. */
+function stableJson(v: unknown): string {
+  if (Array.isArray(v)) return `[${v.map(stableJson).join(",")}]`;
+  if (v && typeof v === "object" && !(v instanceof Date)) {
+    return `{${Object.keys(v)
+      .filter((k) => (v as Record<string, unknown>)[k] !== undefined)
+      .sort()
+      .map((k) => `${JSON.stringify(k)}:${stableJson((v as Record<string, unknown>)[k])}`)
+      .join(",")}}`;
+  }
+  return JSON.stringify(v);
+}
+
+/** Everything a grade depends on, normalised: a PATCH that leaves it unchanged recomputes nothing. */
+function gradingKey(l: LabData): string {
+  return stableJson({
+    templateKey: l.templateKey,
+    spec: l.spec,
+    questions: withIds(l.questions),
+    policy: gradePolicySchema.parse(l.policy ?? {}),
+    late: [l.latePenaltyPercentPerDay, l.lateFloorPercent],
+  });
+}
 
 export function labAsInput(lab: Lab) {
   return {
@@ -53,7 +76,7 @@ export async function editLab(lab: Lab, body: unknown): Promise<{ regrade: { id:
   if (status === "draft" && lab.status === "published" && attempts > 0) {
     throw new AppError("conflict", "A lab with attempts cannot go back to draft.", { status: ["A lab with attempts cannot go back to draft."] });
   }
-  const gradingChanged = GRADING_FIELDS.some((k) => k in fields && JSON.stringify((fields as Record<string, unknown>)[k]) !== JSON.stringify((labAsInput(lab) as Record<string, unknown>)[k]));
+  const gradingChanged = gradingKey(merged) !== gradingKey(parseOr400(labInputSchema, labAsInput(lab)));
   const recompute = gradingChanged && lab.status === "published" && attempts > 0;
 
   const changed: Record<string, unknown> = {};

@@ -322,6 +322,26 @@ describe("editing a published lab with attempts", () => {
   });
 });
 
+describe("editing without changing the grading", () => {
+  it("recomputes nothing when only the wording changes, even if the grading fields are sent back as they were", async () => {
+    const id = await publishedLab();
+    await as.student.post(`/api/labs/${id}/attempts`, { idempotencyKey: key(), readings: {} });
+    const lab = (await as.instructor.json(`/api/labs/${id}`)).body.lab;
+    // the same questions and policy, keys in another order and the policy's defaults spelled out
+    const questions = lab.questions.map((q: Record<string, unknown>) => Object.fromEntries(Object.entries(q).reverse()));
+    const policy = { closeCredit: 0.5, closeMultiple: 2, ...lab.policy };
+    const r = await as.instructor.json(`/api/labs/${id}`, {
+      method: "PATCH",
+      headers: { "content-type": "application/json" },
+      body: JSON.stringify({ title: "Burden check (reworded)", instructions: "Measure it carefully.", questions, policy }),
+    });
+    expect(r.status).toBe(200);
+    expect(r.body.regrade).toBeNull();
+    expect(r.body.lab.version).toBe(1);
+    expect(r.body.lab.title).toBe("Burden check (reworded)");
+  });
+});
+
 describe("uploads", () => {
   async function upload(c: Client, labId: string, bytes: Uint8Array, name: string, type = "application/octet-stream") {
     const form = new FormData();
