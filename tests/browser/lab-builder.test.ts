@@ -184,6 +184,13 @@ describe("lab builder (flow 2)", () => {
       await page.goto(`/labs/${labId}/edit`);
       await builderReady(page);
       await page.getByText("Published, with 1 attempt.").waitFor();
+      // A title change alone recomputes nothing and asks nothing.
+      await page.getByLabel("Title", { exact: true }).fill(`${title} (v2)`);
+      await page.getByRole("button", { name: "Save changes" }).click();
+      await page.getByRole("status").filter({ hasText: /^Saved at/ }).waitFor();
+      expect(await page.getByRole("alertdialog").count()).toBe(0);
+      expect(await page.getByRole("progressbar").count()).toBe(0);
+
       await page.getByRole("group", { name: "Question 1" }).getByLabel("Points").fill("3");
       await page.getByRole("button", { name: "Save changes" }).click();
       const dialog = page.getByRole("alertdialog", { name: "Recompute grades?" });

@@ -201,10 +201,7 @@ export function LabBuilder({ courseId, lab, notice }: LabBuilderProps) {
     const how = intent.current;
     if (lab && status === "published" && attempts > 0) {
       const before = baseline.current ?? formToInput(inputToForm(lab.input), kept).input;
-      const changed = changedFields(before, input);
-      // The API currently recomputes on every save of a published lab with attempts (see the report on
-      // labPatchSchema), so any change is confirmed first, not only those that affect grading.
-      if (Object.keys(changed).length > 0 || changesGrades(changed)) {
+      if (changesGrades(changedFields(before, input))) {
         setConfirm({ input, intent: how });
         return;
       }
@@ -235,8 +232,9 @@ export function LabBuilder({ courseId, lab, notice }: LabBuilderProps) {
 
         {lab && status === "published" && attempts > 0 ? (
           <p className="caution-box m-0" role="note">
-            <strong>Published, with {attempts} attempt{attempts === 1 ? "" : "s"}.</strong> Saving changes recomputes the grades of every
-            attempt; you are asked to confirm first. Late penalties already applied are kept.
+            <strong>Published, with {attempts} attempt{attempts === 1 ? "" : "s"}.</strong> Changing the circuit values, questions,
+            tolerances or late rules recomputes the grades of every attempt (you are asked first). Titles, dates, attempts allowed,
+            instructions and safety notes change without a regrade.
           </p>
         ) : null}
 
