@@ -62,6 +62,12 @@ export async function countAttempts(db: Db, labId: string, userId: string): Prom
   return r.n;
 }
 
+/** Every attempt of a lab, all students together. */
+export async function countLabAttempts(db: Db, labId: string): Promise<number> {
+  const r = await db.selectFrom("attempts").select(sql<number>`count(*)::int`.as("n")).where("lab_id", "=", labId).executeTakeFirstOrThrow();
+  return r.n;
+}
+
 /** Serialises submissions of one student to one lab for the rest of the transaction. */
 export async function lockStudentLab(trx: Transaction<Database>, labId: string, userId: string) {
   await sql`select pg_advisory_xact_lock(hashtext(${labId}), hashtext(${userId}))`.execute(trx);

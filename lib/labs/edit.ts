@@ -3,9 +3,8 @@
 // with attempts bump its version and recompute every attempt in a background job.
 import "server-only";
 import { db } from "@/db";
-import { countAttempts } from "@/db/queries/attempts";
+import { countLabAttempts } from "@/db/queries/attempts";
 import { updateLab } from "@/db/queries/labs";
-import { sql } from "kysely";
 import { AppError } from "@/lib/errors";
 import { enqueue, QUEUES } from "@/lib/jobs";
 import { gradePolicySchema } from "@/lib/grader";
@@ -57,16 +56,12 @@ export function labAsInput(lab: Lab) {
   };
 }
 
-async function attemptsOf(labId: string): Promise<number> {
-  const r = await db.selectFrom("attempts").select(sql<number>`count(*)::int`.as("n")).where("lab_id", "=", labId).executeTakeFirstOrThrow();
-  return r.n;
-}
 
 export async function editLab(lab: Lab, body: unknown): Promise<{ regrade: { id: string; total: number } | null }> {
   const patch = parseOr400(labPatchSchema, body) as Record<string, unknown> & { status?: "draft" | "published" };
   const { status, ...fields } = patch;
   const merged = parseOr400(labInputSchema, { ...labAsInput(lab), ...fields });
-  const attempts = await attemptsOf(lab.id);
+  const attempts = await countLabAttempts(db, lab.id);
 
   if (fields.templateKey !== undefined && merged.templateKey !== lab.templateKey && attempts > 0) {
     throw new AppError("conflict", "Students have already submitted attempts, so the circuit template can no longer change.", {
@@ -90,4 +85,3 @@ export async function editLab(lab: Lab, body: unknown): Promise<{ regrade: { id:
   return { regrade };
 }
 
-export { countAttempts };

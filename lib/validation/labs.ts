@@ -56,9 +56,16 @@ export const labInputSchema = z.object(labFields).superRefine(checkLab);
 export type LabInput = z.input<typeof labInputSchema>;
 export type LabData = z.output<typeof labInputSchema>;
 
-/** PATCH: any subset of the fields, plus publishing. */
+/** PATCH: any subset of the fields, plus publishing. No defaults here: a field left out stays as it is. */
+const WITH_DEFAULTS = new Set(["policy", "instructions", "safetyNotes"]);
 export const labPatchSchema = z
-  .object({ ...Object.fromEntries(Object.entries(labFields).map(([k, v]) => [k, v.optional()])), status: z.enum(["draft", "published"]).optional() })
+  .object({
+    ...Object.fromEntries(Object.entries(labFields).filter(([k]) => !WITH_DEFAULTS.has(k)).map(([k, v]) => [k, v.optional()])),
+    policy: gradePolicySchema.partial().optional(),
+    instructions: z.string().max(20_000, "Use at most 20,000 characters.").optional(),
+    safetyNotes: z.string().max(5_000, "Use at most 5,000 characters.").optional(),
+    status: z.enum(["draft", "published"]).optional(),
+  })
   .strict();
 
 export const attemptInputSchema = z.object({

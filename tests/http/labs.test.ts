@@ -115,6 +115,11 @@ describe("templates and lab authoring", () => {
     const seen = await as.student.json(`/api/labs/${id}`);
     expect(seen.status).toBe(200);
     expect(seen.body.lab.spec).toBeUndefined(); // students do not get the draw ranges
+    // publishing alone changes nothing else: instructions, cautions and policy stay
+    expect(seen.body.lab.instructions).toBe("Measure it.");
+    expect(seen.body.lab.safetyNotes).toBe("Set the current limit first.");
+    const staff = await as.instructor.json(`/api/labs/${id}`);
+    expect(staff.body.lab.policy).toEqual({ relativeTolerance: 0.01 });
   });
 });
 

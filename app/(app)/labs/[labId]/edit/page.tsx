@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { sql } from "kysely";
 import { db } from "@/db";
+import { countLabAttempts } from "@/db/queries/attempts";
 import { forPage, refused } from "@/lib/auth/access";
 import { labAsInput } from "@/lib/labs/edit";
 import { latestRegrade } from "@/lib/labs/regrade";
@@ -23,11 +23,7 @@ export default async function EditLabPage({ params, searchParams }: { params: Pr
   const found = await forPage(labAccess(labId, ["instructor"]), `/labs/${labId}/edit`);
   if (refused(found)) return <Refusal message="Only the course's instructors build and edit labs." backHref="/" />;
   const { lab } = found;
-  const { n: attemptCount } = await db
-    .selectFrom("attempts")
-    .select(sql<number>`count(*)::int`.as("n"))
-    .where("lab_id", "=", lab.id)
-    .executeTakeFirstOrThrow();
+  const attemptCount = await countLabAttempts(db, lab.id);
   const regrade = await latestRegrade(lab.id);
   const running = regrade && (regrade.status === "queued" || regrade.status === "running") ? regrade : null;
   const input = JSON.parse(JSON.stringify(labAsInput(lab))) as StoredLabInput;
