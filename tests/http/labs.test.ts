@@ -119,7 +119,7 @@ describe("templates and lab authoring", () => {
     expect(seen.body.lab.instructions).toBe("Measure it.");
     expect(seen.body.lab.safetyNotes).toBe("Set the current limit first.");
     const staff = await as.instructor.json(`/api/labs/${id}`);
-    expect(staff.body.lab.policy).toEqual({ relativeTolerance: 0.01 });
+    expect(staff.body.lab.policy).toMatchObject({ relativeTolerance: 0.01 });
   });
 });
 
