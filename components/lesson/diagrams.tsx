@@ -229,7 +229,8 @@ const specs: Record<DiagramTemplate, Spec> = {
         <Wire d="M230,130 L230,165 L40,165 L40,114" />
         <rect x={275} y={60} width={80} height={80} fill="white" stroke={TRACE} strokeWidth={1} />
         <Wire d="M280,128 L292,128 L292,72 L298,72 L298,128 L330,128 L330,72 L336,72 L336,128 L350,128" thin color={TRACE} />
-        <Label x={315} y={154} size={10}>i(t): I_a for t_a, I_s otherwise</Label>
+        <Label x={315} y={153} size={10}>i(t): I_a for t_a,</Label>
+        <Label x={315} y={165} size={10}>I_s otherwise</Label>
         <Label x={314} y={54} size={10}>period T</Label>
       </g>
     ),
