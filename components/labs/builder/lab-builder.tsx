@@ -5,7 +5,11 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import Link from "next/link";
 import { useRouter } from "next/navigation";
-import { useEffect, useMemo, useRef, useState } from "react";
+import { useEffect, useMemo, useRef, useState, useSyncExternalStore } from "react";
+
+// Values that exist only in the browser: read after hydration without an effect that sets state.
+const subscribeNothing = () => () => {};
+const browserTimeZone = () => Intl.DateTimeFormat().resolvedOptions().timeZone;
 import { FormProvider, get, useForm, useWatch } from "react-hook-form";
 import { templates, TEMPLATE_KEYS, type TemplateKey, type VariantSpec } from "@/lib/grader";
 import type { LabInput } from "@/lib/validation/labs";
@@ -79,14 +83,14 @@ export function LabBuilder({ courseId, lab, notice }: LabBuilderProps) {
   const defaults = useMemo(() => (lab ? inputToForm(withoutDates(lab.input)) : emptyForm()), [lab]);
   const methods = useForm<BuilderForm, unknown, LabInput>({ resolver: zodResolver(schema), defaultValues: defaults, mode: "onSubmit", reValidateMode: "onChange" });
   const { handleSubmit, setValue, setError, reset, getValues, formState, clearErrors } = methods;
-  const [timeZone, setTimeZone] = useState<string>("");
+  const timeZone = useSyncExternalStore(subscribeNothing, browserTimeZone, () => "");
   const [status, setStatus] = useState(lab?.status ?? "draft");
   const [message, setMessage] = useState<{ tone: "error" | "info"; text: string } | null>(notice ? { tone: "info", text: notice } : null);
   const [confirm, setConfirm] = useState<{ input: LabInput; intent: Intent } | null>(null);
   const [regrade, setRegrade] = useState<{ id: string; total: number } | null>(null);
   const [busy, setBusy] = useState(false);
   // Until the form is hydrated a click would submit it natively (a page reload), so the buttons wait.
-  const [hydrated, setHydrated] = useState(false);
+  const hydrated = useSyncExternalStore(subscribeNothing, () => true, () => false);
   const intent = useRef<Intent>("draft");
   // What was last saved, as the form would send it: only fields that differ from it are PATCHed.
   const baseline = useRef<LabInput | null>(null);
@@ -94,8 +98,6 @@ export function LabBuilder({ courseId, lab, notice }: LabBuilderProps) {
   const messageRef = useRef<HTMLDivElement>(null);
 
   useEffect(() => {
-    setTimeZone(Intl.DateTimeFormat().resolvedOptions().timeZone);
-    setHydrated(true);
     if (lab) {
       setValue("opensAt", toLocalInput(lab.input.opensAt));
       setValue("dueAt", toLocalInput(lab.input.dueAt));
@@ -217,7 +219,7 @@ export function LabBuilder({ courseId, lab, notice }: LabBuilderProps) {
 
   return (
     <FormProvider {...methods}>
-      <form noValidate data-ready={hydrated ? "true" : undefined} onSubmit={handleSubmit(onValid, onInvalid)} aria-label={lab ? "Edit the lab" : "New lab"} className="grid gap-6">
+      <form noValidate data-ready={hydrated ? "true" : undefined} onSubmit={(e) => void handleSubmit(onValid, onInvalid)(e)} aria-label={lab ? "Edit the lab" : "New lab"} className="grid gap-6">
         <div ref={messageRef} tabIndex={-1} className="outline-none">
           <div
             role={message?.tone === "error" ? "alert" : "status"}
