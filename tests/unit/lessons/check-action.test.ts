@@ -1,7 +1,7 @@
 // The check-yourself server action: the question is looked up by id, the answer graded by gradeAttempt,
 // and the worked solution comes back as KaTeX HTML rendered on the server.
 import { describe, expect, it } from "vitest";
-import { checkAnswer } from "@/app/lessons/actions";
+import { checkLessonAnswer as checkAnswer } from "@/lib/lessons/check";
 
 describe("checkAnswer", () => {
   it("accepts the right answer with its unit and returns a typeset solution", async () => {
