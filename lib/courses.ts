@@ -1,7 +1,7 @@
 // Course membership use cases shared by server actions and route handlers. Callers authorize first.
 import "server-only";
 import { db } from "@/db";
-import { findCourseByJoinCode, findMembership, upsertMembership } from "@/db/queries/courses";
+import { findCourseByJoinCode, upsertMembership } from "@/db/queries/courses";
 import { findUserByEmail, insertUser } from "@/db/queries/users";
 import { hashPassword } from "@/lib/auth/password";
 import { AppError } from "@/lib/errors";
@@ -26,15 +26,23 @@ export async function signUpStudent(input: z.output<typeof signUpSchema>) {
   const course = await findCourseByJoinCode(db, input.joinCode);
   if (!course) throw new AppError("bad_request", "That join code does not match any course.", { joinCode: ["That join code does not match any course."] });
   if (await findUserByEmail(db, input.email)) {
-    throw new AppError("conflict", "An account already uses that e-mail address. Sign in instead.", {
-      email: ["An account already uses that e-mail address. Sign in instead."],
-    });
+    throw emailTaken();
   }
   const passwordHash = await hashPassword(input.password);
-  return db.transaction().execute(async (trx) => {
-    const user = await insertUser(trx, { email: input.email, name: input.name, passwordHash });
-    await upsertMembership(trx, { courseId: course.id, userId: user.id, role: "student" });
-    const membership = await findMembership(trx, course.id, user.id);
-    return { user, course, role: membership!.role };
-  });
+  try {
+    return await db.transaction().execute(async (trx) => {
+      const user = await insertUser(trx, { email: input.email, name: input.name, passwordHash });
+      await upsertMembership(trx, { courseId: course.id, userId: user.id, role: "student" });
+      return { user, course, role: "student" as const };
+    });
+  } catch (e) {
+    // the same address signed up a moment ago, between the check above and this insert
+    if ((e as { code?: string }).code === "23505") throw emailTaken();
+    throw e;
+  }
+}
+
+function emailTaken(): AppError {
+  const message = "An account already uses that e-mail address. Sign in instead.";
+  return new AppError("conflict", message, { email: [message] });
 }

@@ -4,7 +4,7 @@ import "server-only";
 import crypto from "node:crypto";
 import { fileTypeFromBuffer } from "file-type";
 import { db } from "@/db";
-import { findUpload, insertUpload } from "@/db/queries/uploads";
+import { insertUpload, type UploadRow } from "@/db/queries/uploads";
 import { AppError } from "@/lib/errors";
 import { putObject, maxUploadBytes, signedUrl } from "@/lib/storage";
 import { analyzeTrace } from "@/lib/trace";
@@ -82,22 +82,18 @@ export async function acceptUpload(opts: {
   return { id, kind, contentType, size: opts.bytes.byteLength, sha256, analysis };
 }
 
-export async function uploadView(id: string) {
-  const u = await findUpload(db, id);
-  if (!u) return undefined;
+/** An upload's record with a signed URL valid for 60 s; call it only once the caller may see the file. */
+export async function uploadView(u: UploadRow) {
   return {
-    upload: u,
-    view: {
-      id: u.id,
-      kind: u.kind,
-      contentType: u.contentType,
-      size: u.size,
-      sha256: u.sha256,
-      originalName: u.originalName,
-      createdAt: u.createdAt,
-      analysis: u.analysis,
-      url: await signedUrl(u.storageKey, 60, u.originalName),
-      urlExpiresInSeconds: 60,
-    },
+    id: u.id,
+    kind: u.kind,
+    contentType: u.contentType,
+    size: u.size,
+    sha256: u.sha256,
+    originalName: u.originalName,
+    createdAt: u.createdAt,
+    analysis: u.analysis,
+    url: await signedUrl(u.storageKey, 60, u.originalName),
+    urlExpiresInSeconds: 60,
   };
 }

@@ -2,6 +2,7 @@
 // proxy only redirects early. Course roles are read from the database on every call.
 import "server-only";
 import { getServerSession } from "next-auth";
+import { cache } from "react";
 import { notFound as pageNotFound, redirect } from "next/navigation";
 import { db } from "@/db";
 import { findCourse, findMembership } from "@/db/queries/courses";
@@ -14,12 +15,13 @@ import { authOptions } from "./options";
 export const STAFF: Role[] = ["ta", "instructor"];
 export const EVERYONE: Role[] = ["student", "ta", "instructor"];
 
-export async function currentUser(): Promise<PublicUser | null> {
+/** The signed-in user, read once per request (the layout and the page share it). */
+export const currentUser = cache(async (): Promise<PublicUser | null> => {
   const session = await getServerSession(authOptions);
   const id = (session?.user as { id?: string } | undefined)?.id;
   if (!id || !uuidSchema.safeParse(id).success) return null;
   return (await findUserById(db, id)) ?? null;
-}
+});
 
 export async function requireUser(): Promise<PublicUser> {
   const user = await currentUser();
@@ -46,10 +48,16 @@ export async function requireCourseRole(courseId: string, allowed: Role[] = EVER
   if (!course) throw notFound("That course");
   const role: Role | undefined = membership?.role ?? (user.isAdmin ? "instructor" : undefined);
   if (!role) throw notFound("That course");
-  if (!allowed.includes(role)) {
+  const access = { user, course, role, section: membership?.section ?? null };
+  assertRole(access, allowed);
+  return access;
+}
+
+/** Throws forbidden unless the member's role is one of `allowed`. */
+export function assertRole(access: CourseAccess, allowed: Role[]): void {
+  if (!allowed.includes(access.role)) {
     throw forbidden(allowed.every((r) => r !== "student") ? "Only the course staff can see this." : undefined);
   }
-  return { user, course, role, section: membership?.section ?? null };
 }
 
 export const isStaff = (role: Role) => role === "ta" || role === "instructor";

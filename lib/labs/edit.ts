@@ -8,7 +8,8 @@ import { updateLab } from "@/db/queries/labs";
 import { AppError } from "@/lib/errors";
 import { enqueue, QUEUES } from "@/lib/jobs";
 import { gradePolicySchema } from "@/lib/grader";
-import { labInputSchema, labPatchSchema, type LabData } from "@/lib/validation/labs";
+import type { z } from "zod";
+import { labInputSchema, type labPatchSchema, type LabData } from "@/lib/validation/labs";
 import { parseOr400 } from "@/lib/validation/zod-errors";
 import { startRegrade } from "./regrade";
 import { type Lab, withIds } from "./grading";
@@ -57,9 +58,10 @@ export function labAsInput(lab: Lab) {
 }
 
 
-export async function editLab(lab: Lab, body: unknown): Promise<{ regrade: { id: string; total: number } | null }> {
-  const patch = parseOr400(labPatchSchema, body) as Record<string, unknown> & { status?: "draft" | "published" };
-  const { status, ...fields } = patch;
+export type LabPatch = z.output<typeof labPatchSchema>;
+
+export async function editLab(lab: Lab, patch: LabPatch): Promise<{ regrade: { id: string; total: number } | null }> {
+  const { status, ...fields } = patch as Record<string, unknown> & { status?: "draft" | "published" };
   const merged = parseOr400(labInputSchema, { ...labAsInput(lab), ...fields });
   const attempts = await countLabAttempts(db, lab.id);
 
@@ -80,7 +82,7 @@ export async function editLab(lab: Lab, body: unknown): Promise<{ regrade: { id:
   await updateLab(db, lab.id, { ...changed, ...(status ? { status } : {}) }, recompute);
 
   if (!recompute) return { regrade: null };
-  const regrade = await startRegrade(lab.id, lab.version + 1);
+  const regrade = await startRegrade(lab.id, lab.version + 1, attempts);
   await enqueue(QUEUES.regrade, { regradeId: regrade.id }, { singletonKey: regrade.id });
   return { regrade };
 }

@@ -8,8 +8,7 @@ import type { Params } from "@/lib/grader";
 import { applyPenalty } from "./policy";
 import { gradeForLab, toLab, type TraceSummary } from "./grading";
 
-export async function startRegrade(labId: string, labVersion: number): Promise<{ id: string; total: number }> {
-  const total = (await listAttempts(db, labId)).length;
+export async function startRegrade(labId: string, labVersion: number, total: number): Promise<{ id: string; total: number }> {
   const row = await db
     .insertInto("lab_regrades")
     .values({ lab_id: labId, lab_version: labVersion, total })
@@ -36,13 +35,17 @@ export async function runRegrade(regradeId: string): Promise<void> {
   const lab = toLab(row);
   const attempts = await listAttempts(db, lab.id);
   await db.updateTable("lab_regrades").set({ status: "running", total: attempts.length, done: 0 }).where("id", "=", regradeId).execute();
+  // every attached trace's analysis, read once for the whole lab
+  const uploads = new Map((await findUploads(db, [...new Set(attempts.flatMap((a) => a.uploadIds))])).map((u) => [u.id, u]));
   try {
     let done = 0;
     for (const a of attempts) {
       const stored = a.result as { params?: Params };
       const measured = (a.measured as { values?: Params }).values ?? {};
-      const uploads = await findUploads(db, a.uploadIds);
-      const traces = uploads.filter((u) => u.kind === "trace" && u.analysis).map((u) => u.analysis as TraceSummary);
+      const traces = a.uploadIds
+        .map((id) => uploads.get(id))
+        .filter((u) => u?.kind === "trace" && u.analysis)
+        .map((u) => u!.analysis as TraceSummary);
       const result = gradeForLab(lab, stored.params ?? {}, a.readings as Record<string, string | null>, measured, traces);
       await updateAttemptGrade(db, a.id, {
         result: { ...result, params: stored.params },

@@ -15,7 +15,7 @@ import {
 } from "@/db/queries/attempts";
 import { findLab, findVariant, insertLab, listLabs, storeVariant, updateLab } from "@/db/queries/labs";
 import { findUploads } from "@/db/queries/uploads";
-import { EVERYONE, isStaff, requireCourseRole, type CourseAccess } from "@/lib/auth/access";
+import { assertRole, EVERYONE, isStaff, requireCourseRole, type CourseAccess } from "@/lib/auth/access";
 import { AppError, notFound } from "@/lib/errors";
 import { drawVariant, type Params } from "@/lib/grader";
 import { attemptRecord, gradeForLab, parseMeasured, toLab, withIds, type Lab, type TraceSummary } from "./grading";
@@ -34,7 +34,7 @@ export async function labAccess(labId: string, allowed: Role[] = EVERYONE): Prom
   const access = await requireCourseRole(row.courseId, EVERYONE);
   const lab = toLab(row);
   if (!isStaff(access.role) && lab.status !== "published") throw notFound("That lab");
-  if (!allowed.includes(access.role)) await requireCourseRole(row.courseId, allowed);
+  assertRole(access, allowed);
   return { lab, access };
 }
 

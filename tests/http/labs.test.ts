@@ -347,6 +347,28 @@ describe("editing without changing the grading", () => {
   });
 });
 
+describe("changing dates", () => {
+  it("moves the due date of a lab with a PATCH", async () => {
+    const id = await publishedLab();
+    const dueAt = new Date(Date.now() + 20 * DAY);
+    dueAt.setMilliseconds(0);
+    const r = await as.instructor.json(`/api/labs/${id}`, {
+      method: "PATCH",
+      headers: { "content-type": "application/json" },
+      body: JSON.stringify({ dueAt: dueAt.toISOString() }),
+    });
+    expect(r.status).toBe(200);
+    expect(new Date(r.body.lab.dueAt).getTime()).toBe(dueAt.getTime());
+    const early = await as.instructor.json(`/api/labs/${id}`, {
+      method: "PATCH",
+      headers: { "content-type": "application/json" },
+      body: JSON.stringify({ dueAt: new Date(Date.now() - 30 * DAY).toISOString() }),
+    });
+    expect(early.status).toBe(400);
+    expect(Object.keys(early.body.error.fields)).toEqual(["dueAt"]);
+  });
+});
+
 describe("uploads", () => {
   async function upload(c: Client, labId: string, bytes: Uint8Array, name: string, type = "application/octet-stream") {
     const form = new FormData();

@@ -202,13 +202,13 @@ export function fromLocalInput(text: string): string | null {
   return Number.isNaN(d.getTime()) ? text : d.toISOString();
 }
 
-/** A stored lab (labAsInput's shape) as form state. Dates are converted with toLocalInput where this runs. */
-export function inputToForm(input: {
+/** A stored lab as the builder receives it (labAsInput's shape, dates as ISO strings). */
+export interface StoredLabInput {
   title: string;
   templateKey: TemplateKey;
   spec: VariantSpec;
   questions: { id?: string; quantity: string; kind: "prediction" | "bench"; points: number; tolerancePercent?: number }[];
-  policy?: { relativeTolerance?: number; closeCredit?: number; instrumentAccuracyPercent?: number } & KeptPolicy;
+  policy: { relativeTolerance?: number; closeCredit?: number; instrumentAccuracyPercent?: number } & KeptPolicy;
   attemptsAllowed: number;
   counting: "best" | "last";
   opensAt: string | null;
@@ -216,9 +216,12 @@ export function inputToForm(input: {
   latePenaltyPercentPerDay: number;
   lateFloorPercent: number;
   showExpected: "after_attempt" | "after_due" | "never";
-  instructions?: string;
-  safetyNotes?: string;
-}): BuilderForm {
+  instructions: string;
+  safetyNotes: string;
+}
+
+/** A stored lab (labAsInput's shape) as form state. Dates are converted with toLocalInput where this runs. */
+export function inputToForm(input: StoredLabInput): BuilderForm {
   const policy = input.policy ?? {};
   return {
     title: input.title,

@@ -26,28 +26,14 @@ import {
   toLocalInput,
   type BuilderForm,
   type KeptPolicy,
+  type StoredLabInput,
 } from "./form-model";
+
+export type { StoredLabInput };
 import { SelectInput, TextInput } from "./inputs";
 import { ParameterFields } from "./parameter-fields";
 import { QuestionFields } from "./question-fields";
 
-/** A stored lab as the builder receives it (labAsInput's shape, dates as ISO strings). */
-export interface StoredLabInput {
-  title: string;
-  templateKey: TemplateKey;
-  spec: VariantSpec;
-  questions: { id?: string; quantity: string; kind: "prediction" | "bench"; points: number; tolerancePercent?: number }[];
-  policy: { relativeTolerance?: number; closeCredit?: number; instrumentAccuracyPercent?: number } & KeptPolicy;
-  attemptsAllowed: number;
-  counting: "best" | "last";
-  opensAt: string | null;
-  dueAt: string | null;
-  latePenaltyPercentPerDay: number;
-  lateFloorPercent: number;
-  showExpected: "after_attempt" | "after_due" | "never";
-  instructions: string;
-  safetyNotes: string;
-}
 
 export interface LabBuilderProps {
   courseId: string;

@@ -1,8 +1,11 @@
-import { json, route } from "@/lib/api";
+import { db } from "@/db";
+import { findLab } from "@/db/queries/labs";
+import { json, jsonBody, route } from "@/lib/api";
+import { labPatchSchema } from "@/lib/validation/labs";
 import { isStaff } from "@/lib/auth/access";
 import { editLab } from "@/lib/labs/edit";
 import { latestRegrade } from "@/lib/labs/regrade";
-import { labAccess } from "@/lib/labs/service";
+import { labAccess, toLab } from "@/lib/labs/service";
 import { labFull, labPublic } from "@/lib/labs/view";
 
 type Params = { labId: string };
@@ -15,13 +18,7 @@ export const GET = route<Params>(async (_req, { labId }) => {
 
 export const PATCH = route<Params>(async (req, { labId }) => {
   const { lab } = await labAccess(labId, ["instructor"]);
-  let body: unknown;
-  try {
-    body = await req.json();
-  } catch {
-    return json({ error: { code: "bad_request", message: "The request body must be JSON." } }, 400);
-  }
-  const { regrade } = await editLab(lab, body);
-  const { lab: updated } = await labAccess(labId, ["instructor"]);
+  const { regrade } = await editLab(lab, await jsonBody(req, labPatchSchema));
+  const updated = toLab((await findLab(db, lab.id))!);
   return json({ lab: labFull(updated), regrade });
 });
