@@ -3,7 +3,7 @@
 import "server-only";
 import { db } from "@/db";
 import type { Database, Role } from "@/db/types";
-import type { Transaction } from "kysely";
+import type { Kysely, Transaction } from "kysely";
 import {
   countAttempts,
   findAttempt,
@@ -13,7 +13,7 @@ import {
   lockStudentLab,
   type AttemptRow,
 } from "@/db/queries/attempts";
-import { findLab, findVariant, insertLab, listLabs, storeVariant, updateLab } from "@/db/queries/labs";
+import { findLab, findVariant, insertLab, listLabs, storeVariant } from "@/db/queries/labs";
 import { findUploads } from "@/db/queries/uploads";
 import { assertRole, EVERYONE, isStaff, requireCourseRole, type CourseAccess } from "@/lib/auth/access";
 import { AppError, notFound } from "@/lib/errors";
@@ -48,12 +48,11 @@ export async function createLab(access: CourseAccess, data: LabData, status: "dr
 }
 
 /** The caller's own circuit values: drawn once with the seed `${labId}:${userId}` and stored. */
-export async function variantFor(lab: Lab, userId: string): Promise<Params> {
-  const stored = await findVariant(db, lab.id, userId);
+export async function variantFor(lab: Lab, userId: string, conn: Kysely<Database> | Transaction<Database> = db): Promise<Params> {
+  const stored = await findVariant(conn, lab.id, userId);
   if (stored) return stored.params as Params;
   const seed = `${lab.id}:${userId}`;
-  const params = drawVariant(lab.spec, seed);
-  return (await storeVariant(db, lab.id, userId, seed, params)).params as Params;
+  return (await storeVariant(conn, lab.id, userId, seed, drawVariant(lab.spec, seed))).params as Params;
 }
 
 export interface SubmitInput {
@@ -92,7 +91,7 @@ export async function submitAttempt(lab: Lab, access: CourseAccess, input: Submi
     if (used >= lab.attemptsAllowed) {
       throw new AppError("conflict", `You have used all ${lab.attemptsAllowed} attempt${lab.attemptsAllowed === 1 ? "" : "s"} of this lab.`);
     }
-    const params = await variantForTrx(trx, lab, userId);
+    const params = await variantFor(lab, userId, trx);
     const result = gradeForLab(lab, params, input.readings, measured, traces);
     const attemptId = await insertAttempt(
       trx,
@@ -113,12 +112,6 @@ export async function submitAttempt(lab: Lab, access: CourseAccess, input: Submi
   });
 }
 
-async function variantForTrx(trx: Transaction<Database>, lab: Lab, userId: string): Promise<Params> {
-  const stored = await findVariant(trx, lab.id, userId);
-  if (stored) return stored.params as Params;
-  const seed = `${lab.id}:${userId}`;
-  return (await storeVariant(trx, lab.id, userId, seed, drawVariant(lab.spec, seed))).params as Params;
-}
 
 /** An attempt as the caller may see it: the owner and the course staff only; anyone else gets 404. */
 export async function attemptAccess(attemptId: string) {
@@ -170,4 +163,3 @@ export async function attemptsFor(lab: Lab, access: CourseAccess, now = new Date
   return rows.map((r) => ({ ...presentAttempt(r, lab, staff, now), studentId: r.userId, studentName: r.studentName }));
 }
 
-export { updateLab };
