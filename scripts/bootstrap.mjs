@@ -3,7 +3,7 @@
 // over to the TypeScript script that does the rest.
 import { createHash } from "node:crypto";
 import { existsSync, readFileSync, writeFileSync } from "node:fs";
-import { spawnSync } from "node:child_process";
+import { spawn, spawnSync } from "node:child_process";
 import path from "node:path";
 
 const root = path.resolve(import.meta.dirname, "..");
@@ -28,8 +28,13 @@ if (installed !== lockHash) {
   writeFileSync(stamp, lockHash + "\n");
 }
 
-process.on("SIGINT", () => {}); // the child handles Ctrl-C and shuts down cleanly
-process.on("SIGTERM", () => {});
 const tsx = path.join(root, "node_modules", "tsx", "dist", "cli.mjs");
-const r = spawnSync(process.execPath, [tsx, scripts[command], ...process.argv.slice(3)], { cwd: root, stdio: "inherit" });
-process.exit(r.status ?? (r.signal ? 1 : 0));
+const child = spawn(process.execPath, [tsx, scripts[command], ...process.argv.slice(3)], { cwd: root, stdio: "inherit" });
+// The child shuts down cleanly on a signal; pass on the ones sent to this process alone (`kill`, npm
+// forwarding SIGTERM). Ctrl-C reaches the child directly as well, and it ignores repeats.
+for (const signal of ["SIGINT", "SIGTERM", "SIGHUP"]) {
+  process.on(signal, () => {
+    if (child.exitCode === null) child.kill(signal);
+  });
+}
+child.on("exit", (code, signal) => process.exit(code ?? (signal ? 1 : 0)));

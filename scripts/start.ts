@@ -61,7 +61,7 @@ async function main() {
   }
 
   try {
-    buildIfStale(".next", env);
+    await buildIfStale(".next", env);
   } catch (e) {
     await standIns.close();
     throw e;

@@ -1,7 +1,13 @@
 // `npm test`: the same set-up as `npm start` on a separate PostgreSQL cluster, then every test tier
 // (unit, integration against real PostgreSQL, HTTP and browser tests against a production build).
 // The last line is always `summary: N passed, N failed, N skipped`.
-import { spawn, spawnSync } from "node:child_process";
+//
+// It stops everything it started, also when a test fails or the run is interrupted (Ctrl-C, SIGTERM):
+// the app server, vitest, browsers, anything a test spawned (found by the run's SHUNTWISE_RUN_ID, see
+// lib/processes.ts) and the test PostgreSQL when this run started it. A port that is taken (a demo, a
+// second checkout's test run) is replaced by a free one.
+import { type ChildProcess, spawn, spawnSync } from "node:child_process";
+import crypto from "node:crypto";
 import fs from "node:fs";
 import path from "node:path";
 import pg from "pg";
@@ -12,12 +18,16 @@ import { seedStorageFromEnv } from "../db/seed/storage";
 import { appEnv } from "./lib/app-env";
 import { buildIfStale } from "./lib/build";
 import { databaseUrl, root, serviceConfig } from "./lib/config";
-import { ensurePostgres } from "./lib/postgres";
-import { portInUse, startNext, waitForHttp } from "./lib/server";
+import { ensurePostgres, stopPostgres } from "./lib/postgres";
+import { RUN_ID_VAR, alive, freePort, stopPids, sweepRun } from "./lib/processes";
+import { startNext, waitForHttp } from "./lib/server";
 import { startStandIns } from "./lib/standins";
 
 const cfg = serviceConfig("test");
 const DIST = ".next-test";
+const runId = crypto.randomUUID();
+process.env[RUN_ID_VAR] = runId; // inherited by every process this run starts
+const runFile = path.join(cfg.dataDir, "test-run.json");
 
 function ensureChromium() {
   const exe = process.env.CHROMIUM_PATH ?? "/usr/bin/chromium";
@@ -49,19 +59,71 @@ interface Counts {
   skipped: number;
 }
 
+// What has to be undone, newest first, and by whom (the normal end or a signal, whichever comes first).
+const children = new Set<ChildProcess>();
+let pgStartedByUs = false;
+let standIns: Awaited<ReturnType<typeof startStandIns>> | undefined;
+let cleaning: Promise<void> | undefined;
+
+function track(child: ChildProcess): ChildProcess {
+  children.add(child);
+  child.on("exit", () => children.delete(child));
+  return child;
+}
+
+function cleanUp(): Promise<void> {
+  cleaning ??= (async () => {
+    await stopPids([...children].map((c) => c.pid!).filter(Boolean));
+    await standIns?.close();
+    if (pgStartedByUs) {
+      try {
+        stopPostgres(cfg);
+      } catch (e) {
+        console.error((e as Error).message);
+      }
+    }
+    const left = await sweepRun(runId);
+    if (left) console.log(`Stopped ${left} process(es) the tests had left running.`);
+    fs.rmSync(runFile, { force: true });
+  })();
+  return cleaning;
+}
+
+/** A run killed outright (SIGKILL) cannot clean up: the next run does it from the record it left. */
+async function cleanUpAfterKilledRun(): Promise<void> {
+  if (!fs.existsSync(runFile)) return;
+  try {
+    const last = JSON.parse(fs.readFileSync(runFile, "utf8")) as { pid: number; runId: string; pgStarted: boolean };
+    if (alive(last.pid)) throw new Error(`Another test run (process ${last.pid}) uses ${cfg.dataDir}; wait for it or set SHUNTWISE_DATA_DIR.`);
+    if (last.pgStarted) stopPostgres(cfg);
+    const left = await sweepRun(last.runId);
+    if (left) console.log(`Stopped ${left} process(es) left by an earlier test run that was killed.`);
+  } catch (e) {
+    if (e instanceof Error && e.message.startsWith("Another test run")) throw e;
+  }
+  fs.rmSync(runFile, { force: true });
+}
+
+function recordRun() {
+  fs.mkdirSync(cfg.dataDir, { recursive: true });
+  fs.writeFileSync(runFile, JSON.stringify({ pid: process.pid, runId, pgStarted: pgStartedByUs }));
+}
+
 // Asynchronous on purpose: the storage and mail stand-ins run in this process and must keep answering.
 async function runVitest(env: NodeJS.ProcessEnv, extra: string[]): Promise<Counts> {
-  const out = path.join(root, "tests", ".artifacts", "vitest.json");
+  const out = path.join(root, "tests", ".artifacts", `vitest-${runId}.json`);
   fs.mkdirSync(path.dirname(out), { recursive: true });
-  fs.rmSync(out, { force: true });
-  const child = spawn(
-    process.execPath,
-    [path.join(root, "node_modules/vitest/vitest.mjs"), "run", "--reporter=default", "--reporter=json", `--outputFile.json=${out}`, ...extra],
-    { cwd: root, stdio: "inherit", env },
+  const child = track(
+    spawn(
+      process.execPath,
+      [path.join(root, "node_modules/vitest/vitest.mjs"), "run", "--reporter=default", "--reporter=json", `--outputFile.json=${out}`, ...extra],
+      { cwd: root, stdio: ["ignore", "inherit", "inherit"], env },
+    ),
   );
   const r = await new Promise<{ status: number | null }>((resolve) => child.on("exit", (status) => resolve({ status })));
   if (!fs.existsSync(out)) return { passed: 0, failed: 1, skipped: 0 };
   const report = JSON.parse(fs.readFileSync(out, "utf8"));
+  fs.rmSync(out, { force: true });
   const counts = {
     passed: report.numPassedTests ?? 0,
     failed: report.numFailedTests ?? 0,
@@ -74,53 +136,79 @@ async function runVitest(env: NodeJS.ProcessEnv, extra: string[]): Promise<Count
 
 async function main(): Promise<Counts> {
   const extra = process.argv.slice(2);
-  const pgInfo = await ensurePostgres(cfg, { fast: true });
+  await cleanUpAfterKilledRun();
+  recordRun();
+  const taken: number[] = [];
+  const pick = async (preferred: number) => {
+    const port = await freePort(preferred, cfg.appHost, taken);
+    taken.push(port);
+    return port;
+  };
+  const pgInfo = await ensurePostgres(cfg, { fast: true, pickPort: pick });
+  pgStartedByUs = pgInfo.started;
+  recordRun();
   console.log(`Test PostgreSQL on 127.0.0.1:${pgInfo.port} (data in ${pgInfo.dataDir}).`);
   for (const name of cfg.databases) await recreate(name);
   const testUrl = databaseUrl(cfg, "shuntwise_test");
   const e2eUrl = databaseUrl(cfg, "shuntwise_e2e");
   ensureChromium();
-  if (await portInUse(cfg.appPort)) throw new Error(`Port ${cfg.appPort} is in use (another test run?); set SHUNTWISE_TEST_APP_PORT to a free port.`);
-  const env = appEnv(cfg, e2eUrl);
-  const standIns = await startStandIns(cfg);
-  let server: ReturnType<typeof startNext> | undefined;
-  try {
-    for (const url of [testUrl, e2eUrl]) {
-      const db = createDb(url, 2);
-      try {
-        await migrateToLatest(db);
-        if (url === e2eUrl) await seedDemo(db, { storage: seedStorageFromEnv(env) });
-      } finally {
-        await db.destroy();
-      }
-    }
-    buildIfStale(DIST, env);
-    server = startNext({ distDir: DIST, port: cfg.appPort, host: cfg.appHost, env, quiet: true });
-    const url = `http://${cfg.appHost}:${cfg.appPort}`;
-    await waitForHttp(`${url}/api/health`, server);
-    return await runVitest(
-      {
-        ...env,
-        NODE_ENV: "test",
-        DATABASE_URL: testUrl,
-        E2E_DATABASE_URL: e2eUrl,
-        SHUNTWISE_TEST_URL: url,
-      },
-      extra,
-    );
-  } finally {
-    server?.kill("SIGTERM");
-    await standIns.close();
+  for (const key of ["appPort", "s3Port", "smtpPort"] as const) {
+    const port = await pick(cfg[key]);
+    if (port !== cfg[key]) console.log(`Port ${cfg[key]} is taken; using ${port} instead.`);
+    cfg[key] = port;
   }
+  const env = appEnv(cfg, e2eUrl);
+  standIns = await startStandIns(cfg);
+  for (const url of [testUrl, e2eUrl]) {
+    const db = createDb(url, 2);
+    try {
+      await migrateToLatest(db);
+      if (url === e2eUrl) await seedDemo(db, { storage: seedStorageFromEnv(env) });
+    } finally {
+      await db.destroy();
+    }
+  }
+  await buildIfStale(DIST, env);
+  const server = track(startNext({ distDir: DIST, port: cfg.appPort, host: cfg.appHost, env, quiet: true }));
+  const url = `http://${cfg.appHost}:${cfg.appPort}`;
+  await waitForHttp(`${url}/api/health`, server);
+  console.log(`App under test on ${url}.`);
+  return await runVitest(
+    {
+      ...env,
+      NODE_ENV: "test",
+      DATABASE_URL: testUrl,
+      E2E_DATABASE_URL: e2eUrl,
+      SHUNTWISE_TEST_URL: url,
+    },
+    extra,
+  );
+}
+
+function finish(c: Counts, code: number): never {
+  console.log(`summary: ${c.passed} passed, ${c.failed} failed, ${c.skipped} skipped`);
+  process.exit(code);
+}
+
+let interrupted = false;
+for (const signal of ["SIGINT", "SIGTERM", "SIGHUP"] as const) {
+  process.on(signal, () => {
+    if (interrupted) return; // already stopping
+    interrupted = true;
+    console.error(`\nInterrupted (${signal}): stopping everything this test run started…`);
+    void cleanUp().finally(() => finish({ passed: 0, failed: 1, skipped: 0 }, 130));
+  });
 }
 
 main()
-  .then((c) => {
-    console.log(`summary: ${c.passed} passed, ${c.failed} failed, ${c.skipped} skipped`);
-    process.exit(c.failed > 0 ? 1 : 0);
+  .then(async (c) => {
+    if (interrupted) return; // the signal handler reports
+    await cleanUp();
+    finish(c, c.failed > 0 ? 1 : 0);
   })
-  .catch((e) => {
+  .catch(async (e) => {
+    if (interrupted) return;
     console.error(e instanceof Error ? e.message : e);
-    console.log("summary: 0 passed, 1 failed, 0 skipped");
-    process.exit(1);
+    await cleanUp();
+    finish({ passed: 0, failed: 1, skipped: 0 }, 1);
   });

@@ -2,7 +2,7 @@
 import crypto from "node:crypto";
 import fs from "node:fs";
 import path from "node:path";
-import { spawnSync } from "node:child_process";
+import { spawn } from "node:child_process";
 import { root } from "./config";
 
 // tsconfig.json is left out: next build rewrites it (adding its type folders) on every build.
@@ -29,7 +29,8 @@ export function sourceHash(): string {
   return h.digest("hex");
 }
 
-export function buildIfStale(distDir: string, env: NodeJS.ProcessEnv): void {
+// Asynchronous so that the caller keeps handling signals (and can stop the build) while it runs.
+export async function buildIfStale(distDir: string, env: NodeJS.ProcessEnv): Promise<void> {
   const stamp = path.join(root, distDir, "shuntwise-source-hash");
   const hash = sourceHash();
   if (fs.existsSync(stamp) && fs.readFileSync(stamp, "utf8") === hash && fs.existsSync(path.join(root, distDir, "BUILD_ID"))) {
@@ -37,11 +38,12 @@ export function buildIfStale(distDir: string, env: NodeJS.ProcessEnv): void {
     return;
   }
   console.log(`Building the app into ${distDir} (next build)…`);
-  const r = spawnSync(process.execPath, [path.join(root, "node_modules/next/dist/bin/next"), "build"], {
+  const child = spawn(process.execPath, [path.join(root, "node_modules/next/dist/bin/next"), "build"], {
     cwd: root,
-    stdio: "inherit",
+    stdio: ["ignore", "inherit", "inherit"],
     env: { ...env, SHUNTWISE_DIST_DIR: distDir, NEXT_TELEMETRY_DISABLED: "1" },
   });
-  if (r.status !== 0) throw new Error("next build failed; see the messages above.");
+  const status = await new Promise<number | null>((resolve) => child.on("exit", (code) => resolve(code)));
+  if (status !== 0) throw new Error("next build failed; see the messages above.");
   fs.writeFileSync(stamp, hash);
 }

@@ -67,9 +67,28 @@ export interface RunningPostgres {
   dataDir: string;
   port: number;
   urls: Record<string, string>;
+  /** True when this call started the server (false when it was already running). */
+  started: boolean;
 }
 
-export async function ensurePostgres(cfg: ServiceConfig, opts: { fast?: boolean } = {}): Promise<RunningPostgres> {
+/** The port a running cluster listens on (line 4 of postmaster.pid), or null. */
+function runningPort(dir: string): number | null {
+  try {
+    const port = Number(fs.readFileSync(path.join(dir, "postmaster.pid"), "utf8").split("\n")[3]);
+    return Number.isInteger(port) && port > 0 ? port : null;
+  } catch {
+    return null;
+  }
+}
+
+/**
+ * Starts the cluster unless it runs already. With `pickPort`, a taken port is not an error: `pickPort`
+ * gets the configured port and answers the one to use. `cfg.pgPort` is set to the port the cluster really listens on.
+ */
+export async function ensurePostgres(
+  cfg: ServiceConfig,
+  opts: { fast?: boolean; pickPort?: (preferred: number) => Promise<number> } = {},
+): Promise<RunningPostgres> {
   const bin = ensurePostgresInstalled();
   const dir = usableDataDir(cfg);
   const pgctl = path.join(bin, "pg_ctl");
@@ -85,9 +104,15 @@ export async function ensurePostgres(cfg: ServiceConfig, opts: { fast?: boolean 
   }
 
   const status = run(pgctl, ["status", "-D", dir], { asPostgres: true, quiet: true });
-  if (status.status !== 0) {
-    const busy = run(path.join(bin, "pg_isready"), ["-h", "127.0.0.1", "-p", String(cfg.pgPort)], { quiet: true });
-    if (busy.status === 0) {
+  const started = status.status !== 0;
+  if (!started) cfg.pgPort = runningPort(dir) ?? cfg.pgPort;
+  if (started) {
+    const busy = opts.pickPort ? { status: 1 } : run(path.join(bin, "pg_isready"), ["-h", "127.0.0.1", "-p", String(cfg.pgPort)], { quiet: true });
+    if (opts.pickPort) {
+      const port = await opts.pickPort(cfg.pgPort);
+      if (port !== cfg.pgPort) console.log(`Port ${cfg.pgPort} is taken; the test PostgreSQL uses port ${port}.`);
+      cfg.pgPort = port;
+    } else if (busy.status === 0) {
       throw new Error(
         `Port ${cfg.pgPort} already has a PostgreSQL server that is not this project's. Set ${
           cfg.profile === "dev" ? "SHUNTWISE_PG_PORT" : "SHUNTWISE_TEST_PG_PORT"
@@ -125,6 +150,7 @@ export async function ensurePostgres(cfg: ServiceConfig, opts: { fast?: boolean 
     dataDir: dir,
     port: cfg.pgPort,
     urls: Object.fromEntries(cfg.databases.map((d) => [d, databaseUrl(cfg, d)])),
+    started,
   };
 }
 
