@@ -290,23 +290,113 @@ const specs: Record<DiagramTemplate, Spec> = {
     ),
   },
   uncertainty: {
-    title: "Current from a voltmeter reading across a shunt: the inputs of the uncertainty budget",
-    desc: "A current I flows through a shunt R_sh that has a tolerance of plus or minus a percentage. A voltmeter across the shunt reads V with a specification of plus or minus (p percent of reading plus n counts). The current is I = V / R_sh; both bounds are treated as rectangular and combined in quadrature.",
+    title: "Current from a reading across a shunt: every input of the uncertainty budget",
+    desc: "A current I flows through a shunt R with a tolerance of plus or minus t percent and a temperature coefficient alpha; its temperature may differ from calibration by up to delta T. A voltmeter across the shunt reads V with a specification of plus or minus (p percent of reading plus n counts). The same shunt voltage can instead pass through an amplifier of gain G with a gain error of plus or minus g percent into an N-bit converter whose reference V_ref has a tolerance of plus or minus r percent; the converter's step, referred to the shunt, is V_ref divided by 2 to the N times G. Each bound becomes a standard uncertainty, is weighted by its sensitivity coefficient and the contributions add in quadrature.",
+    height: 210,
     body: (
       <g>
-        <Wire d="M20,130 L110,130" />
-        <Arrow x1={30} y1={118} x2={70} y2={118} />
-        <Label x={50} y={110} color={TRACE}>I</Label>
-        <Resistor x1={110} y1={130} x2={230} y2={130} color={COPPER} />
-        <Label x={170} y={160}>R_sh ± tolerance</Label>
-        <Wire d="M230,130 L330,130" />
-        <Wire d="M118,130 L118,60 L150,60" thin />
-        <Wire d="M222,130 L222,60 L190,60" thin />
-        <Meter x={170} y={60} letter="V" r={20} />
-        <Label x={170} y={26} size={11}>reading V, ±(p % of reading + n counts)</Label>
-        <Label x={170} y={190} size={12} italic>I = V / R_sh,  u_r(I)² = u_r(V)² + u_r(R)²</Label>
+        <Wire d="M20,150 L60,150" />
+        <Arrow x1={24} y1={138} x2={54} y2={138} />
+        <Label x={38} y={130} color={TRACE}>I</Label>
+        <Resistor x1={60} y1={150} x2={170} y2={150} color={COPPER} />
+        <Label x={115} y={178} size={11}>R ± t,  α·ΔT</Label>
+        <Wire d="M170,150 L200,150" />
+        <Wire d="M68,150 L68,70 L95,70" thin />
+        <Wire d="M162,150 L162,70 L135,70" thin />
+        <Meter x={115} y={70} letter="V" r={20} />
+        <Label x={115} y={38} size={10}>±(p % of reading + n counts)</Label>
+        <Wire d="M68,120 L215,120 L215,105 L232,105" thin />
+        <Wire d="M162,132 L222,132 L222,125 L232,125" thin />
+        <Amp x={232} y={115} w={40} label="G ± g" />
+        <Wire d="M272,115 L290,115" />
+        <Box x={290} y={92} w={68} h={46} lines={["N-bit ADC", "V_ref ± r"]} />
+        <Label x={324} y={156} size={10}>step q = V_ref/(2ᴺ·G)</Label>
+        <Label x={185} y={202} size={11} italic>I = V/R,  u_c² = Σ (c_i · u(x_i))²,  U = k·u_c</Label>
       </g>
     ),
+  },
+  "leakage-guard": {
+    title: "A feedback ammeter at nanoamps: leakage, bias current and a guard",
+    desc: "The device under test drives a small current I into the inverting input of an amplifier with a feedback resistor R_f, whose output is minus I times R_f. A nearby conductor at voltage V_s would push a leakage current V_s over R_ins through the insulation into the input. A guard trace, connected to the amplifier's non-inverting input, surrounds the input wire, so the insulation from the conductor ends on the guard and only the small voltage V_g between guard and input (the amplifier's offset) remains across the insulation next to the input. The amplifier's input bias current I_b flows into the same node whether or not there is a guard.",
+    height: 210,
+    body: (
+      <g>
+        <Wire d="M30,30 L230,30" color={COPPER} />
+        <Label x={30} y={22} anchor="start" size={11}>conductor at V_s</Label>
+        <Resistor x1={110} y1={30} x2={110} y2={92} />
+        <Label x={100} y={66} anchor="end" size={10}>R_ins</Label>
+        <path d="M40,95 L190,95" fill="none" stroke={TRACE} strokeWidth={3} strokeDasharray="8 4" />
+        <Label x={40} y={88} anchor="start" size={10} color={TRACE}>guard</Label>
+        <Wire d="M190,95 L208,95 L208,110 L232,110" thin color={TRACE} />
+        <Ground x={208} y={110} />
+        <Resistor x1={160} y1={95} x2={160} y2={135} />
+        <Label x={150} y={118} anchor="end" size={10}>V_g across</Label>
+        <Wire d="M20,135 L232,135" />
+        <Arrow x1={26} y1={148} x2={62} y2={148} />
+        <Label x={44} y={164} color={TRACE}>I (DUT)</Label>
+        <Dot x={215} y={135} />
+        <Amp x={232} y={120} w={46} />
+        <Arrow x1={250} y1={172} x2={244} y2={142} color={COPPER} />
+        <Label x={262} y={184} size={10} color={COPPER}>I_b</Label>
+        <Wire d="M215,135 L215,195 L300,195 L300,120" thin />
+        <Resistor x1={230} y1={195} x2={290} y2={195} />
+        <Label x={260} y={188} size={10}>R_f</Label>
+        <Wire d="M278,120 L340,120" />
+        <Label x={340} y={112} anchor="end" size={10}>V_out = −I·R_f</Label>
+      </g>
+    ),
+  },
+  "offset-thermal": {
+    title: "A milliohm shunt read through two junctions and an amplifier with an offset",
+    desc: "A reversible current plus or minus I flows through a low-value shunt R. Two sense leads run from the shunt's terminals to an amplifier; each lead passes a junction of dissimilar metals (for example copper to solder), one at temperature T1 and one at T2, which together add a thermoelectric voltage V_th equal to S times the temperature difference. The amplifier adds its input offset V_os. The reading is plus or minus I times R plus V_os plus V_th; reversing the current and taking half the difference of the two readings leaves I times R.",
+    body: (
+      <g>
+        <Wire d="M20,160 L110,160" />
+        <Arrow x1={28} y1={148} x2={66} y2={148} />
+        <Arrow x1={66} y1={174} x2={28} y2={174} color={COPPER} />
+        <Label x={46} y={140} color={TRACE} size={11}>+I</Label>
+        <Label x={46} y={192} color={COPPER} size={11}>−I (reversed)</Label>
+        <Resistor x1={110} y1={160} x2={230} y2={160} color={COPPER} />
+        <Label x={170} y={186} size={11}>R (mΩ)</Label>
+        <Wire d="M230,160 L340,160" />
+        <Wire d="M118,160 L118,60 L262,60" thin />
+        <Wire d="M222,160 L222,80 L262,80" thin />
+        <circle cx={118} cy={110} r={6} fill="white" stroke={COPPER} strokeWidth={2} />
+        <circle cx={222} cy={120} r={6} fill="white" stroke={COPPER} strokeWidth={2} />
+        <Label x={108} y={114} anchor="end" size={10}>junction at T₁</Label>
+        <Label x={232} y={124} anchor="start" size={10}>junction at T₂</Label>
+        <circle cx={190} cy={60} r={11} fill="white" stroke={INK} strokeWidth={2} />
+        <Label x={190} y={64} size={10}>os</Label>
+        <Label x={190} y={42} size={10}>V_os</Label>
+        <Amp x={262} y={70} w={44} label="×G" />
+        <Wire d="M306,70 L340,70" />
+        <Label x={170} y={136} size={10} italic>V_th = S·(T₁ − T₂)</Label>
+        <Label x={300} y={110} size={10}>V± = ±I·R + V_os + V_th</Label>
+      </g>
+    ),
+  },
+  "sampling-burst": {
+    title: "A wake burst and the samples that land in it",
+    desc: "A timing sketch. The load current sits at a small sleep level and rises to a burst of width t_b once every wake period T. Tick marks along the time axis show the fast logger's samples, one every 1 over f_s; only those inside a burst see the burst, and the burst's edges fall between samples. Dots below show a slow logger sampling at f_log, close to the wake rate, which sees the bursts drift slowly through its samples: the wakes appear at the alias frequency, the distance from 1 over T to the nearest multiple of f_log.",
+    body: (
+      <g>
+        <Wire d="M20,140 L350,140" thin />
+        <Label x={350} y={154} anchor="end" size={10}>time</Label>
+        <Wire d="M20,135 L60,135 L60,50 L96,50 L96,135 L230,135 L230,50 L266,50 L266,135 L350,135" color={COPPER} />
+        <Label x={78} y={42} size={10}>t_b</Label>
+        <Arrow x1={62} y1={30} x2={228} y2={30} />
+        <Label x={145} y={24} size={10} color={TRACE}>wake period T</Label>
+        {Array.from({ length: 28 }, (_, k) => 24 + k * 12).map((x) => (
+          <Wire key={x} d={`M${x},140 L${x},148`} thin color={TRACE} />
+        ))}
+        <Label x={30} y={162} anchor="start" size={10} color={TRACE}>fast samples every 1/f_s</Label>
+        {[52, 214, 376].filter((x) => x < 350).map((x, k) => (
+          <circle key={x} cx={x + k * 6} cy={180} r={3.5} fill={INK} />
+        ))}
+        <Label x={120} y={196} size={10}>slow logger at f_log ≈ 1/T: the wakes drift (alias)</Label>
+      </g>
+    ),
+    height: 205,
   },
 };
 

@@ -42,4 +42,13 @@ export { MISTAKES, MISTAKE_KEYS, type MistakeInfo } from "./mistakes";
 export { graderVersion, BOLTZMANN, ELEMENTARY_CHARGE } from "./constants";
 export { seededRandom, hashString } from "./rng";
 export { rangeTable, RANGES, type RangeRow } from "./templates/range-resolution";
-export { uncertaintyBudget, rectangularStandardUncertainty, type UncertaintyBudget } from "./templates/uncertainty";
+export {
+  uncertaintyBudget,
+  rectangularStandardUncertainty,
+  quantisationStandardUncertainty,
+  chainInputs,
+  CONTRIBUTION_KEYS,
+  type UncertaintyBudget,
+  type BudgetRow,
+  type ContributionKey,
+} from "./templates/uncertainty";

@@ -14,6 +14,13 @@ export const MISTAKE_KEYS: MistakeKey[] = [
   "cutoff-as-bandwidth",
   "linear-sum",
   "no-root-three",
+  "step-not-halved",
+  "forgot-bias",
+  "wrong-guard-node",
+  "offset-wrong-sign",
+  "unhalved-difference",
+  "period-for-burst",
+  "ignored-aliasing",
 ];
 
 export interface MistakeInfo {
@@ -84,5 +91,40 @@ export const MISTAKES: Record<MistakeKey, MistakeInfo> = {
     title: "√3 left out",
     explain: "A ± specification is a bound, not a standard uncertainty.",
     fix: "For a bound ±a with no other information, assume a rectangular distribution: u = a/√3.",
+  },
+  "step-not-halved": {
+    title: "Quantisation step not halved",
+    explain: "A converter's rounding error lies within ±½ step, so the whole step q is the width of the rectangle, not its half-width.",
+    fix: "For a step q the standard uncertainty is (q/2)/√3 = q/√12.",
+  },
+  "forgot-bias": {
+    title: "Input bias current left out",
+    explain: "The amplifier's input bias current flows in the same node as the leakage and adds to the error, guard or no guard.",
+    fix: "Add the bias current to the leakage before you divide by the measured current; a guard removes leakage, never bias.",
+  },
+  "wrong-guard-node": {
+    title: "Guard at the wrong node",
+    explain: "A guard only helps when it sits at (almost) the potential of the input it protects; tied to the source side or to a fixed rail it leaves the full voltage across the insulation.",
+    fix: "Drive the guard from the input's own potential (the amplifier's inverting input or a buffer of it), so only the guard's residual offset remains across the insulation: I = V_g/R_ins.",
+  },
+  "offset-wrong-sign": {
+    title: "Offset added with the wrong sign",
+    explain: "The amplifier's offset and the thermoelectric voltage add to the shunt voltage in both polarities; they do not reverse with the current.",
+    fix: "Write each reading as ±I·R + V_os + V_th: the current's term changes sign when you reverse it, the offsets do not.",
+  },
+  "unhalved-difference": {
+    title: "Difference not halved",
+    explain: "The difference of the forward and reversed readings holds the signal twice.",
+    fix: "Take half the difference: I = (V₊ − V₋)/(2R); half the sum is the offset.",
+  },
+  "period-for-burst": {
+    title: "Period used instead of the burst width",
+    explain: "The samples that describe a burst are the ones that fall inside the burst, not inside the whole wake period.",
+    fix: "Use the burst width t_b: samples per burst = t_b·f_s and the lowest rate for N samples is N/t_b.",
+  },
+  "ignored-aliasing": {
+    title: "Aliasing ignored",
+    explain: "A sampler slower than twice the wake rate cannot show the true wake rate; the wakes appear at the distance to the nearest multiple of the sample rate.",
+    fix: "The apparent frequency is |f_w − n·f_s| with n the integer nearest to f_w/f_s.",
   },
 };

@@ -8,7 +8,10 @@ export type TemplateKey =
   | "duty-cycle"
   | "bidirectional-offset"
   | "filter-noise"
-  | "uncertainty";
+  | "uncertainty"
+  | "leakage-guard"
+  | "offset-thermal"
+  | "sampling-burst";
 
 export type SeriesName = "E6" | "E12" | "E24" | "E48" | "E96" | "E192";
 
@@ -72,7 +75,14 @@ export type MistakeKey =
   | "omitted-2pi"
   | "cutoff-as-bandwidth"
   | "linear-sum"
-  | "no-root-three";
+  | "no-root-three"
+  | "step-not-halved"
+  | "forgot-bias"
+  | "wrong-guard-node"
+  | "offset-wrong-sign"
+  | "unhalved-difference"
+  | "period-for-burst"
+  | "ignored-aliasing";
 
 export interface Template {
   key: TemplateKey;

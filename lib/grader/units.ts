@@ -14,6 +14,8 @@ export type Dimension =
   | "charge"
   | "power"
   | "percent"
+  | "conductance"
+  | "currentPerResistance"
   | "number";
 
 export type ParseResult =
@@ -31,6 +33,8 @@ const NOUN: Record<Dimension, string> = {
   charge: "a charge",
   power: "a power",
   percent: "a percentage",
+  conductance: "a current per volt (A/V)",
+  currentPerResistance: "a current per ohm (A/Ω)",
   number: "a plain number",
 };
 
@@ -47,6 +51,8 @@ export const UNIT_DIMENSION: Record<string, Dimension> = {
   C: "charge",
   W: "power",
   "%": "percent",
+  "A/V": "conductance",
+  "A/ohm": "currentPerResistance",
   "": "number",
 };
 
@@ -62,6 +68,8 @@ const EXAMPLE: Record<Dimension, string> = {
   charge: "220 mAh",
   power: "0.33 W",
   percent: "-0.99 %",
+  conductance: "100 mA/V",
+  currentPerResistance: "-1 mA/Ω",
   number: "620",
 };
 

@@ -1,6 +1,6 @@
 import { z } from "zod";
 
-/** The seven lab templates of lib/grader (GRADER.md); a lesson lists the ones it prepares for. */
+/** The ten lab templates of lib/grader (GRADER.md); a lesson lists the ones it prepares for. */
 export const templateKeys = [
   "shunt-burden",
   "shunt-selection",
@@ -9,6 +9,9 @@ export const templateKeys = [
   "bidirectional-offset",
   "filter-noise",
   "uncertainty",
+  "leakage-guard",
+  "offset-thermal",
+  "sampling-burst",
 ] as const;
 export type LessonTemplateKey = (typeof templateKeys)[number];
 

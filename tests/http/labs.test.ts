@@ -84,12 +84,23 @@ beforeAll(async () => {
 });
 
 describe("templates and lab authoring", () => {
-  it("lists the seven circuit templates with parameters and quantities", async () => {
+  it("lists the ten circuit templates with parameters and quantities", async () => {
     expect((await anon.json("/api/templates")).status).toBe(401);
     const r = await as.student.json("/api/templates");
     expect(r.status).toBe(200);
     expect(r.body.templates.map((t: { key: string }) => t.key).sort()).toEqual(
-      ["bidirectional-offset", "duty-cycle", "filter-noise", "range-resolution", "shunt-burden", "shunt-selection", "uncertainty"],
+      [
+        "bidirectional-offset",
+        "duty-cycle",
+        "filter-noise",
+        "leakage-guard",
+        "offset-thermal",
+        "range-resolution",
+        "sampling-burst",
+        "shunt-burden",
+        "shunt-selection",
+        "uncertainty",
+      ],
     );
   });
 

@@ -12,6 +12,7 @@ const subscribeNothing = () => () => {};
 const browserTimeZone = () => Intl.DateTimeFormat().resolvedOptions().timeZone;
 import { FormProvider, get, useForm, useWatch } from "react-hook-form";
 import { templates, TEMPLATE_KEYS, type TemplateKey, type VariantSpec } from "@/lib/grader";
+import { CircuitDiagram } from "@/components/lesson/diagrams";
 import type { LabInput } from "@/lib/validation/labs";
 import { RegradeProgress } from "../regrade-progress";
 import {
@@ -246,6 +247,7 @@ export function LabBuilder({ courseId, lab, notice }: LabBuilderProps) {
             />
           )}
           <p className="text-sm text-ink-soft">{template.summary}</p>
+          <CircuitDiagram template={template.key} idPrefix="builder" className="mb-0" />
         </section>
 
         <section className="card" aria-labelledby="sec-params">

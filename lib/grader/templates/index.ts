@@ -6,6 +6,9 @@ import { dutyCycle } from "./duty-cycle";
 import { bidirectionalOffset } from "./bidirectional-offset";
 import { filterNoise } from "./filter-noise";
 import { uncertainty } from "./uncertainty";
+import { leakageGuard } from "./leakage-guard";
+import { offsetThermal } from "./offset-thermal";
+import { samplingBurst } from "./sampling-burst";
 
 export const templates: Record<TemplateKey, Template> = {
   "shunt-burden": shuntBurden,
@@ -15,6 +18,9 @@ export const templates: Record<TemplateKey, Template> = {
   "bidirectional-offset": bidirectionalOffset,
   "filter-noise": filterNoise,
   uncertainty,
+  "leakage-guard": leakageGuard,
+  "offset-thermal": offsetThermal,
+  "sampling-burst": samplingBurst,
 };
 
 export const TEMPLATE_KEYS = Object.keys(templates) as TemplateKey[];

@@ -186,7 +186,7 @@ describe("worked solutions", () => {
 });
 
 describe("public contract", () => {
-  it("has the seven templates with the quantity names of GRADER.md", () => {
+  it("has the ten templates with the quantity names of GRADER.md and lib/grader/README.md", () => {
     const names: Record<string, string[]> = {
       "shunt-burden": ["trueCurrent", "indicatedCurrent", "burdenVoltage", "loadingErrorPercent"],
       "shunt-selection": ["idealShunt", "standardShunt", "burdenAtFullScale", "shuntPower"],
@@ -194,7 +194,24 @@ describe("public contract", () => {
       "duty-cycle": ["averageCurrent", "chargePerWake", "batteryLife"],
       "bidirectional-offset": ["signedCurrent", "maxPositiveCurrent", "maxNegativeCurrent"],
       "filter-noise": ["timeConstant", "cutoffFrequency", "settlingTime1pct", "noiseBandwidth", "thermalNoiseVoltage", "thermalNoiseCurrent"],
-      uncertainty: ["current", "relativeStandardUncertaintyPercent", "combinedStandardUncertainty", "expandedUncertainty"],
+      uncertainty: [
+        "current",
+        "relativeStandardUncertaintyPercent",
+        "combinedStandardUncertainty",
+        "expandedUncertainty",
+        "sensitivityReading",
+        "sensitivityShunt",
+        "readingContribution",
+        "shuntToleranceContribution",
+        "tempcoContribution",
+        "gainContribution",
+        "referenceContribution",
+        "quantisationContribution",
+        "dominantContribution",
+      ],
+      "leakage-guard": ["leakageCurrent", "leakageErrorPercent", "biasErrorPercent", "unguardedErrorPercent", "guardedLeakage", "guardedErrorPercent"],
+      "offset-thermal": ["thermalEmf", "apparentCurrent", "offsetErrorPercent", "forwardVoltage", "reverseVoltage", "reversedCurrent"],
+      "sampling-burst": ["samplesPerBurst", "minimumSampleRate", "apparentWakeFrequency", "worstCaseAverageError", "worstCaseErrorPercent"],
     };
     const params: Record<string, string[]> = {
       "shunt-burden": ["supplyVoltage", "loadResistance", "shuntResistance"],
@@ -203,7 +220,25 @@ describe("public contract", () => {
       "duty-cycle": ["sleepCurrent", "activeCurrent", "activeTime", "period", "batteryCapacity", "usableFraction"],
       "bidirectional-offset": ["offsetVoltage", "sensitivity", "outputVoltage", "fullScaleVoltage"],
       "filter-noise": ["filterResistance", "filterCapacitance", "shuntResistance", "temperature"],
-      uncertainty: ["reading", "readingAccuracyPercent", "readingCounts", "countSize", "shuntResistance", "shuntTolerancePercent", "coverageFactor"],
+      uncertainty: [
+        "reading",
+        "readingAccuracyPercent",
+        "readingCounts",
+        "countSize",
+        "shuntResistance",
+        "shuntTolerancePercent",
+        "coverageFactor",
+        "shuntTempcoPpm",
+        "temperatureChange",
+        "gainErrorPercent",
+        "referenceTolerancePercent",
+        "amplifierGain",
+        "adcBits",
+        "adcReference",
+      ],
+      "leakage-guard": ["sourceVoltage", "insulationResistance", "measuredCurrent", "biasCurrent", "guardVoltage"],
+      "offset-thermal": ["shuntResistance", "current", "offsetVoltage", "seebeckMicrovoltsPerKelvin", "junctionTemperatureDifference"],
+      "sampling-burst": ["sampleRate", "burstWidth", "requiredSamples", "wakePeriod", "logRate", "activeCurrent", "sleepCurrent"],
     };
     expect(Object.keys(templates).sort()).toEqual(Object.keys(names).sort());
     for (const key of TEMPLATE_KEYS) {

@@ -20,6 +20,10 @@ const bid = { offsetVoltage: 1.65, sensitivity: 1e6, outputVoltage: (3000 * 3.3)
 const fn = { filterResistance: 10e3, filterCapacitance: 100e-9, shuntResistance: 10e3, temperature: 300 };
 const unc = { reading: 1, readingAccuracyPercent: 0.5, readingCounts: 2, countSize: 1e-3, shuntResistance: 10, shuntTolerancePercent: 1, coverageFactor: 2 };
 const k = 1.380649e-23;
+const lg = { sourceVoltage: 10, insulationResistance: 1e11, measuredCurrent: 1e-9, biasCurrent: 5e-12, guardVoltage: 2e-3 };
+const ot = { shuntResistance: 1e-3, current: 0.1, offsetVoltage: 10e-6, seebeckMicrovoltsPerKelvin: 5, junctionTemperatureDifference: 1 };
+const sbp = { sampleRate: 1000, burstWidth: 5e-3, requiredSamples: 20, wakePeriod: 1.02, logRate: 1, activeCurrent: 20e-3, sleepCurrent: 2e-6 };
+const chain = { ...unc, reading: 50e-3, countSize: 0.1e-3, shuntResistance: 0.1, adcBits: 12, amplifierGain: 50, adcReference: 3.3 };
 
 const cases: Case[] = [
   // 3.267 mA read as 3.267 A (DOMAIN §12.2: exactly 10^±3 off)
@@ -55,6 +59,24 @@ const cases: Case[] = [
   // bounds as standard uncertainties: √(0.7² + 1²) = 1.221 %
   { key: "no-root-three", template: "uncertainty", params: unc, quantity: "relativeStandardUncertaintyPercent", wrong: "1.221 %", right: "0.7047 %" },
   { key: "no-root-three", template: "uncertainty", params: unc, quantity: "combinedStandardUncertainty", wrong: "1.221 mA", right: "0.7047 mA" },
+  // 3.3 V/(4096·50) = 16.11 µV at the shunt; over √3 instead of √12, divided by 0.1 Ω: 93.03 µA instead of 46.52 µA (by hand)
+  { key: "step-not-halved", template: "uncertainty", params: chain, quantity: "quantisationContribution", wrong: "93.03 uA", right: "46.52 uA" },
+  // 10 V / 100 GΩ = 100 pA against 1 nA; 5 pA bias left out: 10 % instead of 10.5 % (Ohm's law, by hand)
+  { key: "forgot-bias", template: "leakage-guard", params: lg, quantity: "unguardedErrorPercent", wrong: "10 %", right: "10.5 %" },
+  { key: "forgot-bias", template: "leakage-guard", params: lg, quantity: "guardedErrorPercent", wrong: "0.002 %", right: "0.502 %" },
+  // guard at the wrong node: the full 10 V stays across the insulation, 100 pA instead of 20 fA
+  { key: "wrong-guard-node", template: "leakage-guard", params: lg, quantity: "guardedLeakage", wrong: "100 pA", right: "20 fA" },
+  { key: "wrong-guard-node", template: "leakage-guard", params: lg, quantity: "guardedErrorPercent", wrong: "10.5 %", right: "0.502 %" },
+  // (5 µV − 10 µV)/1 mΩ = −5 mA instead of (10 µV + 5 µV)/1 mΩ = 15 mA; reversed reading −115 µV instead of −85 µV
+  { key: "offset-wrong-sign", template: "offset-thermal", params: ot, quantity: "apparentCurrent", wrong: "-5 mA", right: "15 mA" },
+  { key: "offset-wrong-sign", template: "offset-thermal", params: ot, quantity: "reverseVoltage", wrong: "-115 uV", right: "-85 uV" },
+  // (115 µV − (−85 µV))/1 mΩ = 200 mA instead of half of it
+  { key: "unhalved-difference", template: "offset-thermal", params: ot, quantity: "reversedCurrent", wrong: "200 mA", right: "100 mA" },
+  // 1.02 s × 1 kHz = 1020 samples instead of 5 ms × 1 kHz = 5; 20/1.02 s = 19.61 Hz instead of 4 kHz
+  { key: "period-for-burst", template: "sampling-burst", params: sbp, quantity: "samplesPerBurst", wrong: 1020, right: 5 },
+  { key: "period-for-burst", template: "sampling-burst", params: sbp, quantity: "minimumSampleRate", wrong: "19.61 Hz", right: "4 kHz" },
+  // 1/1.02 s = 980.4 mHz reported; the 1 Hz logger shows |0.9804 − 1| Hz = 19.61 mHz
+  { key: "ignored-aliasing", template: "sampling-burst", params: sbp, quantity: "apparentWakeFrequency", wrong: "980.4 mHz", right: "19.61 mHz" },
 ];
 
 function grade(c: Case, answer: string | number) {
@@ -64,7 +86,7 @@ function grade(c: Case, answer: string | number) {
 describe("recognised mistakes", () => {
   it("every key in GRADER.md has a case", () => {
     expect(new Set(cases.map((c) => c.key))).toEqual(new Set(MISTAKE_KEYS));
-    expect(MISTAKE_KEYS.length).toBe(12);
+    expect(MISTAKE_KEYS.length).toBe(19);
   });
   for (const c of cases) {
     it(`${c.key}: ${c.template}.${c.quantity} "${c.wrong}" is recognised; "${c.right}" is correct`, () => {
