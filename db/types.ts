@@ -118,6 +118,38 @@ export interface AttemptsTable {
   graded_at: Generated<Date>;
   review_requested_at: Timestamp | null;
   review_message: string | null;
+  review_answer: string | null;
+  review_answered_at: Timestamp | null;
+  review_answered_by: string | null;
+  /** true once staff overrode a question's points or re-ran the grader */
+  changed_by_staff: Generated<boolean>;
+  /** points set by staff per question, applied over the grader's and kept through recomputations */
+  overrides: ColumnType<Record<string, StaffOverride>, string | undefined, string>;
+}
+
+export interface StaffOverride {
+  points: number;
+  reason: string;
+  by: string;
+  at: string;
+}
+
+export type GradeEventKind = "graded" | "recomputed" | "override" | "rerun" | "review_answer";
+
+/** Append-only (a trigger refuses UPDATE and DELETE). Attempt-level events carry the raw points total in points_*; question events the question's points. */
+export interface GradeEventsTable {
+  id: ColumnType<string, never, never>;
+  attempt_id: string;
+  question_id: string | null;
+  kind: GradeEventKind;
+  actor_id: string | null;
+  created_at: Generated<Date>;
+  points_before: number | null;
+  points_after: number | null;
+  score_before: number | null;
+  score_after: number | null;
+  reason: string | null;
+  grader_version: string | null;
 }
 
 export interface LabRegradesTable {
@@ -150,6 +182,7 @@ export interface Database {
   uploads: UploadsTable;
   attempts: AttemptsTable;
   lab_regrades: LabRegradesTable;
+  grade_events: GradeEventsTable;
   course_lessons: CourseLessonsTable;
 }
 

@@ -1,6 +1,6 @@
 // Graded attempts. Readings, measured values and the grade are stored together in one row.
 import { sql, type Kysely, type Transaction } from "kysely";
-import type { Database } from "../types";
+import type { Database, StaffOverride } from "../types";
 
 type Db = Kysely<Database> | Transaction<Database>;
 
@@ -24,6 +24,11 @@ const ATTEMPT_COLUMNS = [
   "a.graded_at as gradedAt",
   "a.review_requested_at as reviewRequestedAt",
   "a.review_message as reviewMessage",
+  "a.review_answer as reviewAnswer",
+  "a.review_answered_at as reviewAnsweredAt",
+  "a.review_answered_by as reviewAnsweredBy",
+  "a.changed_by_staff as changedByStaff",
+  "a.overrides",
 ] as const;
 
 export async function findAttempt(db: Db, attemptId: string) {
@@ -119,10 +124,24 @@ export async function insertAttempt(db: Db, a: AttemptWrite): Promise<string> {
   return row.id;
 }
 
+/** The attempt, locked until the transaction ends: concurrent grade changes to one attempt run one after another. */
+export async function lockAttempt(trx: Transaction<Database>, attemptId: string) {
+  return trx.selectFrom("attempts as a").select(ATTEMPT_COLUMNS).where("a.id", "=", attemptId).forUpdate().executeTakeFirst();
+}
+
 export async function updateAttemptGrade(
   db: Db,
   attemptId: string,
-  g: { result: unknown; rawScore: number; maxScore: number; score: number; graderVersion: string; labVersion: number },
+  g: {
+    result: unknown;
+    rawScore: number;
+    maxScore: number;
+    score: number;
+    graderVersion: string;
+    labVersion: number;
+    overrides?: Record<string, StaffOverride>;
+    changedByStaff?: boolean;
+  },
 ) {
   await db
     .updateTable("attempts")
@@ -134,7 +153,17 @@ export async function updateAttemptGrade(
       grader_version: g.graderVersion,
       lab_version: g.labVersion,
       graded_at: new Date(),
+      ...(g.overrides ? { overrides: JSON.stringify(g.overrides) } : {}),
+      ...(g.changedByStaff ? { changed_by_staff: true } : {}),
     })
+    .where("id", "=", attemptId)
+    .execute();
+}
+
+export async function answerReview(db: Db, attemptId: string, answer: string, byUserId: string, at: Date) {
+  await db
+    .updateTable("attempts")
+    .set({ review_answer: answer, review_answered_at: at, review_answered_by: byUserId })
     .where("id", "=", attemptId)
     .execute();
 }

@@ -8,6 +8,7 @@ import { attemptRecord, gradeForLab, toLab, withIds, type TraceSummary } from ".
 import { analyzeTrace, squareWaveCsv } from "../../lib/trace";
 import { findLab, insertLab } from "../queries/labs";
 import { insertAttempt } from "../queries/attempts";
+import { insertGradeEvent } from "../queries/grade-events";
 import { insertUpload } from "../queries/uploads";
 import type { Database } from "../types";
 
@@ -365,10 +366,9 @@ export async function seedLabs(
         // one student in each graded lab submits a day and a half late
         const late = demo.state === "graded" && si2 === 7 && n === 1;
         const submittedAt = new Date((late ? lab.dueAt!.getTime() + 1.5 * DAY : (lab.opensAt?.getTime() ?? now) + (1 + r() * 5) * DAY + n * 3600_000));
-        await insertAttempt(
-          db,
-          attemptRecord({ lab, userId: student.id, number: n, idempotencyKey: `demo-${n}`, readings, measured: { typed: {}, values: {} }, uploadIds, params, result, submittedAt }),
-        );
+        const record = attemptRecord({ lab, userId: student.id, number: n, idempotencyKey: `demo-${n}`, readings, measured: { typed: {}, values: {} }, uploadIds, params, result, submittedAt });
+        const attemptId = await insertAttempt(db, record);
+        await insertGradeEvent(db, { attemptId, kind: "graded", pointsAfter: record.rawScore, scoreAfter: record.score, graderVersion: record.graderVersion, at: submittedAt });
       }
     }
   }

@@ -1,12 +1,12 @@
 // Recomputes every attempt of a lab after a published lab changed. Runs as a job; the lab_regrades row
-// records its progress for the lab page's progress bar. Late penalties already applied are kept.
+// records its progress for the lab page's progress bar. Late penalties already applied and staff points
+// are kept; each attempt's recomputation is a row of its grade history.
 import { db } from "@/db";
-import { listAttempts, updateAttemptGrade } from "@/db/queries/attempts";
+import { listAttempts } from "@/db/queries/attempts";
 import { findLab } from "@/db/queries/labs";
 import { findUploads } from "@/db/queries/uploads";
-import type { Params } from "@/lib/grader";
-import { applyPenalty } from "./policy";
-import { gradeForLab, toLab, type TraceSummary } from "./grading";
+import { toLab, type TraceSummary } from "./grading";
+import { recomputeAttempt } from "./rescore";
 
 export async function startRegrade(labId: string, labVersion: number, total: number): Promise<{ id: string; total: number }> {
   const row = await db
@@ -40,21 +40,17 @@ export async function runRegrade(regradeId: string): Promise<void> {
   try {
     let done = 0;
     for (const a of attempts) {
-      const stored = a.result as { params?: Params };
-      const measured = (a.measured as { values?: Params }).values ?? {};
+      // graded (or already recomputed, when a job is retried) with this version of the lab: nothing to do
+      if (a.labVersion === lab.version) {
+        done++;
+        continue;
+      }
       const traces = a.uploadIds
         .map((id) => uploads.get(id))
         .filter((u) => u?.kind === "trace" && u.analysis)
         .map((u) => u!.analysis as TraceSummary);
-      const result = gradeForLab(lab, stored.params ?? {}, a.readings as Record<string, string | null>, measured, traces);
-      await updateAttemptGrade(db, a.id, {
-        result: { ...result, params: stored.params },
-        rawScore: result.score,
-        maxScore: result.maxScore,
-        score: applyPenalty(result.score, a.penaltyPercent),
-        graderVersion: result.graderVersion,
-        labVersion: lab.version,
-      });
+      // one transaction per attempt, on the locked row: a staff change made meanwhile is kept, not lost
+      await db.transaction().execute((trx) => recomputeAttempt(trx, lab, a.id, traces, { kind: "recomputed" }));
       done++;
       if (done % 10 === 0 || done === attempts.length) {
         await db.updateTable("lab_regrades").set({ done }).where("id", "=", regradeId).execute();

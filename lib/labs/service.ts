@@ -13,6 +13,7 @@ import {
   lockStudentLab,
   type AttemptRow,
 } from "@/db/queries/attempts";
+import { insertGradeEvent } from "@/db/queries/grade-events";
 import { findLab, findVariant, insertLab, listLabs, storeVariant } from "@/db/queries/labs";
 import { findUploads } from "@/db/queries/uploads";
 import { assertRole, EVERYONE, isStaff, requireCourseRole, type CourseAccess } from "@/lib/auth/access";
@@ -93,21 +94,20 @@ export async function submitAttempt(lab: Lab, access: CourseAccess, input: Submi
     }
     const params = await variantFor(lab, userId, trx);
     const result = gradeForLab(lab, params, input.readings, measured, traces);
-    const attemptId = await insertAttempt(
-      trx,
-      attemptRecord({
-        lab,
-        userId,
-        number: used + 1,
-        idempotencyKey: input.idempotencyKey,
-        readings: input.readings,
-        measured: { typed: input.measured, values: measured },
-        uploadIds: input.uploadIds,
-        params,
-        result,
-        submittedAt: now,
-      }),
-    );
+    const record = attemptRecord({
+      lab,
+      userId,
+      number: used + 1,
+      idempotencyKey: input.idempotencyKey,
+      readings: input.readings,
+      measured: { typed: input.measured, values: measured },
+      uploadIds: input.uploadIds,
+      params,
+      result,
+      submittedAt: now,
+    });
+    const attemptId = await insertAttempt(trx, record);
+    await insertGradeEvent(trx, { attemptId, kind: "graded", pointsAfter: record.rawScore, scoreAfter: record.score, graderVersion: record.graderVersion });
     return { attemptId, created: true };
   });
 }
