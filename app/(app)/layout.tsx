@@ -1,6 +1,7 @@
 import Link from "next/link";
 import { SignOutButton } from "@/components/shell/sign-out-button";
 import { Wordmark } from "@/components/shell/wordmark";
+import { QueryProvider } from "@/components/providers/query-provider";
 import { currentUser } from "@/lib/auth/access";
 
 export default async function AppLayout({ children }: { children: React.ReactNode }) {
@@ -20,7 +21,9 @@ export default async function AppLayout({ children }: { children: React.ReactNod
           ) : null}
         </div>
       </header>
-      <main className="mx-auto max-w-5xl px-4 py-8">{children}</main>
+      <main className="mx-auto max-w-5xl px-4 py-8">
+        <QueryProvider>{children}</QueryProvider>
+      </main>
     </div>
   );
 }

@@ -2,9 +2,10 @@
 
 // The instructor's lesson plan: which lessons appear, in which order, and when each opens.
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useState } from "react";
+import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { useFieldArray, useForm } from "react-hook-form";
 import { FormMessage } from "@/components/ui/field";
+import { api, isApiError } from "@/lib/api-client";
 import { lessonPlanSchema, type LessonPlan, type LessonPlanInput } from "@/lib/validation/course-lessons";
 
 export interface PlanRow {
@@ -24,22 +25,30 @@ function toLocalInput(iso: string | null): string {
 
 export function LessonPlanEditor({ courseId, initial }: { courseId: string; initial: { slug: string; title: string; visible: boolean; opensAt: string | null }[] }) {
   const titles = Object.fromEntries(initial.map((l) => [l.slug, l.title]));
-  const [message, setMessage] = useState<{ text: string; tone: "error" | "info" } | null>(null);
   const form = useForm<LessonPlanInput, unknown, LessonPlan>({
     resolver: zodResolver(lessonPlanSchema),
     defaultValues: { lessons: initial.map((l) => ({ slug: l.slug, visible: l.visible, opensAt: toLocalInput(l.opensAt) })) },
   });
   const { fields, move } = useFieldArray({ control: form.control, name: "lessons" });
 
+  const queryClient = useQueryClient();
+  const save = useMutation({
+    mutationFn: (values: LessonPlan) =>
+      api(`/api/courses/${courseId}/lessons`, {
+        method: "PUT",
+        // the schema read each local date-time in the browser's time zone; send it as an instant
+        body: { lessons: values.lessons.map((l) => ({ ...l, opensAt: l.opensAt ? l.opensAt.toISOString() : null })) },
+      }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: ["course-lessons", courseId] }),
+  });
+  const message = save.isSuccess
+    ? { text: "The lesson plan is saved.", tone: "info" as const }
+    : save.isError
+      ? { text: (isApiError(save.error) && save.error.serverMessage) || "The plan could not be saved.", tone: "error" as const }
+      : null;
+
   const onSubmit = form.handleSubmit(async (values) => {
-    setMessage(null);
-    const body = {
-      // the schema read each local date-time in the browser's time zone; send it as an instant
-      lessons: values.lessons.map((l) => ({ ...l, opensAt: l.opensAt ? l.opensAt.toISOString() : null })),
-    };
-    const res = await fetch(`/api/courses/${courseId}/lessons`, { method: "PUT", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
-    if (res.ok) setMessage({ text: "The lesson plan is saved.", tone: "info" });
-    else setMessage({ text: ((await res.json().catch(() => null)) as { error?: { message?: string } } | null)?.error?.message ?? "The plan could not be saved.", tone: "error" });
+    await save.mutateAsync(values).catch(() => undefined);
   });
 
   return (

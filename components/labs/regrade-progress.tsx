@@ -1,38 +1,29 @@
 "use client";
 // Progress of a lab's regrade job: polls GET /api/labs/{labId} until the latest regrade is done or failed.
-import { useEffect, useState } from "react";
+import { useQuery } from "@tanstack/react-query";
+import { api } from "@/lib/api-client";
 
 type Regrade = { id?: string; status: "queued" | "running" | "done" | "failed"; total: number; done: number };
 
-export function RegradeProgress({ labId, regradeId, total, intervalMs = 1000 }: { labId: string; regradeId: string; total: number; intervalMs?: number }) {
-  const [state, setState] = useState<Regrade>({ id: regradeId, status: "queued", total, done: 0 });
-  const [problem, setProblem] = useState<string | null>(null);
+const finished = (r: Regrade | undefined) => r?.status === "done" || r?.status === "failed";
 
-  useEffect(() => {
-    let stopped = false;
-    let timer: ReturnType<typeof setTimeout> | undefined;
-    async function poll() {
-      try {
-        const res = await fetch(`/api/labs/${labId}`, { headers: { accept: "application/json" }, cache: "no-store" });
-        if (!res.ok) throw new Error(`status ${res.status}`);
-        const body = (await res.json()) as { regrade?: Regrade | null };
-        const r = body.regrade;
-        if (!stopped && r && (!r.id || r.id === regradeId)) {
-          setState(r);
-          setProblem(null);
-          if (r.status === "done" || r.status === "failed") return;
-        }
-      } catch {
-        if (!stopped) setProblem("Could not fetch the progress; trying again.");
-      }
-      if (!stopped) timer = setTimeout(poll, intervalMs);
-    }
-    void poll();
-    return () => {
-      stopped = true;
-      if (timer) clearTimeout(timer);
-    };
-  }, [labId, regradeId, intervalMs]);
+export function RegradeProgress({ labId, regradeId, total, intervalMs = 1000 }: { labId: string; regradeId: string; total: number; intervalMs?: number }) {
+  const poll = useQuery({
+    queryKey: ["lab", labId, "regrade"],
+    queryFn: ({ signal }) => api<{ regrade?: Regrade | null }>(`/api/labs/${labId}`, { signal }),
+    // Only this regrade's progress counts; an older one in the answer is ignored.
+    select: (body): Regrade | undefined => (body.regrade && (!body.regrade.id || body.regrade.id === regradeId) ? body.regrade : undefined),
+    refetchInterval: (q) => {
+      const r = q.state.data?.regrade;
+      return r && (!r.id || r.id === regradeId) && finished(r) ? false : intervalMs;
+    },
+    // Keep polling through failures: each one is reported and the next poll tries again.
+    refetchIntervalInBackground: true,
+    retry: false,
+    staleTime: 0,
+  });
+  const state: Regrade = poll.data ?? { id: regradeId, status: "queued", total, done: 0 };
+  const problem = poll.isError && !finished(poll.data) ? "Could not fetch the progress; trying again." : null;
 
   const max = Math.max(state.total, 0);
   const now = state.status === "done" ? max : Math.min(state.done, max);

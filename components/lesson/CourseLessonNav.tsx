@@ -4,24 +4,23 @@
 // plan, fetched from the course's lesson list. Without a course in the address nothing is shown.
 import Link from "next/link";
 import { useSearchParams } from "next/navigation";
-import { useEffect, useState } from "react";
+import { useQuery } from "@tanstack/react-query";
+import { api } from "@/lib/api-client";
 
 type Item = { slug: string; title: string; open: boolean };
 
 export function CourseLessonNav({ slug }: { slug: string }) {
   const course = useSearchParams().get("course");
-  const [items, setItems] = useState<Item[] | null>(null);
-  useEffect(() => {
-    if (!course || !/^[0-9a-f-]{36}$/i.test(course)) return;
-    let live = true;
-    fetch(`/api/courses/${course}/lessons`)
-      .then((r) => (r.ok ? r.json() : null))
-      .then((b: { lessons: Item[] } | null) => live && b && setItems(b.lessons.filter((l) => l.open)));
-    return () => {
-      live = false;
-    };
-  }, [course]);
-  if (!course || !items) return null;
+  const valid = Boolean(course && /^[0-9a-f-]{36}$/i.test(course));
+  const { data: items } = useQuery({
+    queryKey: ["course-lessons", course],
+    queryFn: ({ signal }) => api<{ lessons: Item[] }>(`/api/courses/${course}/lessons`, { signal }),
+    select: (b) => b.lessons.filter((l) => l.open),
+    enabled: valid,
+    // Not being able to place the lesson in a course only hides this bar; no retry, no message.
+    retry: false,
+  });
+  if (!valid || !items) return null;
   const i = items.findIndex((l) => l.slug === slug);
   if (i < 0) return null;
   const prev = items[i - 1];

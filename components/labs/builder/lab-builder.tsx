@@ -11,7 +11,9 @@ import { useEffect, useMemo, useRef, useState, useSyncExternalStore } from "reac
 const subscribeNothing = () => () => {};
 const browserTimeZone = () => Intl.DateTimeFormat().resolvedOptions().timeZone;
 import { FormProvider, get, useForm, useWatch } from "react-hook-form";
-import { templates, TEMPLATE_KEYS, type TemplateKey, type VariantSpec } from "@/lib/grader";
+import { FormMessage } from "@/components/ui/field";
+import { api, isApiError } from "@/lib/api-client";
+import { templates, TEMPLATE_KEYS, type TemplateKey } from "@/lib/grader";
 import { CircuitDiagram } from "@/components/lesson/diagrams";
 import type { LabInput } from "@/lib/validation/labs";
 import { RegradeProgress } from "../regrade-progress";
@@ -45,7 +47,7 @@ export interface LabBuilderProps {
 }
 
 type Intent = "draft" | "preview" | "publish";
-type ApiError = { error?: { code?: string; message?: string; fields?: Record<string, string[]> } };
+type Saved = { lab: { id: string }; regrade?: { id: string; total: number } | null };
 
 /**
  * Sent with every PATCH: the API's patch schema fills in defaults for absent instructions, safety notes
@@ -114,24 +116,24 @@ export function LabBuilder({ courseId, lab, notice }: LabBuilderProps) {
     clearErrors();
   }
 
-  async function send(url: string, method: "POST" | "PATCH", body: unknown): Promise<{ ok: true; data: Record<string, unknown> } | { ok: false }> {
-    let res: Response;
+  /** One request of a save; a refusal puts the API's field errors under their fields and says why. */
+  async function send<T>(url: string, method: "POST" | "PATCH", body: unknown): Promise<{ ok: true; data: T } | { ok: false }> {
     try {
-      res = await fetch(url, { method, headers: { "content-type": "application/json", accept: "application/json" }, body: JSON.stringify(body) });
-    } catch {
-      say("error", "The server could not be reached. Nothing was saved; try again.");
+      return { ok: true, data: await api<T>(url, { method, body }) };
+    } catch (e) {
+      if (!isApiError(e) || e.status === 0) {
+        say("error", "The server could not be reached. Nothing was saved; try again.");
+        return { ok: false };
+      }
+      const mapped = mapServerErrors(e.fields);
+      let first = true;
+      for (const [path, text] of Object.entries(mapped)) {
+        setError(path as never, { type: "server", message: text }, { shouldFocus: first && !path.startsWith("root.") });
+        first = false;
+      }
+      say("error", e.serverMessage ?? `The lab could not be saved (HTTP ${e.status}).`);
       return { ok: false };
     }
-    const data = (await res.json().catch(() => ({}))) as Record<string, unknown> & ApiError;
-    if (res.ok) return { ok: true, data };
-    const mapped = mapServerErrors(data.error?.fields);
-    let first = true;
-    for (const [path, text] of Object.entries(mapped)) {
-      setError(path as never, { type: "server", message: text }, { shouldFocus: first && !path.startsWith("root.") });
-      first = false;
-    }
-    say("error", data.error?.message ?? `The lab could not be saved (HTTP ${res.status}).`);
-    return { ok: false };
   }
 
   async function save(input: LabInput, how: Intent) {
@@ -139,11 +141,11 @@ export function LabBuilder({ courseId, lab, notice }: LabBuilderProps) {
     setMessage(null);
     try {
       if (!lab) {
-        const created = await send(`/api/courses/${courseId}/labs`, "POST", input);
+        const created = await send<Saved>(`/api/courses/${courseId}/labs`, "POST", input);
         if (!created.ok) return;
-        const id = (created.data.lab as { id: string }).id;
+        const id = created.data.lab.id;
         if (how === "publish") {
-          const published = await send(`/api/labs/${id}`, "PATCH", { ...alwaysSent(input), status: "published" });
+          const published = await send<Saved>(`/api/labs/${id}`, "PATCH", { ...alwaysSent(input), status: "published" });
           if (!published.ok) {
             router.push(`/labs/${id}/edit?notice=draft-saved`);
             return;
@@ -159,12 +161,12 @@ export function LabBuilder({ courseId, lab, notice }: LabBuilderProps) {
       if (how === "publish" && status === "draft") changed.status = "published";
       const patch = Object.keys(changed).length > 0 ? { ...alwaysSent(input), ...changed } : changed;
       if (Object.keys(patch).length > 0) {
-        const saved = await send(`/api/labs/${lab.id}`, "PATCH", patch);
+        const saved = await send<Saved>(`/api/labs/${lab.id}`, "PATCH", patch);
         if (!saved.ok) return;
         baseline.current = input;
         reset(getValues(), { keepValues: true });
         if (patch.status === "published") setStatus("published");
-        const r = saved.data.regrade as { id: string; total: number } | null | undefined;
+        const r = saved.data.regrade;
         if (r) {
           setRegrade(r);
           say("info", `Saved. The grades of ${r.total} attempt${r.total === 1 ? " are" : "s are"} being recomputed.`);
@@ -208,12 +210,7 @@ export function LabBuilder({ courseId, lab, notice }: LabBuilderProps) {
     <FormProvider {...methods}>
       <form noValidate data-ready={hydrated ? "true" : undefined} onSubmit={(e) => void handleSubmit(onValid, onInvalid)(e)} aria-label={lab ? "Edit the lab" : "New lab"} className="grid gap-6">
         <div ref={messageRef} tabIndex={-1} className="outline-none">
-          <div
-            role={message?.tone === "error" ? "alert" : "status"}
-            className={message ? (message.tone === "error" ? "rounded-md bg-verdict-wrong/10 p-3 text-sm text-verdict-wrong" : "rounded-md bg-trace-pale p-3 text-sm text-trace") : ""}
-          >
-            {message ? (message.tone === "error" ? `Not saved: ${message.text}` : message.text) : ""}
-          </div>
+          <FormMessage tone={message?.tone} message={message ? (message.tone === "error" ? `Not saved: ${message.text}` : message.text) : null} />
           {formState.errors.root?.server?.message ? <p className="field-error">{formState.errors.root.server.message}</p> : null}
         </div>
 

@@ -1,48 +1,45 @@
 "use client";
 // "Ask for a review": a message to the course staff about one graded attempt.
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useId, useState } from "react";
+import { useMutation } from "@tanstack/react-query";
+import { useId } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
+import { FormMessage } from "@/components/ui/field";
+import { api, isApiError } from "@/lib/api-client";
 import { reviewRequestSchema } from "@/lib/validation/labs";
-import { apiError } from "../submit/read";
 
 type Values = z.input<typeof reviewRequestSchema>;
+type Sent = z.output<typeof reviewRequestSchema>;
+
+function failureText(e: unknown): string {
+  if (!isApiError(e) || e.status === 0) return "Your request did not reach the server. Check your connection and send it again; your message is still here.";
+  return e.serverMessage ?? `The request failed (HTTP ${e.status}).`;
+}
 
 export function ReviewForm({ attemptId, onRequested }: { attemptId: string; onRequested: () => void }) {
   const id = useId();
-  const [message, setMessage] = useState<string | null>(null);
-  const { register, handleSubmit, formState, setError } = useForm<Values, unknown, z.output<typeof reviewRequestSchema>>({
+  const { register, handleSubmit, formState, setError } = useForm<Values, unknown, Sent>({
     resolver: zodResolver(reviewRequestSchema),
     defaultValues: { message: "" },
+  });
+  const send = useMutation({
+    mutationFn: (values: Sent) => api(`/api/attempts/${attemptId}/review`, { method: "POST", body: values }),
+    onSuccess: onRequested,
+    onError: (e) => {
+      const first = isApiError(e) ? e.fields?.message?.[0] : undefined;
+      if (first) setError("message", { type: "server", message: first });
+    },
   });
   const error = formState.errors.message?.message;
 
   const onSubmit = handleSubmit(async (values) => {
-    setMessage(null);
-    let status = 0;
-    let body: unknown = null;
-    try {
-      const res = await fetch(`/api/attempts/${attemptId}/review`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(values) });
-      status = res.status;
-      body = await res.json().catch(() => null);
-    } catch {
-      status = 0;
-    }
-    if (status === 201 || status === 200) {
-      onRequested();
-      return;
-    }
-    const err = apiError(body);
-    if (err.fields?.message?.[0]) setError("message", { type: "server", message: err.fields.message[0] });
-    setMessage(status === 0 ? "Your request did not reach the server. Check your connection and send it again; your message is still here." : (err.message ?? `The request failed (HTTP ${status}).`));
+    await send.mutateAsync(values).catch(() => undefined);
   });
 
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Ask for a review" className="mt-3">
-      <div role="alert" className={message ? "mb-3 rounded-md bg-verdict-wrong/10 p-3 text-sm text-verdict-wrong" : ""}>
-        {message ?? ""}
-      </div>
+      <FormMessage message={send.isError ? failureText(send.error) : null} />
       <label htmlFor={id} className="field-label">
         What should the staff look at again?
       </label>

@@ -3,7 +3,8 @@
 // it is chosen, with a progress bar; a refusal (too large, wrong type) is shown under the field.
 import { useEffect, useId, useRef, useState } from "react";
 import { formatQuantity } from "@/lib/grader/format";
-import { apiError, uploadErrorMessage } from "./read";
+import { toApiError } from "@/lib/api-client";
+import { uploadErrorMessage } from "./read";
 import { sendUpload, type UploadedFile } from "./upload";
 
 type State =
@@ -79,7 +80,7 @@ export function FileField({
       onChange(upload);
       return;
     }
-    setState({ step: "error", name: file.name, message: uploadErrorMessage(status, apiError(body)) });
+    setState({ step: "error", name: file.name, message: uploadErrorMessage(status, toApiError(status, body).detail) });
   }
 
   function remove() {

@@ -2,6 +2,7 @@
 // keys and the messages for server and upload errors. No React, so the unit tests run them directly.
 import { formatQuantity } from "@/lib/grader/format";
 import { parseQuantity } from "@/lib/grader/units";
+import type { ApiErrorDetail } from "@/lib/api-client";
 
 /** What the form needs to know about one question (a subset of the handout's `questions`). */
 export interface FormQuestion {
@@ -106,21 +107,6 @@ export function newIdempotencyKey(c: Pick<Crypto, "getRandomValues"> & { randomU
   return Array.from(bytes, (b) => b.toString(16).padStart(2, "0")).join("");
 }
 
-export interface ApiError {
-  code?: string;
-  message?: string;
-  fields?: Record<string, string[]>;
-}
-
-/** Reads `{error:{…}}` from a response body, whatever it holds. */
-export function apiError(body: unknown): ApiError {
-  if (body && typeof body === "object" && "error" in body) {
-    const e = (body as { error: unknown }).error;
-    if (e && typeof e === "object") return e as ApiError;
-  }
-  return {};
-}
-
 export interface MappedErrors {
   /** react-hook-form paths ("readings.q2", "measured.loadResistance") and their first message */
   fields: { path: string; message: string }[];
@@ -146,7 +132,7 @@ export function mapServerFields(fields: Record<string, string[]> | undefined, kn
 }
 
 /** The message for a failed submission, by status. */
-export function submitErrorMessage(status: number, error: ApiError): string {
+export function submitErrorMessage(status: number, error: ApiErrorDetail): string {
   if (status === 0) return "Your answers did not reach the server. Check your connection and submit again: nothing you typed is lost, and a retry cannot make a second attempt.";
   if (status === 401) return "Your session has ended. Sign in again in another tab, then submit: your answers stay in this form.";
   if (status === 409) return error.message ?? "This lab does not accept an attempt now.";
@@ -156,7 +142,7 @@ export function submitErrorMessage(status: number, error: ApiError): string {
 }
 
 /** The message shown under a file field when its upload fails. */
-export function uploadErrorMessage(status: number, error: ApiError): string {
+export function uploadErrorMessage(status: number, error: ApiErrorDetail): string {
   if (status === 0) return "The file did not reach the server. Check your connection and choose the file again.";
   if (status === 413) return error.message ?? "That file is too large to upload.";
   if (status === 415) return error.message ?? "That kind of file is not accepted. Attach a PNG or JPEG scope capture, or a CSV trace.";

@@ -3,14 +3,16 @@
 // optional measured component values, optional files with upload progress, and one idempotency key per
 // form so that a double click or a retry makes a single attempt.
 import { zodResolver } from "@hookform/resolvers/zod";
+import { useMutation } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
 import { useId, useMemo, useRef, useState, type FormEvent } from "react";
 import { useForm, useWatch, type Control, type UseFormRegisterReturn } from "react-hook-form";
 import type { z } from "zod";
+import { FormMessage } from "@/components/ui/field";
+import { api, isApiError } from "@/lib/api-client";
 import { attemptInputSchema, type AttemptInput } from "@/lib/validation/labs";
 import { FileField } from "./file-field";
 import {
-  apiError,
   echoReading,
   echoText,
   mapServerFields,
@@ -115,6 +117,7 @@ export function SubmissionForm({ labId, questions, components }: { labId: string
   const [busyUploads, setBusyUploads] = useState({ image: false, trace: false });
   const [sent, setSent] = useState(false);
   const inFlight = useRef(false);
+  const submit = useMutation({ mutationFn: (body: AttemptInput) => api<{ attempt: { id: string } }>(`/api/labs/${labId}/attempts`, { method: "POST", body }) });
 
   const schema = useMemo(
     () =>
@@ -163,28 +166,21 @@ export function SubmissionForm({ labId, questions, components }: { labId: string
           measured: measuredPayload(values.measured ?? {}),
           uploadIds: [image?.id, trace?.id].filter((x): x is string => Boolean(x)),
         };
-        let status = 0;
-        let json: unknown = null;
         try {
-          const res = await fetch(`/api/labs/${labId}/attempts`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
-          status = res.status;
-          json = await res.json().catch(() => null);
-        } catch {
-          status = 0;
-        }
-        if (status === 200 || status === 201) {
-          const attempt = (json as { attempt: { id: string } }).attempt;
+          const { attempt } = await submit.mutateAsync(body);
           setSent(true);
           router.push(`/attempts/${attempt.id}`);
           return;
+        } catch (e) {
+          inFlight.current = false;
+          const status = isApiError(e) ? e.status : 0;
+          const err = isApiError(e) ? e.detail : {};
+          const mapped = mapServerFields(err.fields, { readings: questions.map((q) => q.id), measured: components.map((c) => c.key) });
+          for (const f of mapped.fields) setError(f.path as `readings.${string}`, { type: "server", message: f.message });
+          if (mapped.files.length) setFileErrors(mapped.files.join(" "));
+          setMessage([submitErrorMessage(status, err), ...mapped.form.filter((m) => m !== err.message)].join(" "));
+          if (mapped.fields[0]) setFocus(mapped.fields[0].path as `readings.${string}`);
         }
-        inFlight.current = false;
-        const err = apiError(json);
-        const mapped = mapServerFields(err.fields, { readings: questions.map((q) => q.id), measured: components.map((c) => c.key) });
-        for (const f of mapped.fields) setError(f.path as `readings.${string}`, { type: "server", message: f.message });
-        if (mapped.files.length) setFileErrors(mapped.files.join(" "));
-        setMessage([submitErrorMessage(status, err), ...mapped.form.filter((m) => m !== err.message)].join(" "));
-        if (mapped.fields[0]) setFocus(mapped.fields[0].path as `readings.${string}`);
       },
       (invalid) => {
         const names: string[] = [];
@@ -204,9 +200,7 @@ export function SubmissionForm({ labId, questions, components }: { labId: string
       <p className="mt-1 mb-4 text-sm text-ink-soft">
         Type each value with its unit. Under each field you see how it will be read before you submit. Leave a field empty to skip that question.
       </p>
-      <div role="alert" className={message ? "mb-4 rounded-md bg-verdict-wrong/10 p-3 text-sm text-verdict-wrong" : ""}>
-        {message ?? ""}
-      </div>
+      <FormMessage message={message} />
       <input type="hidden" {...register("idempotencyKey")} />
 
       <fieldset className="card mb-4">

@@ -1,5 +1,6 @@
 import katex from "katex";
 import type { Metadata } from "next";
+import { asJson } from "@/lib/api-client";
 import { forPage, isStaff, refused } from "@/lib/auth/access";
 import { attemptAccess, attemptsFor, presentAttempt } from "@/lib/labs/service";
 import { Refusal } from "@/components/shell/refusal";
@@ -24,7 +25,7 @@ export default async function AttemptPage({ params }: { params: Promise<{ attemp
   const { attempt, lab, access } = found;
   const staff = isStaff(access.role);
   const isOwner = attempt.userId === access.user.id;
-  // The score and verdicts are fetched in the browser; the server only typesets the solutions it may show.
+  // The attempt as GET /api/attempts/{id} returns it; the server also typesets the solutions it may show.
   const presented = presentAttempt(attempt, lab, staff);
   const lines = presented.results.flatMap((r) => r.solution ?? []);
   let studentName: string | null = null;
@@ -34,8 +35,7 @@ export default async function AttemptPage({ params }: { params: Promise<{ attemp
   }
   return (
     <FeedbackView
-      attemptId={attempt.id}
-      labId={lab.id}
+      attempt={asJson(presented)}
       studentId={attempt.userId}
       studentName={studentName}
       isOwner={isOwner}
