@@ -15,6 +15,8 @@ export interface UsersTable {
   is_admin: Generated<boolean>;
   email_verified: Date | null;
   created_at: Generated<Date>;
+  /** false: the student turned graded e-mails off (staff regrades are sent anyway) */
+  grade_mail: Generated<boolean>;
 }
 
 export interface CoursesTable {
@@ -70,6 +72,9 @@ export interface LabsTable {
   created_at: Generated<Date>;
   updated_at: Generated<Date>;
   published_at: Timestamp | null;
+  /** while true, students see "graded, not yet released" and no grade e-mail goes out */
+  grades_held: Generated<boolean>;
+  grades_released_at: Timestamp | null;
 }
 
 export interface LabVariantsTable {
@@ -172,6 +177,37 @@ export interface CourseLessonsTable {
   updated_at: Generated<Date>;
 }
 
+export type MailStatus = "queued" | "sent" | "failed";
+
+export interface MailOutboxTable {
+  id: Generated<string>;
+  /** the event key: one row, one job and one message per key */
+  key: string;
+  kind: string;
+  to_address: string;
+  subject: string | null;
+  data: ColumnType<unknown, string | undefined, string>;
+  status: Generated<MailStatus>;
+  tries: Generated<number>;
+  last_error: string | null;
+  message_id: string | null;
+  job_id: string | null;
+  created_at: Generated<Date>;
+  sent_at: Timestamp | null;
+  failed_at: Timestamp | null;
+}
+
+export type PasswordTokenPurpose = "reset" | "set";
+
+export interface PasswordTokensTable {
+  id: Generated<string>;
+  user_id: string;
+  purpose: PasswordTokenPurpose;
+  expires_at: Timestamp;
+  used_at: Timestamp | null;
+  created_at: Generated<Date>;
+}
+
 export interface Database {
   users: UsersTable;
   courses: CoursesTable;
@@ -184,6 +220,8 @@ export interface Database {
   lab_regrades: LabRegradesTable;
   grade_events: GradeEventsTable;
   course_lessons: CourseLessonsTable;
+  mail_outbox: MailOutboxTable;
+  password_tokens: PasswordTokensTable;
 }
 
 export type User = Selectable<UsersTable>;

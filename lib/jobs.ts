@@ -2,7 +2,7 @@
 // instrumentation.ts; handlers are idempotent so a retried job does no harm.
 import PgBoss from "pg-boss";
 
-export const QUEUES = { regrade: "lab-regrade" } as const;
+export const QUEUES = { regrade: "lab-regrade", mail: "mail-send" } as const;
 
 const g = globalThis as unknown as { shuntwiseBoss?: Promise<PgBoss> };
 

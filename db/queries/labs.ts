@@ -26,6 +26,7 @@ const LAB_COLUMNS = [
   "created_at as createdAt",
   "updated_at as updatedAt",
   "published_at as publishedAt",
+  "grades_held as gradesHeld",
 ] as const;
 
 export type LabRow = Awaited<ReturnType<typeof findLab>> & {};

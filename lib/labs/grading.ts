@@ -32,6 +32,8 @@ export interface Lab extends LabRules {
   version: number;
   publishedAt: Date | null;
   updatedAt: Date;
+  /** students see "graded, not yet released" and get no grade e-mail until the instructor releases */
+  gradesHeld: boolean;
 }
 
 type LabRow = NonNullable<Awaited<ReturnType<typeof findLab>>>;

@@ -5,6 +5,7 @@ import { db } from "@/db";
 import { listAttempts } from "@/db/queries/attempts";
 import { findLab } from "@/db/queries/labs";
 import { findUploads } from "@/db/queries/uploads";
+import { queueGradeMail } from "@/lib/mail/grade";
 import { toLab, type TraceSummary } from "./grading";
 import { recomputeAttempt } from "./rescore";
 
@@ -49,8 +50,18 @@ export async function runRegrade(regradeId: string): Promise<void> {
         .map((id) => uploads.get(id))
         .filter((u) => u?.kind === "trace" && u.analysis)
         .map((u) => u!.analysis as TraceSummary);
-      // one transaction per attempt, on the locked row: a staff change made meanwhile is kept, not lost
-      await db.transaction().execute((trx) => recomputeAttempt(trx, lab, a.id, traces, { kind: "recomputed" }));
+      // one transaction per attempt, on the locked row: a staff change made meanwhile is kept, not lost.
+      // The student's message is queued in the same transaction, when the score changed.
+      await db.transaction().execute(async (trx) => {
+        const r = await recomputeAttempt(trx, lab, a.id, traces, { kind: "recomputed" });
+        if (r.score === a.score && r.rawScore === a.rawScore) return;
+        await queueGradeMail(trx, {
+          attemptId: a.id,
+          eventKey: `recomputed:${a.id}:v${lab.version}`,
+          kind: "recomputed",
+          change: { scoreBefore: a.score, reason: "The instructor changed how this lab is graded, so your attempt was graded again." },
+        });
+      });
       done++;
       if (done % 10 === 0 || done === attempts.length) {
         await db.updateTable("lab_regrades").set({ done }).where("id", "=", regradeId).execute();

@@ -18,6 +18,7 @@ import { findLab, findVariant, insertLab, listLabs, storeVariant } from "@/db/qu
 import { findUploads } from "@/db/queries/uploads";
 import { assertRole, EVERYONE, isStaff, requireCourseRole, type CourseAccess } from "@/lib/auth/access";
 import { AppError, notFound } from "@/lib/errors";
+import { queueGradeMail } from "@/lib/mail/grade";
 import { drawVariant, type Params } from "@/lib/grader";
 import { attemptRecord, gradeForLab, parseMeasured, toLab, withIds, type Lab, type TraceSummary } from "./grading";
 import { expectedVisible, isOpen } from "./policy";
@@ -108,6 +109,8 @@ export async function submitAttempt(lab: Lab, access: CourseAccess, input: Submi
     });
     const attemptId = await insertAttempt(trx, record);
     await insertGradeEvent(trx, { attemptId, kind: "graded", pointsAfter: record.rawScore, scoreAfter: record.score, graderVersion: record.graderVersion });
+    // the message is queued in this transaction: no grade without its e-mail job, no job without its grade
+    await queueGradeMail(trx, { attemptId, eventKey: `graded:${attemptId}`, kind: "graded" });
     return { attemptId, created: true };
   });
 }

@@ -1,0 +1,56 @@
+// queueMail: the one way to send e-mail. It writes the outbox row and the pg-boss job inside the
+// caller's transaction, so an event that rolls back sends nothing and a stored event always has its
+// job. The key names the event: a second call with the same key queues nothing.
+import { CompiledQuery, type Transaction } from "kysely";
+import type PgBoss from "pg-boss";
+import type { Database } from "@/db/types";
+import { findOutboxByKey, insertOutbox, setOutboxJob } from "@/db/queries/mail-outbox";
+import { boss, QUEUES } from "@/lib/jobs";
+import { retryOptions } from "./config";
+
+export interface MailRequest {
+  /** the event key, e.g. `graded:{attemptId}`; one message per key, ever */
+  key: string;
+  /** which template renders it (lib/mail/render.ts) */
+  kind: string;
+  to: string;
+  subject?: string;
+  data: Record<string, unknown>;
+}
+
+export interface MailJob {
+  outboxId: string;
+}
+
+/** pg-boss runs its insert through the caller's transaction (its `db` option). */
+export function bossDb(trx: Transaction<Database>): PgBoss.Db {
+  return {
+    async executeSql(text: string, values: unknown[]) {
+      const r = await trx.executeQuery(CompiledQuery.raw(text, values));
+      return { rows: r.rows as unknown[] };
+    },
+  };
+}
+
+/** Sends the outbox row's job, in `trx` when given. */
+export async function sendMailJob(outboxId: string, trx?: Transaction<Database>): Promise<string | null> {
+  const b = await boss();
+  const data: MailJob = { outboxId };
+  return b.send(QUEUES.mail, data, { ...retryOptions(), ...(trx ? { db: bossDb(trx) } : {}) });
+}
+
+/**
+ * Queues one message in `trx`. Returns the outbox id and whether this call queued it (false when the
+ * key was already queued, in this transaction or an earlier one).
+ */
+export async function queueMail(trx: Transaction<Database>, m: MailRequest): Promise<{ id: string; queued: boolean }> {
+  const id = await insertOutbox(trx, m);
+  if (!id) {
+    const known = await findOutboxByKey(trx, m.key);
+    return { id: known!.id, queued: false };
+  }
+  const jobId = await sendMailJob(id, trx);
+  if (!jobId) throw new Error(`the mail queue "${QUEUES.mail}" does not exist`);
+  await setOutboxJob(trx, id, jobId);
+  return { id, queued: true };
+}
