@@ -7,6 +7,8 @@ const nextConfig = {
   pageExtensions: ["ts", "tsx", "md", "mdx"],
   serverExternalPackages: ["pg", "pg-boss", "@node-rs/argon2", "nodemailer", "s3rver", "smtp-server"],
   poweredByHeader: false,
+  // `forbidden()` from next/navigation: a page a member's role does not allow answers 403.
+  experimental: { authInterrupts: true },
 };
 
 const withMDX = createMDX({

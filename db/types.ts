@@ -75,6 +75,8 @@ export interface LabsTable {
   /** while true, students see "graded, not yet released" and no grade e-mail goes out */
   grades_held: Generated<boolean>;
   grades_released_at: Timestamp | null;
+  /** Weight in the course total; null = weighted by the lab's points. */
+  weight: number | null;
 }
 
 export interface LabVariantsTable {

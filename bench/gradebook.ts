@@ -1,0 +1,177 @@
+// Benchmark: the gradebook route for 1,000 students × 20 labs × 2 attempts, against the same SQL alone
+// in the same run. Seeds a scratch database in the project's local PostgreSQL, builds the app if its
+// sources changed, serves it on a spare port, signs in as the instructor and calls
+// GET /api/courses/{courseId}/gradebook repeatedly. Goal (issue 12): p50 under 150 ms and no more than
+// 3 times the SQL alone. Run: npm run bench:gradebook
+import { hash } from "@node-rs/argon2";
+import { sql } from "kysely";
+import pg from "pg";
+import { createDb } from "../db";
+import { gradebookJsonQuery } from "../db/queries/gradebook";
+import { migrateToLatest } from "../db/migrator";
+import { appEnv } from "../scripts/lib/app-env";
+import { buildIfStale } from "../scripts/lib/build";
+import { databaseUrl, serviceConfig } from "../scripts/lib/config";
+import { ensurePostgres } from "../scripts/lib/postgres";
+import { portInUse, startNext, waitForHttp } from "../scripts/lib/server";
+
+const STUDENTS = 1000;
+const LABS = 20;
+const ATTEMPTS = 2;
+const QUESTIONS = 5;
+const WARMUP = 5;
+const RUNS = 40;
+const DB_NAME = "shuntwise_bench_gradebook";
+const PASSWORD = "bench-gradebook-1";
+const EMAIL = "instructor@bench.example";
+
+const cfg = serviceConfig("dev");
+const port = Number(process.env.SHUNTWISE_BENCH_PORT ?? cfg.appPort + 7);
+
+function p50(xs: number[]): number {
+  const s = [...xs].sort((a, b) => a - b);
+  return s.length % 2 ? s[(s.length - 1) / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2;
+}
+
+async function recreate() {
+  const admin = new pg.Client({ connectionString: databaseUrl(cfg, "postgres") });
+  await admin.connect();
+  try {
+    await admin.query(`drop database if exists "${DB_NAME}" with (force)`);
+    await admin.query(`create database "${DB_NAME}"`);
+  } finally {
+    await admin.end();
+  }
+}
+
+/** One course, its instructor, 1,000 students in 8 sections, 20 published labs, 2 graded attempts each. */
+async function seed(url: string): Promise<string> {
+  const db = createDb(url, 2);
+  try {
+    await migrateToLatest(db);
+    const course = await db
+      .insertInto("courses")
+      .values({ code: "BENCH-1", title: "Bench course", term: "T", institution: "Bench college", join_code: "BENCH" })
+      .returning("id")
+      .executeTakeFirstOrThrow();
+    const instructor = await db.insertInto("users").values({ email: EMAIL, name: "Bench Instructor", password_hash: await hash(PASSWORD) }).returning("id").executeTakeFirstOrThrow();
+    await db.insertInto("memberships").values({ course_id: course.id, user_id: instructor.id, role: "instructor" }).execute();
+    const questions = JSON.stringify(Array.from({ length: QUESTIONS }, (_, i) => ({ id: `q${i + 1}`, quantity: "indicatedCurrent", kind: "prediction", points: 2 })));
+    const results = JSON.stringify({
+      results: Array.from({ length: QUESTIONS }, (_, i) => ({ id: `q${i + 1}`, verdict: ["correct", "close", "mistake", "wrong", "correct"][i], ...(i === 2 ? { mistake: "prefix-slip" } : {}) })),
+    });
+    await sql`
+      with u as (
+        insert into users (email, name, password_hash)
+        select 'student' || g || '@bench.example', 'Student ' || lpad(g::text, 4, '0'), null from generate_series(1, ${STUDENTS}) g
+        returning id, email
+      )
+      insert into memberships (course_id, user_id, role, section)
+      select ${course.id}, u.id, 'student', 'S' || (abs(hashtext(u.email)) % 8 + 1) from u`.execute(db);
+    await sql`
+      insert into labs (course_id, title, template_key, status, spec, questions, policy, counting, due_at, late_penalty_percent_per_day)
+      select ${course.id}, 'Lab ' || g, 'shunt-burden', 'published', '{"template":"shunt-burden","parameters":{}}'::jsonb,
+        ${questions}::jsonb, '{}'::jsonb, case when g % 2 = 0 then 'best' else 'last' end, now() - (30 - g) * interval '1 day', 10
+      from generate_series(1, ${LABS}) g`.execute(db);
+    await sql`
+      insert into attempts (lab_id, user_id, number, idempotency_key, readings, measured, result, raw_score, max_score,
+        late_days, penalty_percent, score, grader_version, lab_version)
+      select l.id, m.user_id, n, 'bench-' || n, '{}'::jsonb, '{}'::jsonb, ${results}::jsonb,
+        s.raw, 10, s.late, s.late * 10, round((s.raw * (1 - s.late * 0.1))::numeric, 3), 'bench', 1
+      from labs l
+      join memberships m on m.course_id = l.course_id and m.role = 'student'
+      cross join generate_series(1, ${ATTEMPTS}) n
+      cross join lateral (select (abs(hashtext(m.user_id::text || l.id::text || n)) % 11)::real as raw,
+                                 (case when abs(hashtext(l.id::text || m.user_id::text)) % 10 = 0 then 1 else 0 end) as late) s
+      where l.course_id = ${course.id}`.execute(db);
+    await sql`analyze`.execute(db);
+    const n = await sql<{ n: number }>`select count(*)::int as n from attempts`.execute(db);
+    console.log(`Seeded ${STUDENTS} students × ${LABS} labs × ${ATTEMPTS} attempts (${n.rows[0].n} attempts).`);
+    return course.id;
+  } finally {
+    await db.destroy();
+  }
+}
+
+async function signIn(base: string): Promise<string> {
+  const jar = new Map<string, string>();
+  const keep = (res: Response) => {
+    for (const c of res.headers.getSetCookie()) {
+      const [pair] = c.split(";");
+      const i = pair.indexOf("=");
+      jar.set(pair.slice(0, i), pair.slice(i + 1));
+    }
+  };
+  const cookie = () => [...jar].map(([k, v]) => `${k}=${v}`).join("; ");
+  const csrf = await fetch(`${base}/api/auth/csrf`);
+  keep(csrf);
+  const { csrfToken } = (await csrf.json()) as { csrfToken: string };
+  const res = await fetch(`${base}/api/auth/callback/credentials`, {
+    method: "POST",
+    redirect: "manual",
+    headers: { "content-type": "application/x-www-form-urlencoded", cookie: cookie() },
+    body: new URLSearchParams({ csrfToken, email: EMAIL, password: PASSWORD, json: "true" }).toString(),
+  });
+  keep(res);
+  if (![...jar.keys()].some((k) => k.endsWith("next-auth.session-token"))) throw new Error("could not sign in as the bench instructor");
+  return cookie();
+}
+
+async function main() {
+  await ensurePostgres(cfg);
+  await recreate();
+  const url = databaseUrl(cfg, DB_NAME);
+  const courseId = await seed(url);
+
+  const env = appEnv(cfg, url);
+  env.DATABASE_URL = url;
+  buildIfStale(".next", env);
+  if (await portInUse(port)) throw new Error(`Port ${port} is in use; set SHUNTWISE_BENCH_PORT to a free port.`);
+  const server = startNext({ distDir: ".next", port, host: "127.0.0.1", env: { ...env, PORT: String(port), NEXTAUTH_URL: `http://127.0.0.1:${port}` }, quiet: true });
+  const db = createDb(url, 4);
+  try {
+    const base = `http://127.0.0.1:${port}`;
+    await waitForHttp(`${base}/api/health`, server);
+    const cookie = await signIn(base);
+    const route: number[] = [];
+    let bytes = 0;
+    for (let i = 0; i < WARMUP + RUNS; i++) {
+      const t0 = performance.now();
+      const res = await fetch(`${base}/api/courses/${courseId}/gradebook`, { headers: { cookie } });
+      const body = await res.text();
+      const ms = performance.now() - t0;
+      if (res.status !== 200) throw new Error(`gradebook answered ${res.status}: ${body.slice(0, 200)}`);
+      if (i === 0) {
+        const g = JSON.parse(body) as { labs: unknown[]; students: unknown[] };
+        if (g.labs.length !== LABS || g.students.length !== STUDENTS) throw new Error("the gradebook does not have the seeded size");
+      }
+      bytes = body.length;
+      if (i >= WARMUP) route.push(ms);
+    }
+    const alone: number[] = [];
+    for (let i = 0; i < WARMUP + RUNS; i++) {
+      const t0 = performance.now();
+      const r = await gradebookJsonQuery(courseId).execute(db);
+      const ms = performance.now() - t0;
+      if (r.rows[0].doc.length !== bytes) throw new Error("the SQL alone returned a different document");
+      if (i >= WARMUP) alone.push(ms);
+    }
+    const a = p50(route);
+    const b = p50(alone);
+    console.log(`${RUNS} calls each after ${WARMUP} warm-up calls; response ${(bytes / 1e6).toFixed(2)} MB.`);
+    console.log(`route min/max ${Math.min(...route).toFixed(1)}/${Math.max(...route).toFixed(1)} ms; sql min/max ${Math.min(...alone).toFixed(1)}/${Math.max(...alone).toFixed(1)} ms.`);
+    console.log(`gradebook p50 ${a.toFixed(1)} ms; sql alone p50 ${b.toFixed(1)} ms; ratio ${(a / b).toFixed(2)}`);
+  } finally {
+    await db.destroy();
+    server.kill("SIGTERM");
+    const admin = new pg.Client({ connectionString: databaseUrl(cfg, "postgres") });
+    await admin.connect();
+    await admin.query(`drop database if exists "${DB_NAME}" with (force)`).catch(() => undefined);
+    await admin.end();
+  }
+}
+
+main().catch((e) => {
+  console.error(e instanceof Error ? e.message : e);
+  process.exit(1);
+});

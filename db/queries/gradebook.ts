@@ -1,0 +1,235 @@
+// The gradebook: every student of a course against every published lab, computed in PostgreSQL.
+// One statement builds the whole JSON document the API answers, so the route neither walks rows nor
+// issues a query per student or per cell; the statistics are two more statements.
+import { sql, type Kysely, type Transaction } from "kysely";
+import type { Database } from "../types";
+
+type Db = Kysely<Database> | Transaction<Database>;
+
+export interface GradebookLab {
+  id: string;
+  title: string;
+  dueAt: string | null;
+  maxPoints: number;
+  /** The stored weight; null = weighted by its points. */
+  weight: number | null;
+}
+
+export interface GradebookCell {
+  score: number;
+  maxScore: number;
+  attemptId: string;
+  attempts: number;
+  late: boolean;
+  changedByStaff: boolean;
+  reviewOpen: boolean;
+}
+
+export interface GradebookStudent {
+  userId: string;
+  name: string;
+  email: string;
+  section: string | null;
+  /** Weighted percentage over the labs that count so far (past due, or submitted); null when none does. */
+  total: number | null;
+  cells: Record<string, GradebookCell | null>;
+}
+
+export interface Gradebook {
+  labs: GradebookLab[];
+  students: GradebookStudent[];
+}
+
+/**
+ * Whether a student's review request on an attempt is still waiting for an answer. Issue 10 adds
+ * `review_answered_at`; until then every request counts as open.
+ */
+const REVIEW_OPEN = sql`(a.review_requested_at is not null)`;
+/** Whether the staff overrode or reran the attempt (issue 10 adds `attempts.changed_by_staff`). */
+const CHANGED_BY_STAFF = sql`false`;
+
+const iso = (col: string) => sql.raw(`to_char(${col} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"')`);
+
+/**
+ * The common part: the course's published labs with their points and effective weight, its students,
+ * and for each (lab, student) pair with attempts the counted attempt (best score, ties to the later
+ * attempt; or the last one) with the attempt count and whether a review is open.
+ * `onlyUser` narrows it to one student (the student's own row).
+ */
+function gradebookCtes(courseId: string, onlyUser?: string) {
+  const userFilter = onlyUser ? sql`and m.user_id = ${onlyUser}` : sql``;
+  return sql`
+    gl as (
+      select l.id, l.title, l.due_at, l.created_at, l.weight, l.counting,
+        coalesce((select sum((q->>'points')::float8) from jsonb_array_elements(l.questions) q), 0) as max_points
+      from labs l
+      where l.course_id = ${courseId} and l.status = 'published'
+    ),
+    gs as (
+      select u.id as user_id, u.name, u.email, m.section
+      from memberships m join users u on u.id = m.user_id
+      where m.course_id = ${courseId} and m.role = 'student' ${userFilter}
+    ),
+    gc as (
+      select distinct on (a.lab_id, a.user_id)
+        a.lab_id, a.user_id, a.id as attempt_id, a.score, a.max_score, a.late_days,
+        ${CHANGED_BY_STAFF} as changed_by_staff,
+        count(*) over w as attempts,
+        bool_or(${REVIEW_OPEN}) over w as review_open
+      from attempts a
+      join gl on gl.id = a.lab_id
+      join gs on gs.user_id = a.user_id
+      window w as (partition by a.lab_id, a.user_id)
+      order by a.lab_id, a.user_id, case when gl.counting = 'best' then a.score end desc nulls last, a.number desc
+    ),
+    grid as (
+      select gs.user_id, gs.name, gs.email, gs.section, gl.id as lab_id, gl.due_at, gl.created_at,
+        coalesce(gl.weight, gl.max_points) as w,
+        gc.attempt_id, gc.score, gc.max_score, gc.late_days, gc.changed_by_staff, gc.attempts, gc.review_open,
+        (gc.attempt_id is not null or gl.due_at <= now()) as counts
+      from gs left join gl on true
+      left join gc on gc.lab_id = gl.id and gc.user_id = gs.user_id
+    ),
+    grow as (
+      select user_id, name, email, section,
+        coalesce(
+          json_object_agg(lab_id, case when attempt_id is null then null else json_build_object(
+            'score', score, 'maxScore', max_score, 'attemptId', attempt_id, 'attempts', attempts,
+            'late', late_days > 0, 'changedByStaff', changed_by_staff, 'reviewOpen', review_open) end
+            order by due_at nulls last, created_at) filter (where lab_id is not null),
+          '{}'::json) as cells,
+        case when sum(w) filter (where counts) > 0 then
+          round((100 * sum(w * coalesce(score::float8 / nullif(max_score, 0), 0)) filter (where counts)
+            / sum(w) filter (where counts))::numeric, 1)::float8
+        end as total
+      from grid
+      group by user_id, name, email, section
+    )`;
+}
+
+/** The gradebook document, as the JSON text the API answers (PostgreSQL builds it). */
+export function gradebookJsonQuery(courseId: string, onlyUser?: string) {
+  return sql<{ doc: string }>`
+    with ${gradebookCtes(courseId, onlyUser)}
+    select json_build_object(
+      'labs', coalesce((select json_agg(json_build_object(
+          'id', id, 'title', title, 'dueAt', ${iso("due_at")}, 'maxPoints', max_points, 'weight', weight)
+          order by due_at nulls last, created_at) from gl), '[]'::json),
+      'students', coalesce((select json_agg(json_build_object(
+          'userId', user_id, 'name', name, 'email', email, 'section', section, 'total', total, 'cells', cells)
+          order by name, email) from grow), '[]'::json)
+    )::text as doc`;
+}
+
+export async function gradebookJson(db: Db, courseId: string, onlyUser?: string): Promise<string> {
+  const r = await gradebookJsonQuery(courseId, onlyUser).execute(db);
+  return r.rows[0].doc;
+}
+
+export async function gradebook(db: Db, courseId: string, onlyUser?: string): Promise<Gradebook> {
+  return JSON.parse(await gradebookJson(db, courseId, onlyUser)) as Gradebook;
+}
+
+export interface LabStatistics {
+  labId: string;
+  submitted: number;
+  missing: number;
+  mean: number | null;
+  median: number | null;
+  /** Counted scores as a percentage of the attempt's maximum, one per submitting student. */
+  percents: number[];
+}
+
+/** Per lab: how many students submitted, how many did not, mean and median of counted scores. */
+export async function labStatistics(db: Db, courseId: string): Promise<LabStatistics[]> {
+  const r = await sql<LabStatistics>`
+    with ${gradebookCtes(courseId)}
+    select gl.id as "labId",
+      count(gc.attempt_id)::int as submitted,
+      ((select count(*) from gs) - count(gc.attempt_id))::int as missing,
+      round(avg(gc.score)::numeric, 2)::float8 as mean,
+      round((percentile_cont(0.5) within group (order by gc.score))::numeric, 2)::float8 as median,
+      coalesce(array_agg(round((100 * gc.score::float8 / nullif(gc.max_score, 0))::numeric, 1)::float8 order by gc.score)
+        filter (where gc.attempt_id is not null), '{}') as percents
+    from gl left join gc on gc.lab_id = gl.id
+    group by gl.id, gl.due_at, gl.created_at
+    order by gl.due_at nulls last, gl.created_at`.execute(db);
+  return r.rows;
+}
+
+export interface QuestionStatistics {
+  labId: string;
+  questionId: string;
+  quantity: string;
+  position: number;
+  templateKey: string;
+  /** Counts over the counted attempts, plus students with no attempt as missing. */
+  correct: number;
+  close: number;
+  mistake: number;
+  wrong: number;
+  missing: number;
+  topMistake: string | null;
+  topMistakeCount: number;
+}
+
+/**
+ * Per question of each published lab, verdicts of the counted attempts (unit counts as wrong; a student
+ * who did not submit counts as missing) and the most frequent recognised mistake.
+ */
+export async function questionStatistics(db: Db, courseId: string): Promise<QuestionStatistics[]> {
+  const r = await sql<QuestionStatistics>`
+    with ${gradebookCtes(courseId)},
+    ca as (
+      select gc.lab_id, a.result from gc join attempts a on a.id = gc.attempt_id
+    ),
+    qs as (
+      select l.id as lab_id, l.template_key, q.ord::int as position, coalesce(q.v->>'id', 'q' || q.ord) as question_id, q.v->>'quantity' as quantity
+      from labs l cross join lateral jsonb_array_elements(l.questions) with ordinality as q(v, ord)
+      where l.course_id = ${courseId} and l.status = 'published'
+    ),
+    vs as (
+      select ca.lab_id, r.ord::int as position, r.v->>'verdict' as verdict, r.v->>'mistake' as mistake
+      from ca cross join lateral jsonb_array_elements(ca.result->'results') with ordinality as r(v, ord)
+    ),
+    tm as (
+      select distinct on (lab_id, position) lab_id, position, mistake, count(*) as n
+      from vs where verdict = 'mistake' and mistake is not null
+      group by lab_id, position, mistake
+      order by lab_id, position, count(*) desc, mistake
+    )
+    select qs.lab_id as "labId", qs.question_id as "questionId", qs.quantity, qs.position, qs.template_key as "templateKey",
+      count(*) filter (where vs.verdict = 'correct')::int as correct,
+      count(*) filter (where vs.verdict = 'close')::int as close,
+      count(*) filter (where vs.verdict = 'mistake')::int as mistake,
+      count(*) filter (where vs.verdict in ('wrong', 'unit'))::int as wrong,
+      (count(*) filter (where vs.verdict = 'missing') + (select count(*) from gs) - count(vs.verdict))::int as missing,
+      tm.mistake as "topMistake", coalesce(tm.n, 0)::int as "topMistakeCount"
+    from qs
+    left join vs on vs.lab_id = qs.lab_id and vs.position = qs.position
+    left join tm on tm.lab_id = qs.lab_id and tm.position = qs.position
+    group by qs.lab_id, qs.question_id, qs.quantity, qs.position, qs.template_key, tm.mistake, tm.n
+    order by qs.lab_id, qs.position`.execute(db);
+  return r.rows;
+}
+
+/** Stored weights of the course's labs (null = by points), for the weights form. */
+export async function labWeights(db: Db, courseId: string) {
+  return db
+    .selectFrom("labs")
+    .select(["id", "title", "weight", "status"])
+    .where("course_id", "=", courseId)
+    .orderBy("due_at", "asc")
+    .orderBy("created_at", "asc")
+    .execute();
+}
+
+/** Sets the weights of labs of one course; labs of other courses are left alone. Returns how many changed. */
+export async function setLabWeights(db: Db, courseId: string, weights: { labId: string; weight: number | null }[]) {
+  let n = 0;
+  for (const w of weights) {
+    const r = await db.updateTable("labs").set({ weight: w.weight }).where("id", "=", w.labId).where("course_id", "=", courseId).executeTakeFirst();
+    n += Number(r.numUpdatedRows);
+  }
+  return n;
+}
