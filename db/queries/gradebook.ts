@@ -40,13 +40,10 @@ export interface Gradebook {
   students: GradebookStudent[];
 }
 
-/**
- * Whether a student's review request on an attempt is still waiting for an answer. Issue 10 adds
- * `review_answered_at`; until then every request counts as open.
- */
-const REVIEW_OPEN = sql`(a.review_requested_at is not null)`;
-/** Whether the staff overrode or reran the attempt (issue 10 adds `attempts.changed_by_staff`). */
-const CHANGED_BY_STAFF = sql`false`;
+/** A student's review request on an attempt that the staff have not answered since it was made. */
+const REVIEW_OPEN = sql`(a.review_requested_at is not null and (a.review_answered_at is null or a.review_answered_at < a.review_requested_at))`;
+/** The staff overrode a question's points or re-ran the grader on the attempt. */
+const CHANGED_BY_STAFF = sql`a.changed_by_staff`;
 
 const iso = (col: string) => sql.raw(`to_char(${col} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"')`);
 

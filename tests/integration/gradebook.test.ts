@@ -42,7 +42,7 @@ async function attempt(
   labId: string,
   userId: string,
   number: number,
-  a: { raw: number; max: number; lateDays?: number; penalty?: number; score: number; verdicts?: [string, string?][]; review?: boolean },
+  a: { raw: number; max: number; lateDays?: number; penalty?: number; score: number; verdicts?: [string, string?][]; review?: boolean; answered?: Date },
 ) {
   const results = (a.verdicts ?? []).map(([verdict, mistake], i) => ({ id: `q${i + 1}`, verdict, ...(mistake ? { mistake } : {}) }));
   return (
@@ -66,6 +66,7 @@ async function attempt(
         submitted_at: new Date(Date.now() - (10 - number) * 3600_000),
         review_requested_at: a.review ? new Date() : null,
         review_message: a.review ? "Please look again." : null,
+        review_answered_at: a.answered ?? null,
       })
       .returning("id")
       .executeTakeFirstOrThrow()
@@ -110,10 +111,13 @@ async function fixture() {
   ids.adaB2 = await attempt(labB, ada, 2, { raw: 4, max: 5, lateDays: 1, penalty: 25, score: 3, verdicts: [["mistake", "prefix-slip"]] });
   // Ada, lab C (not yet due): 9/10 with a review request.
   ids.adaC1 = await attempt(labC, ada, 1, { raw: 9, max: 10, score: 9, verdicts: [["close"]], review: true });
-  // "=1+1", lab A: 7 then 9; a staff change lifts attempt 1 to 9: tie → the later attempt (2) counts.
+  // "=1+1", lab A: 7 then 9; a staff override lifts attempt 1 to 9: tie → the later attempt (2) counts.
   ids.fA1 = await attempt(labA, formula, 1, { raw: 7, max: 10, score: 7, verdicts: [["mistake", "prefix-slip"], ["wrong"]] });
-  ids.fA2 = await attempt(labA, formula, 2, { raw: 9, max: 10, score: 9, verdicts: [["correct"], ["unit"]] });
-  await db.updateTable("attempts").set({ raw_score: 9, score: 9 }).where("id", "=", ids.fA1).execute();
+  ids.fA2 = await attempt(labA, formula, 2, { raw: 9, max: 10, score: 9, verdicts: [["correct"], ["unit"]], review: true, answered: new Date(Date.now() + 1000) });
+  await db.updateTable("attempts").set({ raw_score: 9, score: 9, changed_by_staff: true }).where("id", "=", ids.fA1).execute();
+  // "=1+1", lab C: 4, then a staff override lifts it to 10: it counts, marked as changed by staff.
+  ids.fC1 = await attempt(labC, formula, 1, { raw: 4, max: 10, score: 4, verdicts: [["wrong"]] });
+  await db.updateTable("attempts").set({ raw_score: 10, score: 10, changed_by_staff: true }).where("id", "=", ids.fC1).execute();
   // An attempt on the draft and one by a non-member never show.
   await attempt(draft, ada, 1, { raw: 10, max: 10, score: 10 });
   await attempt(labA, outsider, 1, { raw: 10, max: 10, score: 10 });
@@ -122,10 +126,12 @@ async function fixture() {
 
 /** The counted attempt of one student in one lab, by plain SQL written for this test. */
 async function countedBySql(labId: string, userId: string) {
-  const r = await sql<{ id: string; score: number; max_score: number; late_days: number; n: number; review: boolean }>`
+  const r = await sql<{ id: string; score: number; max_score: number; late_days: number; n: number; staff: boolean; review: boolean }>`
     select a.id, a.score, a.max_score, a.late_days,
       (select count(*)::int from attempts b where b.lab_id = a.lab_id and b.user_id = a.user_id) as n,
-      exists (select 1 from attempts b where b.lab_id = a.lab_id and b.user_id = a.user_id and b.review_requested_at is not null) as review
+      a.changed_by_staff as staff,
+      exists (select 1 from attempts b where b.lab_id = a.lab_id and b.user_id = a.user_id and b.review_requested_at is not null
+              and (b.review_answered_at is null or b.review_answered_at < b.review_requested_at)) as review
     from attempts a join labs l on l.id = a.lab_id
     where a.lab_id = ${labId} and a.user_id = ${userId}
     order by case when l.counting = 'last' then a.number end desc nulls last, a.score desc, a.number desc
@@ -155,8 +161,10 @@ describe("the gradebook query", () => {
     expect(ada.cells[f.labC]).toMatchObject({ score: 9, attemptId: f.ids.adaC1, reviewOpen: true });
     expect(Object.keys(ada.cells)).toEqual([f.labA, f.labB, f.labC]);
     const formula = g.students.find((s) => s.userId === f.formula)!;
-    expect(formula.cells[f.labA]).toMatchObject({ score: 9, attemptId: f.ids.fA2, attempts: 2 });
+    // the answered review is no longer open; the overridden attempt 1 does not count (tie), so no staff marker
+    expect(formula.cells[f.labA]).toMatchObject({ score: 9, attemptId: f.ids.fA2, attempts: 2, changedByStaff: false, reviewOpen: false });
     expect(formula.cells[f.labB]).toBeNull();
+    expect(formula.cells[f.labC]).toMatchObject({ score: 10, attemptId: f.ids.fC1, changedByStaff: true });
 
     // Every cell against the plain SQL.
     for (const s of g.students) {
@@ -171,15 +179,15 @@ describe("the gradebook query", () => {
             attemptId: want.id,
             attempts: want.n,
             late: want.late_days > 0,
-            changedByStaff: false,
+            changedByStaff: want.staff,
             reviewOpen: want.review,
           });
       }
     }
 
     // Totals weighted by points over labs past due or submitted:
-    // Ada (8 + 3 + 9) / (10 + 5 + 10) = 80 %; "=1+1" (9 + 0) / (10 + 5) = 60 %; Idle 0 / 15 = 0 %.
-    expect(g.students.map((s) => s.total)).toEqual([60, 80, 0]);
+    // Ada (8 + 3 + 9) / (10 + 5 + 10) = 80 %; "=1+1" (9 + 0 + 10) / (10 + 5 + 10) = 76 %; Idle 0 / 15 = 0 %.
+    expect(g.students.map((s) => s.total)).toEqual([76, 80, 0]);
   });
 
   it("uses the instructor's weights for the total", async () => {
@@ -190,10 +198,11 @@ describe("the gradebook query", () => {
     ]);
     const g = await gradebook(db, f.courseId);
     expect(g.labs.map((l) => l.weight)).toEqual([1, 3, null]);
-    // Ada: (1·0.8 + 3·0.6 + 10·0.9) / (1 + 3 + 10) = 11.6 / 14 = 82.857… → 82.9 %; "=1+1": (1·0.9 + 3·0) / 4 = 22.5 %.
+    // Ada: (1·0.8 + 3·0.6 + 10·0.9) / (1 + 3 + 10) = 11.6 / 14 = 82.857… → 82.9 %;
+    // "=1+1": (1·0.9 + 3·0 + 10·1.0) / 14 = 10.9 / 14 = 77.857… → 77.9 %.
     const byId = Object.fromEntries(g.students.map((s) => [s.userId, s.total]));
     expect(byId[f.ada]).toBe(82.9);
-    expect(byId[f.formula]).toBe(22.5);
+    expect(byId[f.formula]).toBe(77.9);
     expect(byId[f.idle]).toBe(0);
   });
 
@@ -211,7 +220,7 @@ describe("the gradebook query", () => {
     const parsed = Papa.parse<string[]>(csv.replace(/^\uFEFF/, ""), { skipEmptyLines: true });
     expect(parsed.data[0]).toEqual(["name", "email", "section", "A: burden", "B: shunt", "C: ranges", "total"]);
     expect(parsed.data.slice(1)).toEqual([
-      ["'=1+1", "formula@test.example", "B", "9", "", "", "60"],
+      ["'=1+1", "formula@test.example", "B", "9", "", "10", "76"],
       ["Ada Brook", "ada@test.example", "A", "8", "3", "9", "80"],
       ["Idle Student", "idle@test.example", "A", "", "", "", "0"],
     ]);
