@@ -13,6 +13,14 @@ const figtree = localFont({
 export const metadata: Metadata = {
   title: { default: "Shuntwise", template: "%s · Shuntwise" },
   description: "Bench labs for measuring small currents, graded by recomputing the physics.",
+  icons: {
+    icon: [
+      { url: "/icon.svg", type: "image/svg+xml" },
+      { url: "/favicon-32.png", sizes: "32x32", type: "image/png" },
+    ],
+    apple: "/apple-touch-icon.png",
+  },
+  manifest: "/manifest.webmanifest",
 };
 
 export default function RootLayout({ children }: { children: React.ReactNode }) {

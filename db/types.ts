@@ -27,6 +27,10 @@ export interface CoursesTable {
   institution: string;
   join_code: string;
   created_at: Generated<Date>;
+  joining_open: Generated<boolean>;
+  default_late_penalty_percent_per_day: Generated<number>;
+  default_late_floor_percent: Generated<number>;
+  copied_from: string | null;
 }
 
 export interface MembershipsTable {

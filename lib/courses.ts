@@ -1,4 +1,4 @@
-// Course membership use cases shared by server actions and route handlers. Callers authorize first.
+// Joining a course with its join code (sign-up). Roster changes by staff live in lib/roster.
 import "server-only";
 import { db } from "@/db";
 import { findCourseByJoinCode, upsertMembership } from "@/db/queries/courses";
@@ -6,25 +6,16 @@ import { findUserByEmail, insertUser } from "@/db/queries/users";
 import { hashPassword } from "@/lib/auth/password";
 import { AppError } from "@/lib/errors";
 import type { z } from "zod";
-import type { addMemberSchema } from "@/lib/validation/members";
 import type { signUpSchema } from "@/lib/validation/auth";
-
-/** Adds an existing account to the course with a role (or changes its role). */
-export async function addMember(courseId: string, input: z.output<typeof addMemberSchema>) {
-  const user = await findUserByEmail(db, input.email);
-  if (!user) {
-    throw new AppError("not_found", "No account uses that e-mail address. Ask the person to sign up first.", {
-      email: ["No account uses that e-mail address."],
-    });
-  }
-  await upsertMembership(db, { courseId, userId: user.id, role: input.role, section: input.section ?? null });
-  return { userId: user.id, name: user.name, email: user.email, role: input.role, section: input.section ?? null };
-}
 
 /** Creates a student account and its membership of the course whose join code was given, in one transaction. */
 export async function signUpStudent(input: z.output<typeof signUpSchema>) {
   const course = await findCourseByJoinCode(db, input.joinCode);
   if (!course) throw new AppError("bad_request", "That join code does not match any course.", { joinCode: ["That join code does not match any course."] });
+  if (!course.joiningOpen) {
+    const message = "This course is not taking new students at the moment. Ask your instructor.";
+    throw new AppError("bad_request", message, { joinCode: [message] });
+  }
   if (await findUserByEmail(db, input.email)) {
     throw emailTaken();
   }

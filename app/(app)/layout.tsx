@@ -1,8 +1,12 @@
+import type { Metadata } from "next";
 import Link from "next/link";
 import { SignOutButton } from "@/components/shell/sign-out-button";
 import { Wordmark } from "@/components/shell/wordmark";
 import { QueryProvider } from "@/components/providers/query-provider";
 import { currentUser } from "@/lib/auth/access";
+
+// The signed-in app stays out of search engines (public/robots.txt says the same to crawlers).
+export const metadata: Metadata = { robots: { index: false, follow: false } };
 
 export default async function AppLayout({ children }: { children: React.ReactNode }) {
   const user = await currentUser();

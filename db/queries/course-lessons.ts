@@ -28,3 +28,13 @@ export async function replaceCourseLessons(
       .execute();
   });
 }
+
+/** Copies a course's lesson plan into another course, moving every opening date by `shiftMs`. */
+export async function copyCourseLessons(db: Db, fromCourseId: string, toCourseId: string, shiftMs: number) {
+  const rows = await listCourseLessons(db, fromCourseId);
+  if (rows.length === 0) return;
+  await db
+    .insertInto("course_lessons")
+    .values(rows.map((r) => ({ course_id: toCourseId, slug: r.slug, position: r.position, visible: r.visible, opens_at: r.opensAt ? new Date(r.opensAt.getTime() + shiftMs) : null })))
+    .execute();
+}

@@ -128,3 +128,31 @@ export async function storeVariant(db: Db, labId: string, userId: string, seed: 
 export async function deleteVariants(db: Db, labId: string) {
   await db.deleteFrom("lab_variants").where("lab_id", "=", labId).execute();
 }
+
+// Columns a copied lab starts afresh rather than copying.
+const FRESH = new Set(["id", "course_id", "status", "version", "created_by", "created_at", "updated_at", "published_at"]);
+
+/**
+ * Copies every lab of a course into another as drafts, moving each date column (opens, due, close…) by
+ * `shiftMs`. Reads whole rows so that columns added later are copied too; JSON values are written back
+ * as JSON. Variants, attempts and regrades are not copied.
+ */
+export async function copyLabs(db: Db, fromCourseId: string, toCourseId: string, createdBy: string, shiftMs: number): Promise<number> {
+  const rows = await db.selectFrom("labs").selectAll().where("course_id", "=", fromCourseId).orderBy("created_at").execute();
+  for (const row of rows) {
+    const values: Record<string, unknown> = { course_id: toCourseId, status: "draft", created_by: createdBy };
+    for (const [k, v] of Object.entries(row)) {
+      if (FRESH.has(k)) continue;
+      if (v instanceof Date) values[k] = new Date(v.getTime() + shiftMs);
+      else if (v !== null && typeof v === "object") values[k] = JSON.stringify(v);
+      else values[k] = v;
+    }
+    await db.insertInto("labs").values(values as Insertable<LabsTable>).execute();
+  }
+  return rows.length;
+}
+
+/** Every stored circuit of a lab. */
+export async function listVariants(db: Db, labId: string) {
+  return db.selectFrom("lab_variants").select(["user_id as userId", "params"]).where("lab_id", "=", labId).execute();
+}

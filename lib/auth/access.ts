@@ -82,3 +82,10 @@ export async function forPage<T>(p: Promise<T>, here?: string): Promise<T | { re
 export function refused<T>(v: T | { refused: string }): v is { refused: string } {
   return typeof v === "object" && v !== null && "refused" in v;
 }
+
+/** Signed in with the site-wide admin flag; anyone else is refused (403). */
+export async function requireAdmin(): Promise<PublicUser> {
+  const user = await requireUser();
+  if (!user.isAdmin) throw forbidden("Only a site administrator can do this.");
+  return user;
+}

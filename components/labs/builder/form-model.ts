@@ -164,7 +164,8 @@ export function templateDefaults(templateKey: TemplateKey): Pick<BuilderForm, "t
   return { templateKey, parameters: specToForm(defaultVariantSpec(templateKey)), questions: defaultQuestions(templateKey) };
 }
 
-export function emptyForm(templateKey: TemplateKey = "shunt-burden"): BuilderForm {
+/** A new lab's form; the late policy starts from the course's default when one is given. */
+export function emptyForm(templateKey: TemplateKey = "shunt-burden", latePolicy?: { latePenaltyPercentPerDay: number; lateFloorPercent: number }): BuilderForm {
   return {
     title: "",
     ...templateDefaults(templateKey),
@@ -175,8 +176,8 @@ export function emptyForm(templateKey: TemplateKey = "shunt-burden"): BuilderFor
     counting: "best",
     opensAt: "",
     dueAt: "",
-    latePenaltyPercentPerDay: "10",
-    lateFloorPercent: "50",
+    latePenaltyPercentPerDay: String(latePolicy?.latePenaltyPercentPerDay ?? 10),
+    lateFloorPercent: String(latePolicy?.lateFloorPercent ?? 50),
     showExpected: "after_attempt",
     instructions: "",
     safetyNotes: "",

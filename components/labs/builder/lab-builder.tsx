@@ -44,6 +44,8 @@ export interface LabBuilderProps {
   lab?: { id: string; status: "draft" | "published"; attemptCount: number; input: StoredLabInput };
   /** a message to show once, e.g. after a new lab was created */
   notice?: string;
+  /** a new lab's late policy, from the course settings */
+  latePolicy?: { latePenaltyPercentPerDay: number; lateFloorPercent: number };
 }
 
 type Intent = "draft" | "preview" | "publish";
@@ -61,7 +63,7 @@ function withoutDates(input: StoredLabInput): StoredLabInput {
   return { ...input, opensAt: null, dueAt: null };
 }
 
-export function LabBuilder({ courseId, lab, notice }: LabBuilderProps) {
+export function LabBuilder({ courseId, lab, notice, latePolicy }: LabBuilderProps) {
   const router = useRouter();
   const kept: KeptPolicy = useMemo(
     () => ({ closeMultiple: lab?.input.policy.closeMultiple, componentTolerances: lab?.input.policy.componentTolerances }),
@@ -69,7 +71,7 @@ export function LabBuilder({ courseId, lab, notice }: LabBuilderProps) {
   );
   const schema = useMemo(() => builderSchema(kept), [kept]);
   // Dates are shown in the browser's time zone, so they are filled in after hydration (the server may be elsewhere).
-  const defaults = useMemo(() => (lab ? inputToForm(withoutDates(lab.input)) : emptyForm()), [lab]);
+  const defaults = useMemo(() => (lab ? inputToForm(withoutDates(lab.input)) : emptyForm("shunt-burden", latePolicy)), [lab, latePolicy]);
   const methods = useForm<BuilderForm, unknown, LabInput>({ resolver: zodResolver(schema), defaultValues: defaults, mode: "onSubmit", reValidateMode: "onChange" });
   const { handleSubmit, setValue, setError, reset, getValues, formState, clearErrors } = methods;
   const timeZone = useSyncExternalStore(subscribeNothing, browserTimeZone, () => "");

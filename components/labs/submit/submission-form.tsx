@@ -300,6 +300,11 @@ export function SubmissionForm({ labId, questions, components }: { labId: string
           onBusy={(b) => setBusyUploads((s) => ({ ...s, trace: b }))}
           testId="file-trace"
         />
+        <p className="mt-2 text-xs text-ink-faint">
+          Not sure of the format? Download a sample trace:{" "}
+          <a href="/samples/duty-cycle-sensor-node.csv" download>a sensor node in ms and mA</a>, or{" "}
+          <a href="/samples/duty-cycle-decimal-comma.csv" download>one with semicolons, decimal commas and a few broken rows</a>.
+        </p>
       </fieldset>
 
       <div className="flex flex-wrap items-center gap-3">

@@ -1,6 +1,9 @@
 import Link from "next/link";
 import { forPage, isStaff, refused, requireCourseRole } from "@/lib/auth/access";
+import { staffHome, studentHome } from "@/lib/home/load";
+import { labsForCourse } from "@/lib/labs/service";
 import { roleLabel } from "@/lib/roles";
+import { NextLabDue, OpenLabs, Panel, Scores, when } from "@/components/course/home-parts";
 import { Refusal } from "@/components/shell/refusal";
 
 export default async function CoursePage({ params }: { params: Promise<{ courseId: string }> }) {
@@ -8,6 +11,8 @@ export default async function CoursePage({ params }: { params: Promise<{ courseI
   const access = await forPage(requireCourseRole(courseId), `/courses/${courseId}`);
   if (refused(access)) return <Refusal message={access.refused} backHref="/" />;
   const { course, role } = access;
+  const staff = isStaff(role);
+  const now = new Date();
   return (
     <>
       <p className="text-xs font-semibold uppercase tracking-wide text-copper">
@@ -15,32 +20,128 @@ export default async function CoursePage({ params }: { params: Promise<{ courseI
       </p>
       <h1 className="mt-1 text-3xl">{course.title}</h1>
       <p className="mt-2 text-sm text-ink-soft">You are in this course as: {roleLabel[role]}.</p>
+      {access.section ? <p className="text-sm text-ink-soft">Your section: {access.section}.</p> : null}
       <nav aria-label="Course" className="mt-6 flex flex-wrap gap-3">
         <Link className="btn-quiet" href={`/courses/${course.id}/lessons`}>Lessons</Link>
         <Link className="btn-quiet" href={`/courses/${course.id}/labs`}>Bench labs</Link>
-        {isStaff(role) ? (
-          <Link className="btn-quiet" href={`/courses/${course.id}/roster`}>Roster</Link>
-        ) : null}
+        {staff ? <Link className="btn-quiet" href={`/courses/${course.id}/roster`}>Roster</Link> : null}
+        {role === "instructor" ? <Link className="btn-quiet" href={`/courses/${course.id}/settings`}>Settings</Link> : null}
       </nav>
-      <section className="mt-8 grid gap-4 sm:grid-cols-2">
-        <div className="card">
-          <h2 className="text-lg">
-            <Link href={`/courses/${course.id}/lessons`}>Lessons</Link>
-          </h2>
-          <p className="mt-1 text-sm text-ink-soft">Read them in order; each prepares one or more bench labs.</p>
-        </div>
-        <div className="card">
-          <h2 className="text-lg">
-            <Link href={`/courses/${course.id}/labs`}>Bench labs</Link>
-          </h2>
-          <p className="mt-1 text-sm text-ink-soft">Your own circuit values, your readings, graded against the physics.</p>
-        </div>
-      </section>
-      {isStaff(role) && role === "instructor" ? (
-        <p className="mt-6 text-sm text-ink-soft">
-          Join code for students: <code className="rounded bg-paper-sunk px-2 py-0.5 font-mono">{course.joinCode}</code>
-        </p>
-      ) : null}
+      {staff ? <StaffHome courseId={course.id} joinCode={course.joinCode} joiningOpen={course.joiningOpen} now={now} /> : <StudentHome access={access} now={now} />}
     </>
+  );
+}
+
+async function StudentHome({ access, now }: { access: Parameters<typeof labsForCourse>[0]; now: Date }) {
+  const labs = await labsForCourse(access);
+  const { summary, reviews, lesson } = await studentHome(access.course.id, access.user.id, labs, now);
+  const courseId = access.course.id;
+  return (
+    <div className="mt-8 grid gap-4 sm:grid-cols-2">
+      <div className="sm:col-span-2">
+        <NextLabDue summary={summary} />
+      </div>
+      <OpenLabs summary={summary} now={now} />
+      <Panel title="Next lesson" id="next-lesson">
+        {lesson.current ? (
+          <p>
+            Read <Link href={`/lessons/${lesson.current.slug}?course=${courseId}`}>{lesson.current.title}</Link>, the latest lesson to open.
+          </p>
+        ) : null}
+        {lesson.upcoming ? (
+          <p className="mt-1 text-ink-soft">
+            Coming next: {lesson.upcoming.title}
+            {lesson.upcoming.opensAt ? `, opens ${when(lesson.upcoming.opensAt)}` : ""}.
+          </p>
+        ) : (
+          <p className="mt-1 text-ink-soft">Every lesson of the plan is open.</p>
+        )}
+        <p className="mt-2">
+          <Link href={`/courses/${courseId}/lessons`}>The whole lesson plan</Link>
+        </p>
+      </Panel>
+      <Scores summary={summary} />
+      <Panel title="Your review requests" id="reviews">
+        {reviews.length === 0 ? (
+          <p className="text-ink-soft">You have not asked for a review. From an attempt&apos;s feedback you can ask the staff to look again.</p>
+        ) : (
+          <ul className="space-y-1">
+            {reviews.map((r) => (
+              <li key={r.attemptId}>
+                <Link href={`/attempts/${r.attemptId}`}>{r.labTitle}, attempt {r.number}</Link>: asked {when(r.requestedAt)}, waiting for an answer
+              </li>
+            ))}
+          </ul>
+        )}
+      </Panel>
+    </div>
+  );
+}
+
+async function StaffHome({ courseId, joinCode, joiningOpen, now }: { courseId: string; joinCode: string; joiningOpen: boolean; now: Date }) {
+  const { reviews, closing, regrades } = await staffHome(courseId, now);
+  return (
+    <div className="mt-8 grid gap-4 sm:grid-cols-2">
+      <Panel title={`Open review requests (${reviews.length})`} id="open-reviews">
+        {reviews.length === 0 ? (
+          <p className="text-ink-soft">No student is waiting for a review.</p>
+        ) : (
+          <ul className="space-y-1">
+            {reviews.slice(0, 8).map((r) => (
+              <li key={r.attemptId}>
+                <Link href={`/attempts/${r.attemptId}`}>{r.studentName}: {r.labTitle}, attempt {r.number}</Link>{" "}
+                <span className="text-ink-faint">asked {when(r.requestedAt)}</span>
+              </li>
+            ))}
+          </ul>
+        )}
+      </Panel>
+      <Panel title="Labs due this week" id="closing">
+        {closing.length === 0 ? (
+          <p className="text-ink-soft">No published lab is due in the next seven days.</p>
+        ) : (
+          <table className="min-w-full">
+            <caption className="sr-only">Labs due in the next seven days</caption>
+            <thead className="text-left text-ink-soft">
+              <tr>
+                <th scope="col" className="py-1 pr-3 font-medium">Lab</th>
+                <th scope="col" className="py-1 pr-3 font-medium">Due</th>
+                <th scope="col" className="py-1 pr-3 text-right font-medium">Submitted</th>
+                <th scope="col" className="py-1 text-right font-medium">Missing</th>
+              </tr>
+            </thead>
+            <tbody>
+              {closing.map((l) => (
+                <tr key={l.id} className="border-t border-ink/10">
+                  <td className="py-1 pr-3"><Link href={`/labs/${l.id}`}>{l.title}</Link></td>
+                  <td className="py-1 pr-3">{when(l.dueAt)}</td>
+                  <td className="py-1 pr-3 text-right font-mono">{l.submitted}</td>
+                  <td className="py-1 text-right font-mono">{l.missing}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        )}
+      </Panel>
+      <Panel title="Recomputing grades" id="regrades">
+        {regrades.length === 0 ? (
+          <p className="text-ink-soft">No recomputation is running.</p>
+        ) : (
+          <ul className="space-y-1">
+            {regrades.map((r) => (
+              <li key={r.id}>
+                <Link href={`/labs/${r.labId}`}>{r.title}</Link>: {r.status === "queued" ? "waiting to start" : `${r.done} of ${r.total} attempts recomputed`}
+              </li>
+            ))}
+          </ul>
+        )}
+      </Panel>
+      <Panel title="Join code" id="join-code">
+        <p>
+          <code className="rounded bg-paper-sunk px-2 py-0.5 font-mono text-base">{joinCode}</code>
+        </p>
+        <p className="mt-1 text-ink-soft">{joiningOpen ? "Students join with it on the sign-up page." : "Joining is closed; the instructor can open it in the settings."}</p>
+      </Panel>
+    </div>
   );
 }

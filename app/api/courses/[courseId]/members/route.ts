@@ -2,7 +2,7 @@ import { db } from "@/db";
 import { listMembers } from "@/db/queries/courses";
 import { json, jsonBody, route } from "@/lib/api";
 import { requireCourseRole, STAFF } from "@/lib/auth/access";
-import { addMember } from "@/lib/courses";
+import { addMember } from "@/lib/roster/service";
 import { addMemberSchema } from "@/lib/validation/members";
 
 type Params = { courseId: string };

@@ -16,7 +16,10 @@ export default async function NewLabPage({ params }: { params: Promise<{ courseI
         <Link href={`/courses/${courseId}/labs`}>← Bench labs of {access.course.title}</Link>
       </p>
       <h1 className="mt-2 mb-6 text-3xl">New lab</h1>
-      <LabBuilder courseId={courseId} />
+      <LabBuilder
+        courseId={courseId}
+        latePolicy={{ latePenaltyPercentPerDay: access.course.defaultLatePenaltyPercentPerDay, lateFloorPercent: access.course.defaultLateFloorPercent }}
+      />
     </>
   );
 }

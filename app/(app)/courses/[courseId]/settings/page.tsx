@@ -1,0 +1,43 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { forPage, refused, requireCourseRole } from "@/lib/auth/access";
+import { CopyCourseForm, CourseSettingsForm, JoinCodePanel } from "@/components/course/settings-form";
+import { Refusal } from "@/components/shell/refusal";
+
+export const metadata: Metadata = { title: "Course settings" };
+
+export default async function CourseSettingsPage({ params, searchParams }: { params: Promise<{ courseId: string }>; searchParams: Promise<{ copied?: string }> }) {
+  const { courseId } = await params;
+  const access = await forPage(requireCourseRole(courseId, ["instructor"]), `/courses/${courseId}/settings`);
+  if (refused(access)) return <Refusal message="Only the course's instructors change its settings." backHref={`/courses/${courseId}`} />;
+  const { course } = access;
+  const copied = (await searchParams).copied;
+  return (
+    <>
+      <p className="text-sm">
+        <Link href={`/courses/${courseId}`}>← {course.title}</Link>
+      </p>
+      <h1 className="mt-2 text-3xl">Course settings</h1>
+      <p className="mt-1 mb-6 text-sm text-ink-soft">{course.code} · {course.institution}</p>
+      {copied !== undefined ? (
+        <p role="status" className="mb-6 rounded-md bg-trace-pale p-3 text-sm text-trace">
+          This is the new copy: its {Number(copied) || 0} lab{Number(copied) === 1 ? " is a draft" : "s are drafts"} until you publish them. Check the dates, then open joining when the term starts.
+        </p>
+      ) : null}
+      <div className="grid gap-6">
+        <CourseSettingsForm
+          courseId={courseId}
+          initial={{
+            title: course.title,
+            term: course.term,
+            joiningOpen: course.joiningOpen,
+            defaultLatePenaltyPercentPerDay: course.defaultLatePenaltyPercentPerDay,
+            defaultLateFloorPercent: course.defaultLateFloorPercent,
+          }}
+        />
+        <JoinCodePanel key={course.joinCode} courseId={courseId} joinCode={course.joinCode} joiningOpen={course.joiningOpen} />
+        <CopyCourseForm courseId={courseId} code={course.code} />
+      </div>
+    </>
+  );
+}

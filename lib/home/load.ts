@@ -1,0 +1,47 @@
+// Loads what the home pages show. Callers authorize first (the course role decides which one is called).
+import "server-only";
+import { db } from "@/db";
+import { labsDueBetween, openReviewRequests, regradesInProgress, studentAttemptScores, studentReviewRequests } from "@/db/queries/course-home";
+import { lessonsForStudents } from "@/lib/course-lessons";
+import type { Lab } from "@/lib/labs/grading";
+import { studentSummary, type HomeLab } from "./summary";
+
+const WEEK = 7 * 24 * 3600 * 1000;
+
+export function homeLab(lab: Lab): HomeLab {
+  return {
+    id: lab.id,
+    title: lab.title,
+    opensAt: lab.opensAt,
+    dueAt: lab.dueAt,
+    attemptsAllowed: lab.attemptsAllowed,
+    counting: lab.counting,
+    maxPoints: lab.questions.reduce((s, q) => s + q.points, 0),
+  };
+}
+
+/** The lesson to read next: the first open one after the last that opened, or the next to open. */
+async function nextLesson(courseId: string, now: Date) {
+  const lessons = await lessonsForStudents(courseId, now);
+  const upcoming = lessons.find((l) => !l.open);
+  const lastOpen = [...lessons].reverse().find((l) => l.open);
+  return { current: lastOpen ? { slug: lastOpen.slug, title: lastOpen.title } : null, upcoming: upcoming ? { slug: upcoming.slug, title: upcoming.title, opensAt: upcoming.opensAt } : null };
+}
+
+export async function studentHome(courseId: string, userId: string, publishedLabs: Lab[], now = new Date()) {
+  const [attempts, reviews, lesson] = await Promise.all([
+    studentAttemptScores(db, courseId, userId),
+    studentReviewRequests(db, courseId, userId),
+    nextLesson(courseId, now),
+  ]);
+  return { summary: studentSummary(publishedLabs.map(homeLab), attempts, now), reviews, lesson };
+}
+
+export async function staffHome(courseId: string, now = new Date()) {
+  const [reviews, closing, regrades] = await Promise.all([
+    openReviewRequests(db, courseId),
+    labsDueBetween(db, courseId, now, new Date(now.getTime() + WEEK)),
+    regradesInProgress(db, courseId),
+  ]);
+  return { reviews, closing, regrades };
+}

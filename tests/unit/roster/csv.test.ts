@@ -1,0 +1,52 @@
+// Reading a roster CSV and marking its rows. Expected marks are written by hand from the file's lines.
+import { describe, expect, it } from "vitest";
+import { classifyRows, readRosterCsv } from "@/lib/roster/csv";
+
+describe("readRosterCsv", () => {
+  it("reads a header row in any column order and keeps the file's line numbers", () => {
+    const csv = "Section,E-mail,Name\r\nB2,ada@college.example,Ada Example\r\n\r\nB3,\"bo@college.example\",\"Bo, Junior\"\r\n";
+    expect(readRosterCsv(csv)).toEqual([
+      { line: 2, name: "Ada Example", email: "ada@college.example", section: "B2" },
+      { line: 4, name: "Bo, Junior", email: "bo@college.example", section: "B3" },
+    ]);
+  });
+
+  it("reads name, e-mail, section by position when there is no header, and semicolons as separators", () => {
+    expect(readRosterCsv("Ada Example;ada@college.example;B2\nBo Example;bo@college.example")).toEqual([
+      { line: 1, name: "Ada Example", email: "ada@college.example", section: "B2" },
+      { line: 2, name: "Bo Example", email: "bo@college.example", section: "" },
+    ]);
+  });
+});
+
+describe("classifyRows", () => {
+  it("marks new, existing, member, bad e-mail, duplicate and nameless rows", () => {
+    const entries = readRosterCsv(
+      [
+        "name,email,section",
+        "New One,new.one@college.example,A",
+        "Known Two,KNOWN.two@college.example,A",
+        "Member Three,member.three@college.example,B",
+        "Broken Four,not-an-address,B",
+        "New One Again,New.One@college.example,C",
+        ",nameless@college.example,C",
+      ].join("\n"),
+    );
+    const accounts = new Map([
+      ["known.two@college.example", { id: "u2", role: null }],
+      ["member.three@college.example", { id: "u3", role: "student" as const }],
+    ]);
+    const rows = classifyRows(entries, accounts);
+    expect(rows.map((r) => [r.line, r.email, r.outcome])).toEqual([
+      [2, "new.one@college.example", "invite"],
+      [3, "known.two@college.example", "add"],
+      [4, "member.three@college.example", "member"],
+      [5, "not-an-address", "bad_email"],
+      [6, "new.one@college.example", "duplicate"],
+      [7, "nameless@college.example", "bad_row"],
+    ]);
+    expect(rows[4].message).toBe("The same address is on line 2.");
+    expect(rows[2].message).toBe("Already in the course as a student.");
+    expect(rows[0].section).toBe("A");
+  });
+});
