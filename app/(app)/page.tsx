@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { Suspense } from "react";
 import { redirect } from "next/navigation";
 import { db } from "@/db";
 import { listAllCourses, listCoursesForUser } from "@/db/queries/courses";
@@ -13,11 +14,12 @@ import { when } from "@/components/course/home-parts";
 
 async function WhatNext({ courseId, userId, staff, now }: { courseId: string; userId: string; staff: boolean; now: Date }) {
   if (staff) {
-    const { reviews, closing, regrades } = await staffHome(courseId, now);
+    const { reviews, closing, nextLater, regrades, drafts } = await staffHome(courseId, now);
     const lines = [
       `${reviews.length} open review request${reviews.length === 1 ? "" : "s"}`,
-      ...closing.map((l) => `${l.title} due ${when(l.dueAt)}: ${l.submitted} submitted, ${l.missing} missing`),
+      ...[...closing, ...(nextLater ? [nextLater] : [])].map((l) => `${l.title} due ${when(l.dueAt)}: ${l.submitted} submitted, ${l.missing} missing`),
       ...regrades.map((r) => `recomputing ${r.title}: ${r.done} of ${r.total}`),
+      ...(drafts.length ? [`${drafts.length} draft lab${drafts.length === 1 ? "" : "s"} to finish`] : []),
     ];
     return (
       <ul className="mt-3 space-y-1 text-sm">
@@ -72,12 +74,18 @@ export default async function HomePage() {
                 {roleLabel[c.role]}
                 {c.section ? ` · section ${c.section}` : ""}
               </p>
-              <WhatNext courseId={c.id} userId={user.id} staff={isStaff(c.role)} now={now} />
+              <Suspense fallback={<p className="mt-3 text-sm text-ink-faint">Looking at what is next…</p>}>
+                <WhatNext courseId={c.id} userId={user.id} staff={isStaff(c.role)} now={now} />
+              </Suspense>
             </li>
           ))}
         </ul>
       ) : null}
-      {user.isAdmin ? <AdminPanel /> : null}
+      {user.isAdmin ? (
+        <Suspense fallback={<p className="mt-8 text-sm text-ink-faint">Counting every course…</p>}>
+          <AdminPanel />
+        </Suspense>
+      ) : null}
     </>
   );
 }

@@ -91,3 +91,8 @@ export async function regradesInProgress(db: Db, courseId: string) {
     .orderBy("r.created_at")
     .execute();
 }
+
+/** The course's labs still in draft, for the staff's to-do list. */
+export async function draftLabs(db: Db, courseId: string) {
+  return db.selectFrom("labs").select(["id", "title"]).where("course_id", "=", courseId).where("status", "=", "draft").orderBy("created_at").execute();
+}

@@ -1,7 +1,7 @@
 // Loads what the home pages show. Callers authorize first (the course role decides which one is called).
 import "server-only";
 import { db } from "@/db";
-import { labsDueBetween, openReviewRequests, regradesInProgress, studentAttemptScores, studentReviewRequests } from "@/db/queries/course-home";
+import { draftLabs, labsDueBetween, openReviewRequests, regradesInProgress, studentAttemptScores, studentReviewRequests } from "@/db/queries/course-home";
 import { lessonsForStudents } from "@/lib/course-lessons";
 import type { Lab } from "@/lib/labs/grading";
 import { studentSummary, type HomeLab } from "./summary";
@@ -38,10 +38,14 @@ export async function studentHome(courseId: string, userId: string, publishedLab
 }
 
 export async function staffHome(courseId: string, now = new Date()) {
-  const [reviews, closing, regrades] = await Promise.all([
+  const [reviews, dueAhead, regrades, drafts] = await Promise.all([
     openReviewRequests(db, courseId),
-    labsDueBetween(db, courseId, now, new Date(now.getTime() + WEEK)),
+    labsDueBetween(db, courseId, now, new Date(now.getTime() + 53 * WEEK)),
     regradesInProgress(db, courseId),
+    draftLabs(db, courseId),
   ]);
-  return { reviews, closing, regrades };
+  const closing = dueAhead.filter((l) => l.dueAt.getTime() < now.getTime() + WEEK);
+  // with nothing due this week, the next lab due later (so the page still says what comes next)
+  const nextLater = closing.length === 0 ? (dueAhead[0] ?? null) : null;
+  return { reviews, closing, nextLater, regrades, drafts };
 }

@@ -48,7 +48,7 @@ describe("a new course from creation to a student's course home", () => {
     await form.getByLabel("Instructor's e-mail").fill(demo.instructor);
     await form.getByRole("button", { name: "Create course" }).click();
     await a.page.getByText(`${code} is created with join code`).waitFor();
-    expect(await a.page.getByRole("row", { name: new RegExp(code) }).count()).toBe(1);
+    await a.page.getByRole("row", { name: new RegExp(code) }).waitFor();
     await a.context.close();
 
     // 2. The instructor finds the course, publishes a lab due in three days, and imports two students.

@@ -75,7 +75,7 @@ describe("PATCH and DELETE /api/courses/{courseId}/members/{userId}", () => {
     const labId = created.body.lab.id;
     expect((await send(as.instructor, "PATCH", `/api/labs/${labId}`, { status: "published" })).status).toBe(200);
     const handout = await as.student.json(`/api/labs/${labId}/handout`);
-    const q = handout.body.questions[0].id;
+    const q = handout.body.handout.questions[0].id;
     // I = V / (RL + Rsh) = 5 / 480 = 10.4 mA (Ohm's law)
     const sub = await as.student.post(`/api/labs/${labId}/attempts`, { idempotencyKey: "roster-1", readings: { [q]: "10.4 mA" } });
     expect(sub.status).toBe(201);

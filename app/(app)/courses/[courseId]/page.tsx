@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { Suspense } from "react";
 import { forPage, isStaff, refused, requireCourseRole } from "@/lib/auth/access";
 import { staffHome, studentHome } from "@/lib/home/load";
 import { labsForCourse } from "@/lib/labs/service";
@@ -27,7 +28,9 @@ export default async function CoursePage({ params }: { params: Promise<{ courseI
         {staff ? <Link className="btn-quiet" href={`/courses/${course.id}/roster`}>Roster</Link> : null}
         {role === "instructor" ? <Link className="btn-quiet" href={`/courses/${course.id}/settings`}>Settings</Link> : null}
       </nav>
-      {staff ? <StaffHome courseId={course.id} joinCode={course.joinCode} joiningOpen={course.joiningOpen} now={now} /> : <StudentHome access={access} now={now} />}
+      <Suspense fallback={<p className="mt-8 text-sm text-ink-faint">Looking at what is next…</p>}>
+        {staff ? <StaffHome courseId={course.id} joinCode={course.joinCode} joiningOpen={course.joiningOpen} now={now} /> : <StudentHome access={access} now={now} />}
+      </Suspense>
     </>
   );
 }
@@ -79,7 +82,7 @@ async function StudentHome({ access, now }: { access: Parameters<typeof labsForC
 }
 
 async function StaffHome({ courseId, joinCode, joiningOpen, now }: { courseId: string; joinCode: string; joiningOpen: boolean; now: Date }) {
-  const { reviews, closing, regrades } = await staffHome(courseId, now);
+  const { reviews, closing, nextLater, regrades, drafts } = await staffHome(courseId, now);
   return (
     <div className="mt-8 grid gap-4 sm:grid-cols-2">
       <Panel title={`Open review requests (${reviews.length})`} id="open-reviews">
@@ -98,7 +101,14 @@ async function StaffHome({ courseId, joinCode, joiningOpen, now }: { courseId: s
       </Panel>
       <Panel title="Labs due this week" id="closing">
         {closing.length === 0 ? (
-          <p className="text-ink-soft">No published lab is due in the next seven days.</p>
+          <p className="text-ink-soft">
+            No published lab is due in the next seven days.
+            {nextLater ? (
+              <>
+                {" "}Next: <Link href={`/labs/${nextLater.id}`}>{nextLater.title}</Link>, due {when(nextLater.dueAt)}, {nextLater.submitted} submitted, {nextLater.missing} missing so far.
+              </>
+            ) : null}
+          </p>
         ) : (
           <table className="min-w-full">
             <caption className="sr-only">Labs due in the next seven days</caption>
@@ -121,6 +131,19 @@ async function StaffHome({ courseId, joinCode, joiningOpen, now }: { courseId: s
               ))}
             </tbody>
           </table>
+        )}
+      </Panel>
+      <Panel title="Drafts to finish" id="drafts">
+        {drafts.length === 0 ? (
+          <p className="text-ink-soft">Every lab is published.</p>
+        ) : (
+          <ul className="space-y-1">
+            {drafts.map((d) => (
+              <li key={d.id}>
+                <Link href={`/labs/${d.id}`}>{d.title}</Link> <span className="text-ink-faint">(draft, students cannot see it)</span>
+              </li>
+            ))}
+          </ul>
         )}
       </Panel>
       <Panel title="Recomputing grades" id="regrades">
