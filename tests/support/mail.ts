@@ -67,7 +67,17 @@ export async function smallCourse(db: Kysely<Database>, opts: { held?: boolean; 
   const course = await db
     .insertInto("courses")
     .values({ code: "MAIL-101", title: "Mail test course", term: "T1", institution: "Test college", join_code: `M-${Date.now()}` })
-    .returning(["id", "code", "title", "term", "institution", "join_code as joinCode"])
+    .returning([
+      "id",
+      "code",
+      "title",
+      "term",
+      "institution",
+      "join_code as joinCode",
+      "joining_open as joiningOpen",
+      "default_late_penalty_percent_per_day as defaultLatePenaltyPercentPerDay",
+      "default_late_floor_percent as defaultLateFloorPercent",
+    ])
     .executeTakeFirstOrThrow();
   const instructor = await db
     .insertInto("users")
