@@ -8,7 +8,17 @@ import { CheckYourself } from "./CheckYourself";
 import { CircuitDiagram } from "./diagrams";
 import { Eq } from "./Eq";
 import { V } from "./Value";
-import { BurdenExplorer, DutyCycleCalculator, RangePicker, RcStepResponse, ShuntPicker } from "./calculators";
+import { BudgetTable } from "./BudgetTable";
+import {
+  BurdenExplorer,
+  BurstSamplingCalculator,
+  DutyCycleCalculator,
+  LeakageGuardCalculator,
+  RangePicker,
+  RcStepResponse,
+  ShuntPicker,
+  ThermalReversalCalculator,
+} from "./calculators";
 
 function H2(props: ComponentPropsWithoutRef<"h2">) {
   return <h2 id={headingId(childrenText(props.children))} className="mt-10 mb-3 scroll-mt-6 text-2xl break-after-avoid" {...props} />;
@@ -26,4 +36,8 @@ export const lessonComponents: MDXComponents = {
   RangePicker,
   DutyCycleCalculator,
   RcStepResponse,
+  LeakageGuardCalculator,
+  ThermalReversalCalculator,
+  BurstSamplingCalculator,
+  BudgetTable,
 };

@@ -106,9 +106,19 @@ export async function seedDemo(db: Kysely<Database>, opts: { storage?: SeedStora
       opts.storage,
     );
 
-    // The lesson plan: the whole syllabus, the last three lessons opening over the coming weeks.
-    const planned = await trx.selectFrom("course_lessons").select("slug").where("course_id", "=", courseId).executeTakeFirst();
-    if (!planned) {
+    // The lesson plan: the whole syllabus, the last three lessons opening over the coming weeks. A plan
+    // seeded before newer lessons existed gets them appended (visible, open), and keeps its own rows.
+    const planned = await trx.selectFrom("course_lessons").select(["slug", "position"]).where("course_id", "=", courseId).execute();
+    if (planned.length > 0) {
+      const have = new Set(planned.map((r) => r.slug));
+      const missing = readLessonFiles().filter((l) => !have.has(l.slug));
+      const last = Math.max(...planned.map((r) => r.position));
+      if (missing.length > 0)
+        await trx
+          .insertInto("course_lessons")
+          .values(missing.map((l, i) => ({ course_id: courseId, slug: l.slug, position: last + i + 1, visible: true, opens_at: null })))
+          .execute();
+    } else {
       const now = Date.now();
       const slugs = readLessonFiles().map((l) => l.slug);
       await trx

@@ -17,6 +17,8 @@ const SAFETY = {
   bench: "Set the bench supply's current limit just above the circuit's expected maximum before you connect anything, and power down before you rewire.",
   shunt: "Check the shunt's dissipation (I²R) against its rating before you switch on; a hot shunt drifts and can burn fingers.",
   cell: "Treat the lithium cell with care: never short, puncture or solder to it, and stop using any cell that is swollen, hot or smells.",
+  esd: "The nanoamp input has almost nothing to drain static: wear the wrist strap on the grounded mat, hold the board by its edges, and keep the input capped when nothing is connected.",
+  solder: "The soldering iron runs at 300 to 400 °C: park it in its stand, keep the fume extraction on, wear eye protection and let joints cool before you touch them.",
 };
 
 interface DemoLab {
@@ -202,6 +204,105 @@ const LABS: DemoLab[] = [
     instructions: "Draft: still to be written.",
     safety: "",
   },
+  {
+    title: "Lab 10 · Nanoamps: leakage and a guard ring",
+    template: "leakage-guard",
+    state: "open",
+    spec: {
+      sourceVoltage: { mode: "list", values: [5, 10, 15] },
+      insulationResistance: { mode: "list", values: [2e10, 5e10, 1e11, 2e11] },
+      measuredCurrent: { mode: "list", values: [0.5e-9, 1e-9, 2e-9] },
+      biasCurrent: { mode: "list", values: [2e-12, 5e-12, 10e-12] },
+      guardVoltage: { mode: "list", values: [1e-3, 2e-3, 5e-3] },
+    },
+    questions: [
+      { quantity: "leakageCurrent", kind: "prediction", points: 2 },
+      { quantity: "unguardedErrorPercent", kind: "bench", points: 3 },
+      { quantity: "guardedLeakage", kind: "prediction", points: 2 },
+      { quantity: "guardedErrorPercent", kind: "bench", points: 3 },
+    ],
+    showExpected: "after_due",
+    instructions:
+      "Measure the test current with the feedback ammeter twice: first with the neighbouring trace at your voltage and no guard, then with the guard ring connected to the amplifier's non-inverting input.\n\n- Predict the leakage through the board's insulation.\n- Report the error of each reading against the current the source sets, in percent.\n- Do not forget the amplifier's bias current.",
+    safety: `${SAFETY.esd} ${SAFETY.bench}`,
+  },
+  {
+    title: "Lab 11 · Microvolts: thermoelectric offsets and current reversal",
+    template: "offset-thermal",
+    state: "open",
+    spec: {
+      shuntResistance: { mode: "list", values: [1e-3, 2e-3, 5e-3], tolerancePercent: 1 },
+      current: { mode: "list", values: [0.1, 0.2, 0.5] },
+      offsetVoltage: { mode: "list", values: [-20e-6, 5e-6, 15e-6] },
+      seebeckMicrovoltsPerKelvin: { mode: "list", values: [3, 5] },
+      junctionTemperatureDifference: { mode: "list", values: [0.5, 1, 2] },
+    },
+    questions: [
+      { quantity: "apparentCurrent", kind: "prediction", points: 3 },
+      { quantity: "forwardVoltage", kind: "bench", points: 2 },
+      { quantity: "reverseVoltage", kind: "bench", points: 2 },
+      { quantity: "reversedCurrent", kind: "bench", points: 3 },
+    ],
+    showExpected: "after_due",
+    instructions:
+      "Warm one solder junction of the sense leads with the heating block until the thermometer shows your temperature difference. Read the shunt voltage with the current forward, reverse the current, and read again.\n\n- Predict the current the offsets alone would read as.\n- Work out the current from half the difference of the two readings.",
+    safety: `${SAFETY.solder} ${SAFETY.shunt}`,
+  },
+  {
+    title: "Lab 12 · How often to sample a waking node",
+    template: "sampling-burst",
+    state: "open",
+    spec: {
+      sampleRate: { mode: "list", values: [500, 1000, 2000] },
+      burstWidth: { mode: "list", values: [2e-3, 5e-3, 10e-3] },
+      requiredSamples: { mode: "fixed", value: 20 },
+      wakePeriod: { mode: "list", values: [0.9, 0.95, 1.02, 1.05] },
+      logRate: { mode: "fixed", value: 1 },
+      activeCurrent: { mode: "list", values: [10e-3, 20e-3] },
+      sleepCurrent: { mode: "list", values: [2e-6, 5e-6] },
+    },
+    questions: [
+      { quantity: "samplesPerBurst", kind: "prediction", points: 2 },
+      { quantity: "minimumSampleRate", kind: "prediction", points: 2 },
+      { quantity: "apparentWakeFrequency", kind: "bench", points: 3 },
+      { quantity: "worstCaseErrorPercent", kind: "prediction", points: 3 },
+    ],
+    showExpected: "after_due",
+    instructions:
+      "Log the node's current with the fast logger at your sample rate and, at the same time, with the once-a-second logger for five minutes.\n\n- Count the samples in a burst and find the rate that gives twenty.\n- From the slow log, measure how often the wakes appear to repeat.\n- Bound the error of the average from one sample interval per wake.",
+    safety: SAFETY.cell,
+  },
+  {
+    title: "Lab 13 · The whole chain: a budget from shunt to converter code",
+    template: "uncertainty",
+    state: "open",
+    spec: {
+      reading: { mode: "list", values: [20e-3, 50e-3] },
+      readingAccuracyPercent: { mode: "fixed", value: 0 },
+      readingCounts: { mode: "fixed", value: 0 },
+      countSize: { mode: "fixed", value: 1e-3 },
+      shuntResistance: { mode: "list", values: [0.1, 0.2], tolerancePercent: 1 },
+      shuntTolerancePercent: { mode: "fixed", value: 1 },
+      coverageFactor: { mode: "fixed", value: 2 },
+      shuntTempcoPpm: { mode: "list", values: [25, 50, 100] },
+      temperatureChange: { mode: "list", values: [5, 10, 20] },
+      gainErrorPercent: { mode: "list", values: [0.1, 0.2] },
+      referenceTolerancePercent: { mode: "list", values: [0.1, 0.2] },
+      amplifierGain: { mode: "list", values: [10, 20, 50] },
+      adcBits: { mode: "list", values: [10, 12] },
+      adcReference: { mode: "fixed", value: 3.3 },
+    },
+    questions: [
+      { quantity: "tempcoContribution", kind: "prediction", points: 2 },
+      { quantity: "quantisationContribution", kind: "prediction", points: 3 },
+      { quantity: "combinedStandardUncertainty", kind: "prediction", points: 3 },
+      { quantity: "dominantContribution", kind: "prediction", points: 2 },
+    ],
+    showExpected: "after_due",
+    instructions:
+      "The course meter reads your shunt through its amplifier and converter. Write the budget table for one reading: every bound as a standard uncertainty, each times its sensitivity coefficient, combined in quadrature, and name the contribution that dominates.",
+    safety: "",
+  },
 ];
 
 type Outcome = { kind: "correct" | "close" | "wrong" | "unit" | "missing" } | { kind: "mistake"; key: MistakeKey };
@@ -260,12 +361,13 @@ export async function seedLabs(
   students: { graded: { id: string }[]; open: { id: string }[] },
   storage?: SeedStorage,
 ) {
-  const existing = await db.selectFrom("labs").select("id").where("course_id", "=", courseId).executeTakeFirst();
-  if (existing) return; // seeded before: keep the data as it is
+  // seeded before: keep those labs as they are, and add only the demo labs that are not there yet
+  const existing = new Set((await db.selectFrom("labs").select("title").where("course_id", "=", courseId).execute()).map((l) => l.title));
   const now = Date.now();
   const covered = new Set<MistakeKey>();
 
   for (const [index, demo] of LABS.entries()) {
+    if (existing.has(demo.title)) continue;
     const dates = {
       graded: { opensAt: new Date(now - (40 - index * 7) * DAY), dueAt: new Date(now - (26 - index * 7) * DAY) },
       open: { opensAt: new Date(now - 6 * DAY), dueAt: new Date(now + (8 + index) * DAY) },

@@ -184,6 +184,74 @@ export const questions: LessonQuestion[] = [
     prompt:
       "The voltmeter reads {p.reading|mV} across a {p.shuntResistance|Ω} ±{p.shuntTolerancePercent|%} shunt. Its specification is ±({p.readingAccuracyPercent|%} of reading + {p.readingCounts|} counts), one count being {p.countSize|mV}. State the expanded uncertainty of the current for k = {p.coverageFactor|}.",
   },
+  {
+    id: "unc-chain-quantisation",
+    lesson: "uncertainty-budget",
+    template: "uncertainty",
+    params: { reading: 20e-3, readingAccuracyPercent: 0, readingCounts: 0, countSize: 1e-3, shuntResistance: 0.1, shuntTolerancePercent: 1, coverageFactor: 2, amplifierGain: 100, adcBits: 12, adcReference: 3.3 },
+    quantity: "quantisationContribution",
+    unit: "µA",
+    prompt:
+      "The course meter reads the {p.reading|mV} across a {p.shuntResistance|Ω} shunt through a ×{p.amplifierGain|} amplifier into a {p.adcBits|}-bit converter with a {p.adcReference|V} reference. What standard uncertainty of the current does rounding to one converter step contribute?",
+  },
+  {
+    id: "leak-guarded-error",
+    lesson: "leakage-and-guarding",
+    template: "leakage-guard",
+    params: { sourceVoltage: 15, insulationResistance: 50e9, measuredCurrent: 2e-9, biasCurrent: 10e-12, guardVoltage: 3e-3 },
+    quantity: "guardedErrorPercent",
+    unit: "%",
+    prompt:
+      "A trace at {p.sourceVoltage|V} runs past the input of a feedback ammeter measuring {p.measuredCurrent|nA}; the board's insulation between them is {p.insulationResistance|GΩ} and the amplifier's bias current is {p.biasCurrent|pA}. A guard ring is added and held within {p.guardVoltage|mV} of the input. What error, as a percentage of the current measured, remains?",
+  },
+  {
+    id: "leak-unguarded",
+    lesson: "leakage-and-guarding",
+    template: "leakage-guard",
+    params: { sourceVoltage: 15, insulationResistance: 50e9, measuredCurrent: 2e-9, biasCurrent: 10e-12, guardVoltage: 3e-3 },
+    quantity: "leakageCurrent",
+    unit: "pA",
+    prompt: "Before the guard: how much current does the {p.sourceVoltage|V} trace push through {p.insulationResistance|GΩ} of insulation into the input?",
+  },
+  {
+    id: "thermal-apparent",
+    lesson: "offsets-and-thermoelectric-voltages",
+    template: "offset-thermal",
+    params: { shuntResistance: 2e-3, current: 0.25, offsetVoltage: 20e-6, seebeckMicrovoltsPerKelvin: 3, junctionTemperatureDifference: 2 },
+    quantity: "apparentCurrent",
+    unit: "mA",
+    prompt:
+      "A {p.shuntResistance|mΩ} shunt is read by an amplifier with {p.offsetVoltage|µV} of input offset, through two junctions of {p.seebeckMicrovoltsPerKelvin|} µV/K that differ by {p.junctionTemperatureDifference|K}. With no current flowing, what current does it appear to read?",
+  },
+  {
+    id: "thermal-reversal",
+    lesson: "offsets-and-thermoelectric-voltages",
+    template: "offset-thermal",
+    params: { shuntResistance: 2e-3, current: 0.25, offsetVoltage: 20e-6, seebeckMicrovoltsPerKelvin: 3, junctionTemperatureDifference: 2 },
+    quantity: "reverseVoltage",
+    unit: "µV",
+    prompt:
+      "The same set-up now carries {p.current|mA}, then the current is reversed. What voltage (with its sign) do you read across the {p.shuntResistance|mΩ} shunt in the reversed polarity?",
+  },
+  {
+    id: "burst-min-rate",
+    lesson: "sampling-short-bursts",
+    template: "sampling-burst",
+    params: { sampleRate: 2000, burstWidth: 8e-3, requiredSamples: 40, wakePeriod: 0.95, logRate: 1, activeCurrent: 15e-3, sleepCurrent: 3e-6 },
+    quantity: "minimumSampleRate",
+    unit: "kHz",
+    prompt: "A radio burst lasts {p.burstWidth|ms} and you want {p.requiredSamples|} samples inside it. What is the lowest sample rate that gives them?",
+  },
+  {
+    id: "burst-alias",
+    lesson: "sampling-short-bursts",
+    template: "sampling-burst",
+    params: { sampleRate: 2000, burstWidth: 8e-3, requiredSamples: 40, wakePeriod: 0.95, logRate: 1, activeCurrent: 15e-3, sleepCurrent: 3e-6 },
+    quantity: "apparentWakeFrequency",
+    unit: "mHz",
+    prompt:
+      "The node wakes every {p.wakePeriod|s}. A slow data logger samples its current at {p.logRate|Hz}. At what frequency do the wakes appear to repeat in the logger's record?",
+  },
 ];
 
 /** Fills {p.name|unit} (optionally |sig) placeholders with the question's own inputs. "%x" shows a fraction as a percentage. */

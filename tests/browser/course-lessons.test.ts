@@ -18,7 +18,7 @@ describe("a course's lessons", () => {
     await page.getByRole("link", { name: "Lessons" }).first().click();
     await page.waitForURL(/\/courses\/[0-9a-f-]{36}\/lessons$/);
     const items = page.locator("main ol > li");
-    expect(await items.count()).toBe(11);
+    expect(await items.count()).toBe(14);
     // the demo plan opens the last three lessons over the coming weeks
     expect(await page.getByText(/^opens /).count()).toBe(3);
     await items.first().getByRole("link").click();

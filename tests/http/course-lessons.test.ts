@@ -24,9 +24,9 @@ describe("a course's lesson plan", () => {
   it("shows every lesson, open, in the syllabus order until the instructor sets a plan", async () => {
     const r = await as.student.json(path());
     expect(r.status).toBe(200);
-    expect(r.body.lessons.length).toBe(11);
+    expect(r.body.lessons.length).toBe(14);
     expect(r.body.lessons.every((l: { open: boolean }) => l.open)).toBe(true);
-    expect(r.body.lessons.map((l: { order: number }) => l.order)).toEqual([1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11]);
+    expect(r.body.lessons.map((l: { order: number }) => l.order)).toEqual([1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12, 13, 14]);
   });
 
   it("lets only the instructor set it; others get 403 or 404", async () => {

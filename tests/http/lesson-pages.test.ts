@@ -15,8 +15,8 @@ beforeAll(async () => {
 });
 
 describe("lesson pages", () => {
-  it("there are the eleven lessons of the syllabus", () => {
-    expect(slugs).toHaveLength(11);
+  it("there are the fourteen lessons of the syllabus", () => {
+    expect(slugs).toHaveLength(14);
   });
 
   it.each(slugs)("%s renders with typeset math, a check-yourself section, sources and a caution", async (slug) => {
@@ -28,6 +28,27 @@ describe("lesson pages", () => {
     expect(html).toContain("lab rules and your instructor");
     expect(html).toMatch(/Check yourself/);
     expect(html).toMatch(/Sources/);
+  });
+
+  it("the three lessons of the nanoamp and microvolt problems carry their calculators, diagrams and cautions", async () => {
+    const page = async (slug: string) => (await student.fetch(`/lessons/${slug}`)).text();
+    // React separates the caution's prefix from its title with an empty comment in server HTML
+    const caution = (title: string) => new RegExp(`Safety — (<!-- -->)?${title}`);
+    const leakage = await page("leakage-and-guarding");
+    expect(leakage).toContain('data-testid="leakage-calculator"');
+    expect(leakage).toContain('data-template="leakage-guard"');
+    expect(leakage).toMatch(caution("High-voltage insulation tests"));
+    expect(leakage).toMatch(caution("Electrostatic discharge at high-impedance inputs"));
+    const thermal = await page("offsets-and-thermoelectric-voltages");
+    expect(thermal).toContain('data-testid="thermal-calculator"');
+    expect(thermal).toMatch(caution("Hot soldering for thermoelectric experiments"));
+    const burst = await page("sampling-short-bursts");
+    expect(burst).toContain('data-testid="burst-calculator"');
+    expect(burst).toContain('data-template="sampling-burst"');
+    // lesson 11 lays out the whole chain as a budget table, the shunt tolerance marked as dominant
+    const budget = await page("uncertainty-budget");
+    expect(budget).toContain('data-testid="budget-table"');
+    expect(budget).toMatch(/shunt tolerance(<!-- -->)? \(dominant\)/);
   });
 
   it("sends anonymous visitors to the sign-in page", async () => {

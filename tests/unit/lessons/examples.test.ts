@@ -65,6 +65,17 @@ describe("check-yourself questions", () => {
     ["duty-average", "15.50 uA", "DOMAIN §8 8c [FORMULA]"],
     ["duty-life", "871.4 h", "DOMAIN §8 8b [FORMULA]"],
     ["unc-amp-expanded", "7.767 mA", "DOMAIN §9 9d [FORMULA]"],
+    // by hand: 3.3 V/(4096 × 100) = 8.057 µV, /√12 = 2.326 µV, /0.1 Ω (GUM F.2.2.1)
+    ["unc-chain-quantisation", "23.26 uA", "by hand, q/√12 [FORMULA]"],
+    // by hand: (3 mV/50 GΩ + 10 pA)/2 nA (Ohm's law)
+    ["leak-guarded-error", "0.503 %", "by hand [FORMULA]"],
+    ["leak-unguarded", "300 pA", "15 V/50 GΩ, Ohm's law [FORMULA]"],
+    // by hand: (20 µV + 3 µV/K × 2 K)/2 mΩ; −250 mA × 2 mΩ + 26 µV
+    ["thermal-apparent", "13 mA", "by hand [FORMULA]"],
+    ["thermal-reversal", "-474 uV", "by hand [FORMULA]"],
+    // by hand: 40/8 ms; |1/0.95 s − 1 Hz|
+    ["burst-min-rate", "5 kHz", "by hand [FORMULA]"],
+    ["burst-alias", "52.63 mHz", "by hand [FORMULA]"],
   ];
   for (const [id, answer, source] of domainAnswers) {
     it(`${id}: "${answer}" is graded correct (${source})`, () => {

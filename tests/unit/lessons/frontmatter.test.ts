@@ -1,4 +1,4 @@
-// Every lesson file: valid frontmatter, the eleven lessons of issue 4 in order, a "Check yourself"
+// Every lesson file: valid frontmatter, the eleven lessons of issue 4 and the three of issue 15 in order, a "Check yourself"
 // section with at least one question, a "Sources" section with at least one entry.
 import fs from "node:fs";
 import path from "node:path";
@@ -12,7 +12,7 @@ const files = lessonFileNames();
 const source = (f: string) => fs.readFileSync(path.join(lessonsDir, f), "utf8");
 
 describe("lesson files", () => {
-  it("are the eleven lessons of the course, in the order of the syllabus", () => {
+  it("are the fourteen lessons of the course, in the order of the syllabus", () => {
     expect(listLessons().map((l) => [l.order, l.slug])).toEqual([
       [1, "bench-safety"],
       [2, "burden-voltage"],
@@ -25,6 +25,9 @@ describe("lesson files", () => {
       [9, "duty-cycled-loads"],
       [10, "noise-floor"],
       [11, "uncertainty-budget"],
+      [12, "leakage-and-guarding"],
+      [13, "offsets-and-thermoelectric-voltages"],
+      [14, "sampling-short-bursts"],
     ]);
   });
 
