@@ -32,3 +32,9 @@ export function applyOverrides<T extends Stored>(result: T, overrides: Overrides
   const rawScore = roundPoints(results.reduce((s, r) => s + r.points, 0));
   return { result: { ...result, results, score: rawScore }, rawScore, applied };
 }
+
+/** A review request is open when it was asked and not answered since (a student may ask again after an answer). */
+export function reviewIsOpen(a: { reviewRequestedAt: Date | string | null; reviewAnsweredAt: Date | string | null }): boolean {
+  if (!a.reviewRequestedAt) return false;
+  return !a.reviewAnsweredAt || new Date(a.reviewAnsweredAt).getTime() < new Date(a.reviewRequestedAt).getTime();
+}

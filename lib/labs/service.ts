@@ -22,6 +22,7 @@ import { queueGradeMail } from "@/lib/mail/grade";
 import { drawVariant, type Params } from "@/lib/grader";
 import { attemptRecord, gradeForLab, parseMeasured, toLab, withIds, type Lab, type TraceSummary } from "./grading";
 import { expectedVisible, isOpen } from "./policy";
+import { reviewIsOpen } from "./overrides";
 import { presentResults, type StoredResult } from "./present";
 
 export { gradeForLab, parseMeasured, policyFor, toLab, withIds, type Lab } from "./grading";
@@ -154,6 +155,10 @@ export function presentAttempt(attempt: AttemptRow, lab: Lab, viewerIsStaff: boo
     typed: { readings: attempt.readings as Record<string, string | null>, measured: ((attempt.measured as { typed?: Record<string, string | null> }).typed ?? {}) },
     reviewRequestedAt: attempt.reviewRequestedAt,
     reviewMessage: attempt.reviewMessage,
+    reviewAnswer: attempt.reviewAnswer,
+    reviewAnsweredAt: attempt.reviewAnsweredAt,
+    reviewOpen: reviewIsOpen(attempt),
+    changedByStaff: attempt.changedByStaff,
   };
 }
 

@@ -1,0 +1,5 @@
+import { json, route } from "@/lib/api";
+import { attemptHistory } from "@/lib/labs/review";
+
+// The attempt's grade history, oldest first, for its owner and the course staff.
+export const GET = route<{ attemptId: string }>(async (_req, { attemptId }) => json({ events: await attemptHistory(attemptId) }));
