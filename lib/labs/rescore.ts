@@ -65,7 +65,7 @@ export async function recomputeAttempt(
   } else if (Object.keys(a.overrides ?? {}).length) {
     reason = `${reason} (The grader's points replace the earlier staff points.)`;
   }
-  await insertGradeEvent(trx, {
+  const eventId = await insertGradeEvent(trx, {
     attemptId: a.id,
     kind: how.kind,
     actorId: how.actorId ?? null,
@@ -76,7 +76,7 @@ export async function recomputeAttempt(
     reason,
     graderVersion: graded.graderVersion,
   });
-  return { score, rawScore, kept: applied };
+  return { eventId, score, rawScore, scoreBefore: a.score, kept: applied };
 }
 
 /** Staff set one question's points (0 to its maximum, halves) with a reason; the late penalty applies as before. */
@@ -104,7 +104,7 @@ export async function overrideQuestion(trx: Trx, attemptId: string, input: { que
     overrides,
     changedByStaff: true,
   });
-  await insertGradeEvent(trx, {
+  const eventId = await insertGradeEvent(trx, {
     attemptId: a.id,
     kind: "override",
     questionId: input.questionId,
@@ -116,15 +116,15 @@ export async function overrideQuestion(trx: Trx, attemptId: string, input: { que
     reason: input.reason,
     graderVersion: a.graderVersion,
   });
-  return { score, rawScore };
+  return { eventId, score, rawScore, scoreBefore: a.score };
 }
 
 /** The staff's answer closes the student's review request; the history keeps the answer. */
-export async function answerReviewRequest(trx: Trx, attemptId: string, message: string, actorId: string, now = new Date()) {
+export async function answerReviewRequest(trx: Trx, attemptId: string, message: string, actorId: string, now = new Date()): Promise<string> {
   const a = await locked(trx, attemptId);
   if (!a.reviewRequestedAt) throw new AppError("conflict", "The student has not asked for a review of this attempt.");
   await answerReview(trx, a.id, message, actorId, now);
-  await insertGradeEvent(trx, {
+  return insertGradeEvent(trx, {
     attemptId: a.id,
     kind: "review_answer",
     actorId,

@@ -10,6 +10,7 @@ import { findUploads } from "@/db/queries/uploads";
 import { assertRole, isStaff, requireCourseRole, STAFF, type CourseAccess } from "@/lib/auth/access";
 import { AppError } from "@/lib/errors";
 import { templates } from "@/lib/grader";
+import { queueGradeMail } from "@/lib/mail/grade";
 import { parseRegrade, reviewAnswerSchema, reviewQuerySchema } from "@/lib/validation/reviews";
 import { invalid, parseOr400 } from "@/lib/validation/zod-errors";
 import type { Lab, TraceSummary } from "./grading";
@@ -55,9 +56,14 @@ export async function regradeAttempt(attemptId: string, readBody: () => Promise<
   if (!parsed.success) throw invalid(parsed.error);
   const input = parsed.data;
   const traces = "rerun" in input ? await tracesOf(attempt.uploadIds) : [];
+  // the grade, its history row and the student's message commit together
   await db.transaction().execute(async (trx) => {
-    if ("rerun" in input) await recomputeAttempt(trx, lab, attempt.id, traces, { kind: "rerun", actorId: access.user.id, reason: input.reason });
-    else await overrideQuestion(trx, attempt.id, input, access.user.id);
+    const kind = "rerun" in input ? ("rerun" as const) : ("override" as const);
+    const r =
+      kind === "rerun"
+        ? await recomputeAttempt(trx, lab, attempt.id, traces, { kind: "rerun", actorId: access.user.id, reason: input.reason })
+        : await overrideQuestion(trx, attempt.id, input as Exclude<typeof input, { rerun: true }>, access.user.id);
+    await queueGradeMail(trx, { attemptId: attempt.id, eventKey: `${kind}:${r.eventId}`, kind, change: { scoreBefore: r.scoreBefore, reason: input.reason, by: access.user.name } });
   });
   const after = (await findAttempt(db, attempt.id))!;
   return presentAttempt(after, lab, true);
@@ -68,7 +74,10 @@ export async function answerReview(attemptId: string, readBody: () => Promise<un
   const { attempt, access } = await staffAttemptAccess(attemptId);
   const { message } = parseOr400(reviewAnswerSchema, await readBody());
   const at = new Date();
-  await db.transaction().execute((trx) => answerReviewRequest(trx, attempt.id, message, access.user.id, at));
+  await db.transaction().execute(async (trx) => {
+    const eventId = await answerReviewRequest(trx, attempt.id, message, access.user.id, at);
+    await queueGradeMail(trx, { attemptId: attempt.id, eventKey: `review_answer:${eventId}`, kind: "review_answer", answer: message });
+  });
   return { attemptId: attempt.id, answer: message, answeredAt: at, answeredBy: access.user.name, status: "answered" as const };
 }
 

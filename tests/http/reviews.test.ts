@@ -171,6 +171,17 @@ describe("the review queue, a regrade and the answer", () => {
       reason: "Right method, the wrong resistor value",
     });
 
+    // the student's messages were queued with the changes (one per event)
+    const db = e2eDb();
+    try {
+      const mails = await db.selectFrom("mail_outbox").select(["kind", "data"]).where("to_address", "=", f.people.student.email).orderBy("created_at").execute();
+      expect(mails.map((m) => m.kind)).toEqual(expect.arrayContaining(["override", "review_answer"]));
+      const override = mails.find((m) => m.kind === "override")!.data as { change: { scoreBefore: number; scoreAfter: number; reason: string } };
+      expect(override.change).toMatchObject({ scoreBefore: 7, scoreAfter: 8.5, reason: "Right method, the wrong resistor value" });
+    } finally {
+      await db.destroy();
+    }
+
     const answered = await as.ta.json(`/api/courses/${f.courseId}/reviews?status=answered`);
     expect(answered.body.reviews.map((x: { attemptId: string }) => x.attemptId)).toEqual([attemptId]);
     expect(answered.body.reviews[0]).toMatchObject({ status: "answered", answeredBy: "Fixture ta", score: 8.5 });
