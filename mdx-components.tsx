@@ -1,6 +1,8 @@
 import type { MDXComponents } from "mdx/types";
 
-// One components map for every lesson: prose styling lives here, widgets are imported by the lessons.
+// The prose styling of every lesson (headings, lists, tables, code) for @next/mdx. The widgets a lesson uses
+// (calculators, diagrams, cautions) are not imported by the lessons: components/lesson/mdx.tsx passes them to
+// each compiled lesson as its `components` prop.
 const components: MDXComponents = {
   h2: (props) => <h2 className="mt-10 mb-3 text-2xl" {...props} />,
   h3: (props) => <h3 className="mt-6 mb-2 text-xl" {...props} />,

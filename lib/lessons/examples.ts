@@ -1,5 +1,5 @@
 // Worked examples quoted in the lessons. Lesson text never types these numbers: it renders them from
-// here through the grader (<V/> and <Eq/> in components/lesson). The `checks` are the DOMAIN.md check
+// here through the grader (<V/> and <Eq/> in components/lesson). The `checks` are the lib/grader/PHYSICS.md check
 // values, with their source tags; tests/unit/lessons/examples.test.ts recomputes each one through
 // lib/grader (relative 5e-4), so a number in the text and the grader cannot drift apart.
 
@@ -10,7 +10,7 @@ export type ExampleParams = Record<string, number | string>;
 export type ExampleCheck = {
   quantity: string;
   expected: number | string;
-  /** DOMAIN.md section and source tag of the expected value. */
+  /** lib/grader/PHYSICS.md section and source tag of the expected value. */
   source: string;
 };
 
@@ -35,10 +35,10 @@ export const examples = [
     template: "shunt-burden",
     params: { supplyVoltage: 3.3, loadResistance: 1000, shuntResistance: 10 },
     checks: [
-      { quantity: "trueCurrent", expected: 3.3e-3, source: "DOMAIN §2 2b [FORMULA]" }, // [FORMULA]
-      { quantity: "indicatedCurrent", expected: 3.267e-3, source: "DOMAIN §2 2b [FORMULA]" }, // [FORMULA]
-      { quantity: "loadingErrorPercent", expected: -0.9901, source: "DOMAIN §2 2b [FORMULA]" }, // [FORMULA]
-      { quantity: "burdenVoltage", expected: 32.67e-3, source: "DOMAIN §2 2b [FORMULA]" }, // [FORMULA]
+      { quantity: "trueCurrent", expected: 3.3e-3, source: "PHYSICS.md §2 2b [FORMULA]" }, // [FORMULA]
+      { quantity: "indicatedCurrent", expected: 3.267e-3, source: "PHYSICS.md §2 2b [FORMULA]" }, // [FORMULA]
+      { quantity: "loadingErrorPercent", expected: -0.9901, source: "PHYSICS.md §2 2b [FORMULA]" }, // [FORMULA]
+      { quantity: "burdenVoltage", expected: 32.67e-3, source: "PHYSICS.md §2 2b [FORMULA]" }, // [FORMULA]
     ],
   },
   {
@@ -47,10 +47,10 @@ export const examples = [
     template: "shunt-burden",
     params: { supplyVoltage: 1.8, loadResistance: 100, shuntResistance: 10 },
     checks: [
-      { quantity: "trueCurrent", expected: 18.0e-3, source: "DOMAIN §2 2c [FORMULA]" }, // [FORMULA]
-      { quantity: "indicatedCurrent", expected: 16.36e-3, source: "DOMAIN §2 2c [FORMULA]" }, // [FORMULA]
-      { quantity: "loadingErrorPercent", expected: -9.091, source: "DOMAIN §2 2c [FORMULA]" }, // [FORMULA]
-      { quantity: "burdenVoltage", expected: 0.1636, source: "DOMAIN §12.1 (164 mV) [FORMULA]" }, // [FORMULA]
+      { quantity: "trueCurrent", expected: 18.0e-3, source: "PHYSICS.md §2 2c [FORMULA]" }, // [FORMULA]
+      { quantity: "indicatedCurrent", expected: 16.36e-3, source: "PHYSICS.md §2 2c [FORMULA]" }, // [FORMULA]
+      { quantity: "loadingErrorPercent", expected: -9.091, source: "PHYSICS.md §2 2c [FORMULA]" }, // [FORMULA]
+      { quantity: "burdenVoltage", expected: 0.1636, source: "PHYSICS.md §12.1 (164 mV) [FORMULA]" }, // [FORMULA]
     ],
   },
   {
@@ -59,10 +59,10 @@ export const examples = [
     template: "shunt-burden",
     params: { supplyVoltage: 3.0, loadResistance: 8, shuntResistance: 1.8 },
     checks: [
-      { quantity: "trueCurrent", expected: 0.375, source: "DOMAIN §2 2d [FORMULA; lab-tip article ≈375 mA]" }, // [FORMULA]
-      { quantity: "indicatedCurrent", expected: 0.3061, source: "DOMAIN §2 2d [FORMULA; lab-tip article ≈306 mA]" }, // [FORMULA]
-      { quantity: "loadingErrorPercent", expected: -18.37, source: "DOMAIN §2 2d [FORMULA]" }, // [FORMULA]
-      { quantity: "burdenVoltage", expected: 0.551, source: "DOMAIN §2 2d [FORMULA]" }, // [FORMULA]
+      { quantity: "trueCurrent", expected: 0.375, source: "PHYSICS.md §2 2d [FORMULA; lab-tip article ≈375 mA]" }, // [FORMULA]
+      { quantity: "indicatedCurrent", expected: 0.3061, source: "PHYSICS.md §2 2d [FORMULA; lab-tip article ≈306 mA]" }, // [FORMULA]
+      { quantity: "loadingErrorPercent", expected: -18.37, source: "PHYSICS.md §2 2d [FORMULA]" }, // [FORMULA]
+      { quantity: "burdenVoltage", expected: 0.551, source: "PHYSICS.md §2 2d [FORMULA]" }, // [FORMULA]
     ],
   },
 
@@ -73,10 +73,10 @@ export const examples = [
     template: "shunt-selection",
     params: { maxCurrent: 3.3, maxBurden: 0.1, series: "E24" },
     checks: [
-      { quantity: "idealShunt", expected: 30.3e-3, source: "DOMAIN §1 1g [FORMULA]" }, // [FORMULA]
-      { quantity: "standardShunt", expected: 30e-3, source: "DOMAIN §1 1g [FORMULA]" }, // [FORMULA]
-      { quantity: "burdenAtFullScale", expected: 99.0e-3, source: "DOMAIN §1 1h [FORMULA]" }, // [FORMULA]
-      { quantity: "shuntPower", expected: 0.3267, source: "DOMAIN §1 1h [FORMULA]" }, // [FORMULA]
+      { quantity: "idealShunt", expected: 30.3e-3, source: "PHYSICS.md §1 1g [FORMULA]" }, // [FORMULA]
+      { quantity: "standardShunt", expected: 30e-3, source: "PHYSICS.md §1 1g [FORMULA]" }, // [FORMULA]
+      { quantity: "burdenAtFullScale", expected: 99.0e-3, source: "PHYSICS.md §1 1h [FORMULA]" }, // [FORMULA]
+      { quantity: "shuntPower", expected: 0.3267, source: "PHYSICS.md §1 1h [FORMULA]" }, // [FORMULA]
     ],
   },
   {
@@ -84,14 +84,14 @@ export const examples = [
     kind: "template",
     template: "shunt-selection",
     params: { maxCurrent: 3.3, maxBurden: 0.1, series: "E96" },
-    checks: [{ quantity: "standardShunt", expected: 30.1e-3, source: "DOMAIN §1 1g [FORMULA]" }], // [FORMULA]
+    checks: [{ quantity: "standardShunt", expected: 30.1e-3, source: "PHYSICS.md §1 1g [FORMULA]" }], // [FORMULA]
   },
   {
     id: "shunt-amp-e12",
     kind: "template",
     template: "shunt-selection",
     params: { maxCurrent: 3.3, maxBurden: 0.1, series: "E12" },
-    checks: [{ quantity: "standardShunt", expected: 27e-3, source: "DOMAIN §1 1g [FORMULA]" }], // [FORMULA]
+    checks: [{ quantity: "standardShunt", expected: 27e-3, source: "PHYSICS.md §1 1g [FORMULA]" }], // [FORMULA]
   },
   {
     id: "shunt-micro-e24",
@@ -99,9 +99,9 @@ export const examples = [
     template: "shunt-selection",
     params: { maxCurrent: 3.3e-6, maxBurden: 10e-3, series: "E24" },
     checks: [
-      { quantity: "idealShunt", expected: 3030, source: "DOMAIN §1 1i [FORMULA]" }, // [FORMULA]
-      { quantity: "standardShunt", expected: 3000, source: "DOMAIN §1 1i [FORMULA]" }, // [FORMULA]
-      { quantity: "burdenAtFullScale", expected: 9.9e-3, source: "DOMAIN §1 1i [FORMULA]" }, // [FORMULA]
+      { quantity: "idealShunt", expected: 3030, source: "PHYSICS.md §1 1i [FORMULA]" }, // [FORMULA]
+      { quantity: "standardShunt", expected: 3000, source: "PHYSICS.md §1 1i [FORMULA]" }, // [FORMULA]
+      { quantity: "burdenAtFullScale", expected: 9.9e-3, source: "PHYSICS.md §1 1i [FORMULA]" }, // [FORMULA]
     ],
   },
   {
@@ -110,8 +110,8 @@ export const examples = [
     template: "shunt-selection",
     params: { maxCurrent: 3.3e-6, maxBurden: 10e-3, series: "E96" },
     checks: [
-      { quantity: "standardShunt", expected: 3010, source: "DOMAIN §1 1i [FORMULA]" }, // [FORMULA]
-      { quantity: "burdenAtFullScale", expected: 9.933e-3, source: "DOMAIN §1 1i [FORMULA]" }, // [FORMULA]
+      { quantity: "standardShunt", expected: 3010, source: "PHYSICS.md §1 1i [FORMULA]" }, // [FORMULA]
+      { quantity: "burdenAtFullScale", expected: 9.933e-3, source: "PHYSICS.md §1 1i [FORMULA]" }, // [FORMULA]
     ],
   },
   {
@@ -120,9 +120,9 @@ export const examples = [
     template: "shunt-selection",
     params: { maxCurrent: 3.3e-6, maxBurden: 35e-3, series: "E12" },
     checks: [
-      { quantity: "standardShunt", expected: 10e3, source: "DOMAIN §1 1j [CP design; FORMULA]" }, // [CP; FORMULA]
-      { quantity: "burdenAtFullScale", expected: 33.0e-3, source: "DOMAIN §1 1j [FORMULA]" }, // [FORMULA]
-      { quantity: "shuntPower", expected: 108.9e-9, source: "DOMAIN §1 1j [FORMULA]" }, // [FORMULA]
+      { quantity: "standardShunt", expected: 10e3, source: "PHYSICS.md §1 1j [CP design; FORMULA]" }, // [CP; FORMULA]
+      { quantity: "burdenAtFullScale", expected: 33.0e-3, source: "PHYSICS.md §1 1j [FORMULA]" }, // [FORMULA]
+      { quantity: "shuntPower", expected: 108.9e-9, source: "PHYSICS.md §1 1j [FORMULA]" }, // [FORMULA]
     ],
   },
   {
@@ -131,27 +131,27 @@ export const examples = [
     template: "shunt-selection",
     params: { maxCurrent: 3.3, maxBurden: 35e-3, series: "E12" },
     checks: [
-      { quantity: "standardShunt", expected: 10e-3, source: "DOMAIN §1 1j [CP design; FORMULA]" }, // [CP; FORMULA]
-      { quantity: "shuntPower", expected: 108.9e-3, source: "DOMAIN §1 1j [FORMULA]" }, // [FORMULA]
+      { quantity: "standardShunt", expected: 10e-3, source: "PHYSICS.md §1 1j [CP design; FORMULA]" }, // [CP; FORMULA]
+      { quantity: "shuntPower", expected: 108.9e-3, source: "PHYSICS.md §1 1j [FORMULA]" }, // [FORMULA]
     ],
   },
   {
     id: "e24-log-nearest",
     kind: "standard",
     params: { value: 2848, series: "E24", mode: "nearest" },
-    checks: [{ quantity: "value", expected: 3000, source: "DOMAIN §1 1e [FORMULA: IEC 60063 list]" }], // [FORMULA]
+    checks: [{ quantity: "value", expected: 3000, source: "PHYSICS.md §1 1e [FORMULA: IEC 60063 list]" }], // [FORMULA]
   },
   {
     id: "e24-319",
     kind: "standard",
     params: { value: 319, series: "E24", mode: "nearest" },
-    checks: [{ quantity: "value", expected: 330, source: "DOMAIN §1 1b [PUB: PyPI eseries docs]" }], // [PUB]
+    checks: [{ quantity: "value", expected: 330, source: "PHYSICS.md §1 1b [PUB: PyPI eseries docs]" }], // [PUB]
   },
   {
     id: "e96-ceil-184",
     kind: "standard",
     params: { value: 184, series: "E96", mode: "ceil" },
-    checks: [{ quantity: "value", expected: 187, source: "DOMAIN §1 1c [PUB: PyPI eseries docs]" }], // [PUB]
+    checks: [{ quantity: "value", expected: 187, source: "PHYSICS.md §1 1c [PUB: PyPI eseries docs]" }], // [PUB]
   },
 
   // ---- Lessons 4-6: ranges, auto-ranging, resolution ----
@@ -161,10 +161,10 @@ export const examples = [
     template: "range-resolution",
     params: { current: 500e-9, fullScaleVoltage: 3.3, adcBits: 12, adcReference: 3.3 },
     checks: [
-      { quantity: "bestRange", expected: "nA", source: "DOMAIN §3 3a [FORMULA]" }, // [FORMULA]
-      { quantity: "outputVoltage", expected: 0.5, source: "DOMAIN §3 3a [FORMULA]" }, // [FORMULA]
-      { quantity: "adcCode", expected: 620, source: "DOMAIN §4 4e (truncating) [FORMULA]" }, // [FORMULA]
-      { quantity: "currentResolution", expected: 0.8057e-9, source: "DOMAIN §4 4b [FORMULA]" }, // [FORMULA]
+      { quantity: "bestRange", expected: "nA", source: "PHYSICS.md §3 3a [FORMULA]" }, // [FORMULA]
+      { quantity: "outputVoltage", expected: 0.5, source: "PHYSICS.md §3 3a [FORMULA]" }, // [FORMULA]
+      { quantity: "adcCode", expected: 620, source: "PHYSICS.md §4 4e (truncating) [FORMULA]" }, // [FORMULA]
+      { quantity: "currentResolution", expected: 0.8057e-9, source: "PHYSICS.md §4 4b [FORMULA]" }, // [FORMULA]
     ],
   },
   {
@@ -173,9 +173,9 @@ export const examples = [
     template: "range-resolution",
     params: { current: 2e-3, fullScaleVoltage: 3.3, adcBits: 12, adcReference: 3.3 },
     checks: [
-      { quantity: "bestRange", expected: "uA", source: "DOMAIN §3 3b [FORMULA]" }, // [FORMULA]
-      { quantity: "outputVoltage", expected: 2.0, source: "DOMAIN §3 3b [FORMULA]" }, // [FORMULA]
-      { quantity: "currentResolution", expected: 0.8057e-6, source: "DOMAIN §4 4b [FORMULA]" }, // [FORMULA]
+      { quantity: "bestRange", expected: "uA", source: "PHYSICS.md §3 3b [FORMULA]" }, // [FORMULA]
+      { quantity: "outputVoltage", expected: 2.0, source: "PHYSICS.md §3 3b [FORMULA]" }, // [FORMULA]
+      { quantity: "currentResolution", expected: 0.8057e-6, source: "PHYSICS.md §4 4b [FORMULA]" }, // [FORMULA]
     ],
   },
   {
@@ -184,9 +184,9 @@ export const examples = [
     template: "range-resolution",
     params: { current: 3.3e-6, fullScaleVoltage: 3.3, adcBits: 12, adcReference: 3.3 },
     checks: [
-      { quantity: "bestRange", expected: "uA", source: "DOMAIN §3 3c [FORMULA]" }, // [FORMULA]
-      { quantity: "outputVoltage", expected: 3.3e-3, source: "DOMAIN §3 3c [FORMULA]" }, // [FORMULA]
-      { quantity: "adcCode", expected: 4, source: "DOMAIN §3 3c (≈4 codes) [FORMULA]" }, // [FORMULA]
+      { quantity: "bestRange", expected: "uA", source: "PHYSICS.md §3 3c [FORMULA]" }, // [FORMULA]
+      { quantity: "outputVoltage", expected: 3.3e-3, source: "PHYSICS.md §3 3c [FORMULA]" }, // [FORMULA]
+      { quantity: "adcCode", expected: 4, source: "PHYSICS.md §3 3c (≈4 codes) [FORMULA]" }, // [FORMULA]
     ],
   },
   {
@@ -195,10 +195,10 @@ export const examples = [
     template: "range-resolution",
     params: { current: 3.4e-3, fullScaleVoltage: 3.3, adcBits: 12, adcReference: 3.3 },
     checks: [
-      { quantity: "bestRange", expected: "mA", source: "DOMAIN §3 3f [FORMULA]" }, // [FORMULA]
-      { quantity: "outputVoltage", expected: 3.4e-3, source: "DOMAIN §3 3f [FORMULA]" }, // [FORMULA]
-      { quantity: "adcCode", expected: 4, source: "DOMAIN §3 3f [FORMULA]" }, // [FORMULA]
-      { quantity: "currentResolution", expected: 0.8057e-3, source: "DOMAIN §4 4b [FORMULA]" }, // [FORMULA]
+      { quantity: "bestRange", expected: "mA", source: "PHYSICS.md §3 3f [FORMULA]" }, // [FORMULA]
+      { quantity: "outputVoltage", expected: 3.4e-3, source: "PHYSICS.md §3 3f [FORMULA]" }, // [FORMULA]
+      { quantity: "adcCode", expected: 4, source: "PHYSICS.md §3 3f [FORMULA]" }, // [FORMULA]
+      { quantity: "currentResolution", expected: 0.8057e-3, source: "PHYSICS.md §4 4b [FORMULA]" }, // [FORMULA]
     ],
   },
 
@@ -209,9 +209,9 @@ export const examples = [
     template: "bidirectional-offset",
     params: { offsetVoltage: 1.65, sensitivity: 1e6, outputVoltage: 3000 * LSB12, fullScaleVoltage: 3.3 },
     checks: [
-      { quantity: "signedCurrent", expected: 767.0e-9, source: "DOMAIN §5 5a [FORMULA]" }, // [FORMULA]
-      { quantity: "maxPositiveCurrent", expected: 1.65e-6, source: "DOMAIN §5 (±1.65 µA) [FORMULA]" }, // [FORMULA]
-      { quantity: "maxNegativeCurrent", expected: -1.65e-6, source: "DOMAIN §5 (±1.65 µA) [FORMULA]" }, // [FORMULA]
+      { quantity: "signedCurrent", expected: 767.0e-9, source: "PHYSICS.md §5 5a [FORMULA]" }, // [FORMULA]
+      { quantity: "maxPositiveCurrent", expected: 1.65e-6, source: "PHYSICS.md §5 (±1.65 µA) [FORMULA]" }, // [FORMULA]
+      { quantity: "maxNegativeCurrent", expected: -1.65e-6, source: "PHYSICS.md §5 (±1.65 µA) [FORMULA]" }, // [FORMULA]
     ],
   },
   {
@@ -219,14 +219,14 @@ export const examples = [
     kind: "template",
     template: "bidirectional-offset",
     params: { offsetVoltage: 1.65, sensitivity: 1e6, outputVoltage: 1000 * LSB12, fullScaleVoltage: 3.3 },
-    checks: [{ quantity: "signedCurrent", expected: -844.3e-9, source: "DOMAIN §5 5b [FORMULA]" }], // [FORMULA]
+    checks: [{ quantity: "signedCurrent", expected: -844.3e-9, source: "PHYSICS.md §5 5b [FORMULA]" }], // [FORMULA]
   },
   {
     id: "bidir-mid",
     kind: "template",
     template: "bidirectional-offset",
     params: { offsetVoltage: 1.65, sensitivity: 1e6, outputVoltage: 2048 * LSB12, fullScaleVoltage: 3.3 },
-    checks: [{ quantity: "signedCurrent", expected: 0, source: "DOMAIN §5 5c [FORMULA]" }], // [FORMULA]
+    checks: [{ quantity: "signedCurrent", expected: 0, source: "PHYSICS.md §5 5c [FORMULA]" }], // [FORMULA]
   },
 
   // ---- Lessons 7 and 10: filtering, settling, noise ----
@@ -236,12 +236,12 @@ export const examples = [
     template: "filter-noise",
     params: { filterResistance: 10e3, filterCapacitance: 100e-9, shuntResistance: 10e3, temperature: 300 },
     checks: [
-      { quantity: "timeConstant", expected: 1.0e-3, source: "DOMAIN §6 6a [FORMULA]" }, // [FORMULA]
-      { quantity: "cutoffFrequency", expected: 159.2, source: "DOMAIN §6 6a [FORMULA]" }, // [FORMULA]
-      { quantity: "settlingTime1pct", expected: 4.605e-3, source: "DOMAIN §6 6a [FORMULA; MEM]" }, // [FORMULA; MEM]
-      { quantity: "noiseBandwidth", expected: 250.0, source: "DOMAIN §6 6a, 6f [PUB: Winder]" }, // [FORMULA; PUB]
-      { quantity: "thermalNoiseVoltage", expected: 203.5e-9, source: "DOMAIN §7 7e [FORMULA]" }, // [FORMULA]
-      { quantity: "thermalNoiseCurrent", expected: 20.35e-12, source: "DOMAIN §7 7e [FORMULA]" }, // [FORMULA]
+      { quantity: "timeConstant", expected: 1.0e-3, source: "PHYSICS.md §6 6a [FORMULA]" }, // [FORMULA]
+      { quantity: "cutoffFrequency", expected: 159.2, source: "PHYSICS.md §6 6a [FORMULA]" }, // [FORMULA]
+      { quantity: "settlingTime1pct", expected: 4.605e-3, source: "PHYSICS.md §6 6a [FORMULA; MEM]" }, // [FORMULA; MEM]
+      { quantity: "noiseBandwidth", expected: 250.0, source: "PHYSICS.md §6 6a, 6f [PUB: Winder]" }, // [FORMULA; PUB]
+      { quantity: "thermalNoiseVoltage", expected: 203.5e-9, source: "PHYSICS.md §7 7e [FORMULA]" }, // [FORMULA]
+      { quantity: "thermalNoiseCurrent", expected: 20.35e-12, source: "PHYSICS.md §7 7e [FORMULA]" }, // [FORMULA]
     ],
   },
   {
@@ -250,9 +250,9 @@ export const examples = [
     template: "filter-noise",
     params: { filterResistance: 1e3, filterCapacitance: 10e-6, shuntResistance: 10e3, temperature: 300 },
     checks: [
-      { quantity: "timeConstant", expected: 10.0e-3, source: "DOMAIN §6 6b [FORMULA]" }, // [FORMULA]
-      { quantity: "cutoffFrequency", expected: 15.92, source: "DOMAIN §6 6b [FORMULA]" }, // [FORMULA]
-      { quantity: "settlingTime1pct", expected: 46.05e-3, source: "DOMAIN §6 6b [FORMULA]" }, // [FORMULA]
+      { quantity: "timeConstant", expected: 10.0e-3, source: "PHYSICS.md §6 6b [FORMULA]" }, // [FORMULA]
+      { quantity: "cutoffFrequency", expected: 15.92, source: "PHYSICS.md §6 6b [FORMULA]" }, // [FORMULA]
+      { quantity: "settlingTime1pct", expected: 46.05e-3, source: "PHYSICS.md §6 6b [FORMULA]" }, // [FORMULA]
     ],
   },
 
@@ -263,9 +263,9 @@ export const examples = [
     template: "duty-cycle",
     params: { sleepCurrent: 2e-6, activeCurrent: 20e-3, activeTime: 10e-3, period: 1, batteryCapacity: 220 * mAh, usableFraction: 0.8 },
     checks: [
-      { quantity: "averageCurrent", expected: 202.0e-6, source: "DOMAIN §8 8a [FORMULA]" }, // [FORMULA]
-      { quantity: "chargePerWake", expected: 200.0e-6, source: "DOMAIN §8 8a [FORMULA]" }, // [FORMULA]
-      { quantity: "batteryLife", expected: 871.4 * 3600, source: "DOMAIN §8 8b (871.4 h) [FORMULA]" }, // [FORMULA]
+      { quantity: "averageCurrent", expected: 202.0e-6, source: "PHYSICS.md §8 8a [FORMULA]" }, // [FORMULA]
+      { quantity: "chargePerWake", expected: 200.0e-6, source: "PHYSICS.md §8 8a [FORMULA]" }, // [FORMULA]
+      { quantity: "batteryLife", expected: 871.4 * 3600, source: "PHYSICS.md §8 8b (871.4 h) [FORMULA]" }, // [FORMULA]
     ],
   },
   {
@@ -274,8 +274,8 @@ export const examples = [
     template: "duty-cycle",
     params: { sleepCurrent: 3e-6, activeCurrent: 25e-3, activeTime: 5e-3, period: 10, batteryCapacity: 220 * mAh, usableFraction: 0.8 },
     checks: [
-      { quantity: "averageCurrent", expected: 15.5e-6, source: "DOMAIN §8 8c [FORMULA]" }, // [FORMULA]
-      { quantity: "batteryLife", expected: 1.136e4 * 3600, source: "DOMAIN §8 8c (1.136e4 h) [FORMULA]" }, // [FORMULA]
+      { quantity: "averageCurrent", expected: 15.5e-6, source: "PHYSICS.md §8 8c [FORMULA]" }, // [FORMULA]
+      { quantity: "batteryLife", expected: 1.136e4 * 3600, source: "PHYSICS.md §8 8c (1.136e4 h) [FORMULA]" }, // [FORMULA]
     ],
   },
   {
@@ -285,8 +285,8 @@ export const examples = [
     // 10 mA for 1 % of the time: any period works; 1 s keeps it readable.
     params: { sleepCurrent: 20e-6, activeCurrent: 10e-3, activeTime: 0.01, period: 1, batteryCapacity: 1000 * mAh, usableFraction: 1 },
     checks: [
-      { quantity: "averageCurrent", expected: 0.1198e-3, source: "DOMAIN §8 8d [PUB: electronicsdesign.au battery-life page]" }, // [PUB]
-      { quantity: "batteryLife", expected: 8347 * 3600, source: "DOMAIN §8 8d [PUB]" }, // [PUB]
+      { quantity: "averageCurrent", expected: 0.1198e-3, source: "PHYSICS.md §8 8d [PUB: electronicsdesign.au battery-life page]" }, // [PUB]
+      { quantity: "batteryLife", expected: 8347 * 3600, source: "PHYSICS.md §8 8d [PUB]" }, // [PUB]
     ],
   },
 
@@ -305,10 +305,10 @@ export const examples = [
       coverageFactor: 2,
     },
     checks: [
-      { quantity: "current", expected: 100.0e-3, source: "DOMAIN §9 9b [FORMULA: GUM 4.3.7, 5.1.6, 6.2]" }, // [FORMULA]
-      { quantity: "relativeStandardUncertaintyPercent", expected: 0.7047, source: "DOMAIN §9 9b [FORMULA]" }, // [FORMULA]
-      { quantity: "combinedStandardUncertainty", expected: 0.7047e-3, source: "DOMAIN §9 9b [FORMULA]" }, // [FORMULA]
-      { quantity: "expandedUncertainty", expected: 1.409e-3, source: "DOMAIN §9 9b [FORMULA]" }, // [FORMULA]
+      { quantity: "current", expected: 100.0e-3, source: "PHYSICS.md §9 9b [FORMULA: GUM 4.3.7, 5.1.6, 6.2]" }, // [FORMULA]
+      { quantity: "relativeStandardUncertaintyPercent", expected: 0.7047, source: "PHYSICS.md §9 9b [FORMULA]" }, // [FORMULA]
+      { quantity: "combinedStandardUncertainty", expected: 0.7047e-3, source: "PHYSICS.md §9 9b [FORMULA]" }, // [FORMULA]
+      { quantity: "expandedUncertainty", expected: 1.409e-3, source: "PHYSICS.md §9 9b [FORMULA]" }, // [FORMULA]
     ],
   },
   {
@@ -325,9 +325,9 @@ export const examples = [
       coverageFactor: 2,
     },
     checks: [
-      { quantity: "current", expected: 500.0e-3, source: "DOMAIN §9 9d [FORMULA]" }, // [FORMULA]
-      { quantity: "relativeStandardUncertaintyPercent", expected: 0.7767, source: "DOMAIN §9 9d [FORMULA]" }, // [FORMULA]
-      { quantity: "expandedUncertainty", expected: 7.767e-3, source: "DOMAIN §9 9d [FORMULA]" }, // [FORMULA]
+      { quantity: "current", expected: 500.0e-3, source: "PHYSICS.md §9 9d [FORMULA]" }, // [FORMULA]
+      { quantity: "relativeStandardUncertaintyPercent", expected: 0.7767, source: "PHYSICS.md §9 9d [FORMULA]" }, // [FORMULA]
+      { quantity: "expandedUncertainty", expected: 7.767e-3, source: "PHYSICS.md §9 9d [FORMULA]" }, // [FORMULA]
     ],
   },
 
@@ -448,10 +448,10 @@ export const examples = [
     fn: "autorange",
     params: { upFraction: 0.9, downFraction: 0.8, fullScaleVoltage: 3.3, sensitivityLow: 1e6, sensitivityHigh: 1e3 },
     checks: [
-      { quantity: "upCurrent", expected: 2.97e-6, source: "DOMAIN §3 3d [CP; FORMULA]" }, // [CP; FORMULA]
-      { quantity: "downCurrent", expected: 2.64e-6, source: "DOMAIN §3 3d [CP; FORMULA]" }, // [CP; FORMULA]
-      { quantity: "downVoltageOnHigh", expected: 2.64e-3, source: "DOMAIN §3 (hdown·VFS/1000) [FORMULA]" }, // [FORMULA]
-      { quantity: "downLsbOnHigh", expected: 3.277, source: "DOMAIN §3 (2.64 µA = 3.277 LSB) [FORMULA]" }, // [FORMULA]
+      { quantity: "upCurrent", expected: 2.97e-6, source: "PHYSICS.md §3 3d [CP; FORMULA]" }, // [CP; FORMULA]
+      { quantity: "downCurrent", expected: 2.64e-6, source: "PHYSICS.md §3 3d [CP; FORMULA]" }, // [CP; FORMULA]
+      { quantity: "downVoltageOnHigh", expected: 2.64e-3, source: "PHYSICS.md §3 (hdown·VFS/1000) [FORMULA]" }, // [FORMULA]
+      { quantity: "downLsbOnHigh", expected: 3.277, source: "PHYSICS.md §3 (2.64 µA = 3.277 LSB) [FORMULA]" }, // [FORMULA]
     ],
   },
   {
@@ -460,9 +460,9 @@ export const examples = [
     fn: "pulsePeak",
     params: { pulseCurrent: 20e-3, pulseWidth: 1e-3, timeConstant: 1e-3 },
     checks: [
-      { quantity: "peak", expected: 12.64e-3, source: "DOMAIN §6 6e [FORMULA]" }, // [FORMULA]
-      { quantity: "peakPercent", expected: 63.21, source: "DOMAIN §6 6e [FORMULA]" }, // [FORMULA]
-      { quantity: "charge", expected: 20.0e-6, source: "DOMAIN §6 6e [FORMULA]" }, // [FORMULA]
+      { quantity: "peak", expected: 12.64e-3, source: "PHYSICS.md §6 6e [FORMULA]" }, // [FORMULA]
+      { quantity: "peakPercent", expected: 63.21, source: "PHYSICS.md §6 6e [FORMULA]" }, // [FORMULA]
+      { quantity: "charge", expected: 20.0e-6, source: "PHYSICS.md §6 6e [FORMULA]" }, // [FORMULA]
     ],
   },
   {
@@ -471,9 +471,9 @@ export const examples = [
     fn: "pulsePeak",
     params: { pulseCurrent: 20e-3, pulseWidth: 1e-3, timeConstant: 10e-3 },
     checks: [
-      { quantity: "peak", expected: 1.903e-3, source: "DOMAIN §6 6e [FORMULA]" }, // [FORMULA]
-      { quantity: "peakPercent", expected: 9.516, source: "DOMAIN §6 6e [FORMULA]" }, // [FORMULA]
-      { quantity: "charge", expected: 20.0e-6, source: "DOMAIN §6 6e [FORMULA]" }, // [FORMULA]
+      { quantity: "peak", expected: 1.903e-3, source: "PHYSICS.md §6 6e [FORMULA]" }, // [FORMULA]
+      { quantity: "peakPercent", expected: 9.516, source: "PHYSICS.md §6 6e [FORMULA]" }, // [FORMULA]
+      { quantity: "charge", expected: 20.0e-6, source: "PHYSICS.md §6 6e [FORMULA]" }, // [FORMULA]
     ],
   },
   {
@@ -481,21 +481,21 @@ export const examples = [
     kind: "teaching",
     fn: "shotNoise",
     params: { current: 1e-6, bandwidth: 1 },
-    checks: [{ quantity: "noiseCurrent", expected: 0.5661e-12, source: "DOMAIN §7 7f [FORMULA: exact q]" }], // [FORMULA]
+    checks: [{ quantity: "noiseCurrent", expected: 0.5661e-12, source: "PHYSICS.md §7 7f [FORMULA: exact q]" }], // [FORMULA]
   },
   {
     id: "shot-1nA",
     kind: "teaching",
     fn: "shotNoise",
     params: { current: 1e-9, bandwidth: 1 },
-    checks: [{ quantity: "noiseCurrent", expected: 17.9e-15, source: "DOMAIN §7 7f [FORMULA: exact q]" }], // [FORMULA]
+    checks: [{ quantity: "noiseCurrent", expected: 17.9e-15, source: "PHYSICS.md §7 7f [FORMULA: exact q]" }], // [FORMULA]
   },
   {
     id: "unweighted-mean",
     kind: "teaching",
     fn: "unweightedMean",
     params: { a: 20e-3, b: 2e-6 },
-    checks: [{ quantity: "mean", expected: 10.0e-3, source: "DOMAIN §12.5 (wrong method) [FORMULA]" }], // [FORMULA]
+    checks: [{ quantity: "mean", expected: 10.0e-3, source: "PHYSICS.md §12.5 (wrong method) [FORMULA]" }], // [FORMULA]
   },
 ] as const satisfies readonly Example[];
 

@@ -1,6 +1,6 @@
 import { z } from "zod";
 
-/** The ten lab templates of lib/grader (GRADER.md); a lesson lists the ones it prepares for. */
+/** The ten lab templates of lib/grader (lib/grader/README.md); a lesson lists the ones it prepares for. */
 export const templateKeys = [
   "shunt-burden",
   "shunt-selection",

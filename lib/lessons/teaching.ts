@@ -1,12 +1,12 @@
 // A few teaching calculations that lib/grader has no template for (auto-range thresholds, the peak of a
 // filtered pulse, shot noise, the wrong "unweighted" mean shown as a misconception). Kept tiny and
-// tested against DOMAIN.md; if the grader grows these, the lessons should call it instead.
+// tested against lib/grader/PHYSICS.md; if the grader grows these, the lessons should call it instead.
 
 /** Elementary charge, exact (SI 2019). */
 const q = 1.602176634e-19;
 
 export const teaching = {
-  /** Up/down thresholds between two ranges (DOMAIN §3): both referred to the more sensitive range. */
+  /** Up/down thresholds between two ranges (PHYSICS.md §3): both referred to the more sensitive range. */
   autorange(p: Record<string, number>) {
     const { upFraction, downFraction, fullScaleVoltage, sensitivityLow, sensitivityHigh } = p;
     const upCurrent = (upFraction * fullScaleVoltage) / sensitivityLow;
@@ -15,17 +15,17 @@ export const teaching = {
     const lsb = fullScaleVoltage / 4096;
     return { upCurrent, downCurrent, downVoltageOnHigh, downLsbOnHigh: downVoltageOnHigh / lsb };
   },
-  /** A rectangular pulse through a first-order low-pass (DOMAIN §6): the peak is under-read, the charge is kept. */
+  /** A rectangular pulse through a first-order low-pass (PHYSICS.md §6): the peak is under-read, the charge is kept. */
   pulsePeak(p: Record<string, number>) {
     const { pulseCurrent, pulseWidth, timeConstant } = p;
     const fraction = 1 - Math.exp(-pulseWidth / timeConstant);
     return { peak: pulseCurrent * fraction, peakPercent: 100 * fraction, charge: pulseCurrent * pulseWidth };
   },
-  /** Shot noise √(2qIB) (DOMAIN §7). */
+  /** Shot noise √(2qIB) (PHYSICS.md §7). */
   shotNoise(p: Record<string, number>) {
     return { noiseCurrent: Math.sqrt(2 * q * p.current * p.bandwidth) };
   },
-  /** The misconception of DOMAIN §12.5: averaging two levels without weighting by time. */
+  /** The misconception of PHYSICS.md §12.5: averaging two levels without weighting by time. */
   unweightedMean(p: Record<string, number>) {
     return { mean: (p.a + p.b) / 2 };
   },

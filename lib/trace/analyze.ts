@@ -10,7 +10,7 @@
 // Sleep and active: the threshold and its hysteresis band come from levels.ts. The active state starts at
 // a sample above the band and ends at a sample below it (a Schmitt trigger), so noise near the threshold
 // does not count as extra wakes. Charge per wake is ∫ i dt over each wake's
-// active run (DOMAIN.md §8: Q_wake = I_a·t_a), averaged over the runs that both start and end inside
+// active run (lib/grader/PHYSICS.md §8: Q_wake = I_a·t_a), averaged over the runs that both start and end inside
 // the trace.
 import { minMaxDecimate } from "./decimate";
 import { MIN_SEPARATION, splitLevels } from "./levels";

@@ -1,5 +1,5 @@
 // Test traces: a square wave that sleeps, then wakes at the end of each period. Samples fall on the edges,
-// so the closed forms of DOMAIN.md §8 hold exactly: Ī = D·I_a + (1 − D)·I_s, Q_wake = I_a·t_a.
+// so the closed forms of lib/grader/PHYSICS.md §8 hold exactly: Ī = D·I_a + (1 − D)·I_s, Q_wake = I_a·t_a.
 import { CURRENT_DIVISOR, TIME_DIVISOR } from "./units";
 import type { CurrentUnit, TimeUnit } from "./types";
 

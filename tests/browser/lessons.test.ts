@@ -29,17 +29,17 @@ describe("lessons in the browser", () => {
       expect(await page.getByRole("heading", { level: 1 }).textContent()).toBe("Duty-cycled loads and battery life");
       const calc = page.getByTestId("duty-cycle-calculator");
       const average = calc.getByTestId("average-current");
-      // Maren's node: 20 mA for 10 ms every 1 s, 2 µA asleep → 202.0 µA (DOMAIN §8 8a [FORMULA])
+      // Maren's node: 20 mA for 10 ms every 1 s, 2 µA asleep → 202.0 µA (PHYSICS.md §8 8a [FORMULA])
       expect(await average.textContent()).toBe("202.0\u00a0µA");
       const before = await plotPixels(page, "duty-plot");
 
-      // Wake every 10 s for 5 ms at 25 mA, 3 µA asleep → 15.50 µA (DOMAIN §8 8c [FORMULA])
+      // Wake every 10 s for 5 ms at 25 mA, 3 µA asleep → 15.50 µA (PHYSICS.md §8 8c [FORMULA])
       await calc.getByLabel("Active (wake) current").fill("25 mA");
       await calc.getByLabel("Active time per wake").fill("5 ms");
       await calc.getByLabel("Wake period").fill("10 s");
       await calc.getByLabel("Sleep current").fill("3 µA");
       await page.waitForFunction(() => document.querySelector('[data-testid="average-current"]')?.textContent === "15.50\u00a0µA");
-      expect(await calc.getByTestId("battery-life").textContent()).toMatch(/^1\.136 × 10⁴\u00a0h = 473\.2\u00a0d$/); // DOMAIN §8 8c [FORMULA]
+      expect(await calc.getByTestId("battery-life").textContent()).toMatch(/^1\.136 × 10⁴\u00a0h = 473\.2\u00a0d$/); // PHYSICS.md §8 8c [FORMULA]
       await page.waitForFunction(
         (prev) => (document.querySelector('[data-testid="duty-plot"] canvas') as HTMLCanvasElement | null)?.toDataURL() !== prev,
         before,
@@ -60,11 +60,11 @@ describe("lessons in the browser", () => {
       await signIn(page, demo.student);
       await page.goto("/lessons/filtering-and-settling");
       const calc = page.getByTestId("rc-step");
-      expect(await calc.getByTestId("time-constant").textContent()).toBe("1.000\u00a0ms"); // 10 kΩ × 100 nF (DOMAIN §6 6a)
+      expect(await calc.getByTestId("time-constant").textContent()).toBe("1.000\u00a0ms"); // 10 kΩ × 100 nF (PHYSICS.md §6 6a)
       const before = await plotPixels(page, "rc-plot");
       await calc.getByLabel("Filter resistance R").fill("1k");
       await calc.getByLabel("Filter capacitance C").fill("10 uF");
-      await page.waitForFunction(() => document.querySelector('[data-testid="time-constant"]')?.textContent === "10.00\u00a0ms"); // DOMAIN §6 6b
+      await page.waitForFunction(() => document.querySelector('[data-testid="time-constant"]')?.textContent === "10.00\u00a0ms"); // PHYSICS.md §6 6b
       await page.waitForFunction(
         (prev) => (document.querySelector('[data-testid="rc-plot"] canvas') as HTMLCanvasElement | null)?.toDataURL() !== prev,
         before,
@@ -80,7 +80,7 @@ describe("lessons in the browser", () => {
       await signIn(page, demo.student);
       await page.goto("/lessons/burden-voltage");
       const q = page.locator('[data-question="burden-low-rail"]');
-      await q.getByLabel(/Your answer/).fill("16.36 mA"); // DOMAIN §2 2c [FORMULA]
+      await q.getByLabel(/Your answer/).fill("16.36 mA"); // PHYSICS.md §2 2c [FORMULA]
       await q.getByRole("button", { name: "Check" }).click();
       await q.getByText("Correct.").waitFor({ timeout: 15_000 });
       await q.getByRole("button", { name: "Show the worked solution" }).click();

@@ -1,6 +1,6 @@
 // Labs over HTTP against the test server and its real PostgreSQL and local object storage.
 // Expected values are computed here from the handout's circuit values with the textbook formulas
-// (DOMAIN.md §2: I = Vs/(RL + Rsh), V_B = I·Rsh), independently of lib/grader.
+// (lib/grader/PHYSICS.md §2: I = Vs/(RL + Rsh), V_B = I·Rsh), independently of lib/grader.
 import { beforeAll, describe, expect, it } from "vitest";
 import { Client } from "../support/http";
 import { clientFor, courseWithPeople } from "./fixtures";
@@ -458,7 +458,7 @@ describe("uploads", () => {
     expect(up.status).toBe(201);
     expect(up.body.upload.kind).toBe("trace");
     expect(up.body.upload.analysis.badRows).toBe(4);
-    // DOMAIN.md §8a [FORMULA]: Ī = D·I_a + (1 − D)·I_s = 0.01·20 mA + 0.99·2 µA = 202.0 µA
+    // lib/grader/PHYSICS.md §8a [FORMULA]: Ī = D·I_a + (1 − D)·I_s = 0.01·20 mA + 0.99·2 µA = 202.0 µA
     expect(up.body.upload.analysis.averageCurrent).toBeCloseTo(202e-6, 7);
     const r = await as.student.post(`/api/labs/${labId}/attempts`, { idempotencyKey: key(), readings: { q1: "202 uA" }, uploadIds: [up.body.upload.id] });
     expect(r.status).toBe(201);

@@ -2,7 +2,7 @@
 // one row and survives a lab edit's recomputation (which writes its own row), and two overrides of one
 // attempt at the same time are both kept, in order.
 //
-// The circuit is fixed: 5 V, 470 Ω load, 10 Ω shunt. Ohm's law (DOMAIN.md §2, I = Vs/(RL + Rsh)) gives the
+// The circuit is fixed: 5 V, 470 Ω load, 10 Ω shunt. Ohm's law (lib/grader/PHYSICS.md §2, I = Vs/(RL + Rsh)) gives the
 // indicated current 5/480 A = 10.4167 mA and the burden V = I·Rsh = 0.10417 V, computed here by hand.
 import { sql } from "kysely";
 import { beforeEach, describe, expect, it } from "vitest";

@@ -51,14 +51,6 @@ export interface LabBuilderProps {
 type Intent = "draft" | "preview" | "publish";
 type Saved = { lab: { id: string }; regrade?: { id: string; total: number } | null };
 
-/**
- * Sent with every PATCH: the API's patch schema fills in defaults for absent instructions, safety notes
- * and policy, which would otherwise erase them (see the report); sending the current values keeps them.
- */
-function alwaysSent(input: LabInput): Pick<LabInput, "instructions" | "safetyNotes" | "policy"> {
-  return { instructions: input.instructions, safetyNotes: input.safetyNotes, policy: input.policy };
-}
-
 function withoutDates(input: StoredLabInput): StoredLabInput {
   return { ...input, opensAt: null, dueAt: null };
 }
@@ -147,7 +139,7 @@ export function LabBuilder({ courseId, lab, notice, latePolicy }: LabBuilderProp
         if (!created.ok) return;
         const id = created.data.lab.id;
         if (how === "publish") {
-          const published = await send<Saved>(`/api/labs/${id}`, "PATCH", { ...alwaysSent(input), status: "published" });
+          const published = await send<Saved>(`/api/labs/${id}`, "PATCH", { status: "published" });
           if (!published.ok) {
             router.push(`/labs/${id}/edit?notice=draft-saved`);
             return;
@@ -161,7 +153,8 @@ export function LabBuilder({ courseId, lab, notice, latePolicy }: LabBuilderProp
       const before = baseline.current ?? formToInput(inputToForm(lab.input), kept).input;
       const changed: Record<string, unknown> = { ...changedFields(before, input) };
       if (how === "publish" && status === "draft") changed.status = "published";
-      const patch = Object.keys(changed).length > 0 ? { ...alwaysSent(input), ...changed } : changed;
+      // The PATCH schema has no defaults: a field left out stays as it is, so only what changed is sent.
+      const patch = changed;
       if (Object.keys(patch).length > 0) {
         const saved = await send<Saved>(`/api/labs/${lab.id}`, "PATCH", patch);
         if (!saved.ok) return;

@@ -109,8 +109,8 @@ describe("sampling-burst", () => {
 });
 
 describe("uncertainty: the whole chain", () => {
-  it("labs made before the chain keep every value (DOMAIN §9 9d: 0.7767 %, 7.767 mA)", () => {
-    // [FORMULA] DOMAIN §9 9d, as in reference.test.ts
+  it("labs made before the chain keep every value (PHYSICS.md §9 9d: 0.7767 %, 7.767 mA)", () => {
+    // [FORMULA] PHYSICS.md §9 9d, as in reference.test.ts
     const v = unc(oldLab);
     near(v.relativeStandardUncertaintyPercent, 0.7767);
     near(v.expandedUncertainty, 7.767e-3);
@@ -119,7 +119,7 @@ describe("uncertainty: the whole chain", () => {
     for (const k of ["current", "relativeStandardUncertaintyPercent", "combinedStandardUncertainty", "expandedUncertainty"]) expect(zero[k]).toBe(v[k]);
   });
   it("quantisation: a 12-bit, 3.3 V step of 805.7 µV has a standard uncertainty of 232.6 µV (LSB/√12)", () => {
-    // [PUB] DOMAIN §4 4a: quantisation-noise formula page, worked 12-bit/3.3 V example (0.806 mV, 0.233 mV)
+    // [PUB] PHYSICS.md §4 4a: quantisation-noise formula page, worked 12-bit/3.3 V example (0.806 mV, 0.233 mV)
     const v = unc({ reading: 1, readingAccuracyPercent: 0, readingCounts: 0, countSize: 1e-3, shuntResistance: 1, shuntTolerancePercent: 0, coverageFactor: 2, adcBits: 12, adcReference: 3.3, amplifierGain: 1 });
     near(v.quantisationContribution, 232.6e-6);
     expect(v.dominantContribution).toBe("quantisation");

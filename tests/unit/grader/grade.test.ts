@@ -186,7 +186,7 @@ describe("worked solutions", () => {
 });
 
 describe("public contract", () => {
-  it("has the ten templates with the quantity names of GRADER.md and lib/grader/README.md", () => {
+  it("has the ten templates with the quantity names of lib/grader/README.md", () => {
     const names: Record<string, string[]> = {
       "shunt-burden": ["trueCurrent", "indicatedCurrent", "burdenVoltage", "loadingErrorPercent"],
       "shunt-selection": ["idealShunt", "standardShunt", "burdenAtFullScale", "shuntPower"],
@@ -261,7 +261,7 @@ describe("public contract", () => {
       }
       expect(templates[key].check(defaultParams(key))).toBeNull();
     }
-    // defaults from GRADER.md
+    // defaults from lib/grader/README.md
     expect(defaultParams("range-resolution")).toMatchObject({ fullScaleVoltage: 3.3, adcBits: 12, adcReference: 3.3 });
     expect(defaultParams("duty-cycle")).toMatchObject({ usableFraction: 0.8 });
     expect(defaultParams("bidirectional-offset")).toMatchObject({ offsetVoltage: 1.65, fullScaleVoltage: 3.3 });
@@ -296,7 +296,7 @@ describe("public contract", () => {
 
 describe("saturation", () => {
   it("a saturated ADC code is flagged in the feedback", () => {
-    // 5 µA on the nA range clips at code 4095 (DOMAIN §12.3); the best range is µA
+    // 5 µA on the nA range clips at code 4095 (PHYSICS.md §12.3); the best range is µA
     const r = gradeAttempt({
       template: "range-resolution",
       params: { current: 5e-6, fullScaleVoltage: 3.3, adcBits: 12, adcReference: 3.3 },

@@ -1,6 +1,6 @@
 import { expect } from "vitest";
 
-/** Relative agreement to about 4 significant figures (DOMAIN.md §0: relative tolerance ≈ 5e-4). */
+/** Relative agreement to about 4 significant figures (lib/grader/PHYSICS.md §0: relative tolerance ≈ 5e-4). */
 export function near(actual: unknown, expected: number, rel = 5e-4): void {
   expect(typeof actual).toBe("number");
   const a = actual as number;

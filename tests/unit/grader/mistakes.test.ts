@@ -26,10 +26,10 @@ const sbp = { sampleRate: 1000, burstWidth: 5e-3, requiredSamples: 20, wakePerio
 const chain = { ...unc, reading: 50e-3, countSize: 0.1e-3, shuntResistance: 0.1, adcBits: 12, amplifierGain: 50, adcReference: 3.3 };
 
 const cases: Case[] = [
-  // 3.267 mA read as 3.267 A (DOMAIN §12.2: exactly 10^±3 off)
+  // 3.267 mA read as 3.267 A (PHYSICS.md §12.2: exactly 10^±3 off)
   { key: "prefix-slip", template: "shunt-burden", params: { supplyVoltage: 3.3, loadResistance: 1000, shuntResistance: 10 }, quantity: "indicatedCurrent", wrong: "3.267 A", right: "3.267 mA" },
   { key: "prefix-slip", template: "filter-noise", params: fn, quantity: "thermalNoiseVoltage", wrong: "203.5 uV", right: "203.5 nV" },
-  // 1.8 V / 100 Ω = 18 mA instead of 16.36 mA (DOMAIN §12.1)
+  // 1.8 V / 100 Ω = 18 mA instead of 16.36 mA (PHYSICS.md §12.1)
   { key: "ignored-burden", template: "shunt-burden", params: sb, quantity: "indicatedCurrent", wrong: "18 mA", right: "16.36 mA" },
   { key: "ignored-burden", template: "shunt-burden", params: sb, quantity: "trueCurrent", wrong: "16.36 mA", right: "18.00 mA" },
   { key: "sign-flip", template: "shunt-burden", params: sb, quantity: "loadingErrorPercent", wrong: "9.091 %", right: "-9.091 %" },
@@ -44,7 +44,7 @@ const cases: Case[] = [
   { key: "wrong-range", template: "range-resolution", params: rr, quantity: "adcCode", wrong: 2, right: Math.floor((2 * 4096) / 3.3) },
   // 5a: 2417 nA instead of 767.0 nA
   { key: "forgot-offset", template: "bidirectional-offset", params: bid, quantity: "signedCurrent", wrong: "2417 nA", right: "767.0 nA" },
-  // 8a: 10.00 mA instead of 202.0 µA; life 17.6 h instead of 871.4 h (DOMAIN §12.5)
+  // 8a: 10.00 mA instead of 202.0 µA; life 17.6 h instead of 871.4 h (PHYSICS.md §12.5)
   { key: "unweighted-average", template: "duty-cycle", params: duty, quantity: "averageCurrent", wrong: "10.00 mA", right: "202.0 uA" },
   { key: "unweighted-average", template: "duty-cycle", params: duty, quantity: "batteryLife", wrong: "17.6 h", right: "871.4 h" },
   { key: "capacity-units", template: "duty-cycle", params: duty, quantity: "batteryLife", wrong: `${871.4 / 3.6} h`, right: "871.4 h" },
@@ -84,7 +84,7 @@ function grade(c: Case, answer: string | number) {
 }
 
 describe("recognised mistakes", () => {
-  it("every key in GRADER.md has a case", () => {
+  it("every key in lib/grader/README.md has a case", () => {
     expect(new Set(cases.map((c) => c.key))).toEqual(new Set(MISTAKE_KEYS));
     expect(MISTAKE_KEYS.length).toBe(19);
   });

@@ -1,4 +1,4 @@
-// Check values from DOMAIN.md, each with its source as DOMAIN.md tags it. Expected values are typed in from
+// Check values from lib/grader/PHYSICS.md, each with its source as lib/grader/PHYSICS.md tags it. Expected values are typed in from
 // the document, not taken from the code.
 import { describe, expect, it } from "vitest";
 import { nearestStandard, templates, uncertaintyBudget, rangeTable, BOLTZMANN, ELEMENTARY_CHARGE } from "../../../lib/grader";

@@ -5,7 +5,7 @@ import { checkLessonAnswer as checkAnswer } from "@/lib/lessons/check";
 
 describe("checkAnswer", () => {
   it("accepts the right answer with its unit and returns a typeset solution", async () => {
-    const r = await checkAnswer("burden-low-rail", "16.36 mA"); // DOMAIN §2 2c [FORMULA]
+    const r = await checkAnswer("burden-low-rail", "16.36 mA"); // PHYSICS.md §2 2c [FORMULA]
     expect(r.ok).toBe(true);
     if (!r.ok) return;
     expect(r.verdict).toBe("correct");
@@ -13,7 +13,7 @@ describe("checkAnswer", () => {
     expect(r.solutionHtml.join("")).toContain('class="katex');
   });
   it("names the ignored-burden slip", async () => {
-    const r = await checkAnswer("burden-low-rail", "18 mA"); // DOMAIN §12.1: Vs/RL, the meter ignored
+    const r = await checkAnswer("burden-low-rail", "18 mA"); // PHYSICS.md §12.1: Vs/RL, the meter ignored
     expect(r.ok && r.verdict).toBe("mistake");
   });
   it("refuses a wrong dimension", async () => {

@@ -1,5 +1,5 @@
 // Every number the lessons state comes from lib/lessons/examples.ts through the grader. Here each is
-// recomputed through lib/grader and compared with the DOMAIN.md check value (relative 5e-4); the source
+// recomputed through lib/grader and compared with the lib/grader/PHYSICS.md check value (relative 5e-4); the source
 // tag of each value is beside it in examples.ts and repeated in the test name.
 import { describe, expect, it } from "vitest";
 import { gradeAttempt, isTemplateKey, templates } from "@/lib/grader";
@@ -32,7 +32,7 @@ describe("lesson examples agree with lib/grader", () => {
 });
 
 describe("teaching helpers the grader has no template for", () => {
-  it("shot noise of 1 mA over 1 kHz is 566.1 pA rms (DOMAIN §7 7f [FORMULA: exact q])", () => {
+  it("shot noise of 1 mA over 1 kHz is 566.1 pA rms (PHYSICS.md §7 7f [FORMULA: exact q])", () => {
     expect(teaching.shotNoise({ current: 1e-3, bandwidth: 1e3 }).noiseCurrent / 566.1e-12 - 1).toBeLessThan(5e-4);
   });
 });
@@ -48,23 +48,23 @@ describe("check-yourself questions", () => {
     });
   }
 
-  // Answers typed as a student would, from the DOMAIN.md check values.
+  // Answers typed as a student would, from the lib/grader/PHYSICS.md check values.
   const domainAnswers: [string, string, string][] = [
-    ["safety-shunt-power", "326.7 mW", "DOMAIN §1 1h [FORMULA]"],
-    ["burden-low-rail", "16.36 mA", "DOMAIN §2 2c [FORMULA]"],
-    ["burden-motor-drop", "551 mV", "DOMAIN §2 2d [FORMULA]"],
-    ["shunt-micro-e96", "3.01 kΩ", "DOMAIN §1 1i [FORMULA]"],
-    ["range-radio-volts", "0.75 V", "DOMAIN §12.2 (0.750 V ↔ 750 µA) [FORMULA]"],
-    ["autorange-edge-code", "4", "DOMAIN §3 3c [FORMULA]"],
-    ["resolution-code", "620", "DOMAIN §4 4e [FORMULA]"],
-    ["resolution-step", "0.8057 mA", "DOMAIN §4 4b [FORMULA]"],
-    ["filter-cutoff", "159.2 Hz", "DOMAIN §6 6a [FORMULA]"],
-    ["filter-settle", "46.05 ms", "DOMAIN §6 6b [FORMULA]"],
-    ["bidir-discharge", "-1.000 mA", "DOMAIN §5 5d [FORMULA]"],
-    ["bidir-code-1000", "-844.3 nA", "DOMAIN §5 5b [FORMULA]"],
-    ["duty-average", "15.50 uA", "DOMAIN §8 8c [FORMULA]"],
-    ["duty-life", "871.4 h", "DOMAIN §8 8b [FORMULA]"],
-    ["unc-amp-expanded", "7.767 mA", "DOMAIN §9 9d [FORMULA]"],
+    ["safety-shunt-power", "326.7 mW", "PHYSICS.md §1 1h [FORMULA]"],
+    ["burden-low-rail", "16.36 mA", "PHYSICS.md §2 2c [FORMULA]"],
+    ["burden-motor-drop", "551 mV", "PHYSICS.md §2 2d [FORMULA]"],
+    ["shunt-micro-e96", "3.01 kΩ", "PHYSICS.md §1 1i [FORMULA]"],
+    ["range-radio-volts", "0.75 V", "PHYSICS.md §12.2 (0.750 V ↔ 750 µA) [FORMULA]"],
+    ["autorange-edge-code", "4", "PHYSICS.md §3 3c [FORMULA]"],
+    ["resolution-code", "620", "PHYSICS.md §4 4e [FORMULA]"],
+    ["resolution-step", "0.8057 mA", "PHYSICS.md §4 4b [FORMULA]"],
+    ["filter-cutoff", "159.2 Hz", "PHYSICS.md §6 6a [FORMULA]"],
+    ["filter-settle", "46.05 ms", "PHYSICS.md §6 6b [FORMULA]"],
+    ["bidir-discharge", "-1.000 mA", "PHYSICS.md §5 5d [FORMULA]"],
+    ["bidir-code-1000", "-844.3 nA", "PHYSICS.md §5 5b [FORMULA]"],
+    ["duty-average", "15.50 uA", "PHYSICS.md §8 8c [FORMULA]"],
+    ["duty-life", "871.4 h", "PHYSICS.md §8 8b [FORMULA]"],
+    ["unc-amp-expanded", "7.767 mA", "PHYSICS.md §9 9d [FORMULA]"],
     // by hand: 3.3 V/(4096 × 100) = 8.057 µV, /√12 = 2.326 µV, /0.1 Ω (GUM F.2.2.1)
     ["unc-chain-quantisation", "23.26 uA", "by hand, q/√12 [FORMULA]"],
     // by hand: (3 mV/50 GΩ + 10 pA)/2 nA (Ohm's law)

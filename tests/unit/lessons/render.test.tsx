@@ -45,8 +45,8 @@ describe("lessons render", () => {
 
   it("states Maren's average current from the grader in the duty-cycle lesson", async () => {
     const { html } = await render("duty-cycled-loads.mdx");
-    expect(html).toContain("202.0\u00a0µA"); // DOMAIN §8 8a [FORMULA]
-    expect(html).toMatch(/data-testid="battery-life">871\.4\u00a0h = 36\.31\u00a0d/); // DOMAIN §8 8b [FORMULA]
+    expect(html).toContain("202.0\u00a0µA"); // PHYSICS.md §8 8a [FORMULA]
+    expect(html).toMatch(/data-testid="battery-life">871\.4\u00a0h = 36\.31\u00a0d/); // PHYSICS.md §8 8b [FORMULA]
   });
 });
 

@@ -1,6 +1,6 @@
 import { expect } from "vitest";
 
-/** |actual − expected| ≤ rel·|expected| (DOMAIN.md §0: 5×10⁻⁴ for 4-significant-figure checks). */
+/** |actual − expected| ≤ rel·|expected| (lib/grader/PHYSICS.md §0: 5×10⁻⁴ for 4-significant-figure checks). */
 export function expectClose(actual: number | null | undefined, expected: number, rel = 5e-4): void {
   expect(actual).not.toBeNull();
   expect(actual).not.toBeUndefined();
@@ -13,7 +13,7 @@ export const MAH = 3.6; // coulombs per mAh
 export const HOUR = 3600;
 export const DAY = 86400;
 
-/** Closed forms of DOMAIN.md §8 for a square wave, written out here rather than taken from lib/trace. */
+/** Closed forms of lib/grader/PHYSICS.md §8 for a square wave, written out here rather than taken from lib/trace. */
 export function closedForm(p: { sleepCurrent: number; activeCurrent: number; activeTime: number; period: number; cycles: number }) {
   const D = p.activeTime / p.period;
   const average = D * p.activeCurrent + (1 - D) * p.sleepCurrent;

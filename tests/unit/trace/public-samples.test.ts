@@ -1,6 +1,6 @@
 // The sample traces in public/samples that the upload help and the duty-cycle lesson offer for download:
 // the analysis gives the time-weighted average of the closed form Ī = D·I_active + (1 − D)·I_sleep
-// (DOMAIN.md §8; any electronics text on duty-cycled loads), worked out by hand below.
+// (lib/grader/PHYSICS.md §8; any electronics text on duty-cycled loads), worked out by hand below.
 import fs from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";

@@ -1,5 +1,5 @@
 // The analysis against square waves whose numbers are known in closed form, and against the duty-cycle
-// check values of DOMAIN.md §8 (and the RC-filter values of §6e).
+// check values of lib/grader/PHYSICS.md §8 (and the RC-filter values of §6e).
 import { describe, expect, it } from "vitest";
 import { analyzeTrace, squareWaveCsv, type SquareWaveSpec } from "../../../lib/trace";
 import { closedForm, DAY, expectClose, HOUR, MAH } from "./helpers";
@@ -50,7 +50,7 @@ describe("square wave in closed form", () => {
   });
 
   it("the plain mean of the samples is not the average when sampling is uneven", async () => {
-    // A logger that writes a line only when the current changes (DOMAIN.md §8a's wrong unweighted mean).
+    // A logger that writes a line only when the current changes (lib/grader/PHYSICS.md §8a's wrong unweighted mean).
     const lines = ["time,current"];
     const N = 1000;
     for (let c = 0; c < N; c++) lines.push(`${c},0.000002`, `${c + 0.99},0.02`);
@@ -66,7 +66,7 @@ describe("square wave in closed form", () => {
   });
 });
 
-describe("DOMAIN.md §8 check values from generated traces", () => {
+describe("lib/grader/PHYSICS.md §8 check values from generated traces", () => {
   it("8a: 20 mA for 10 ms every 1 s, sleep 2 µA", async () => {
     const spec = { sleepCurrent: 2e-6, activeCurrent: 20e-3, activeTime: 0.01, period: 1, cycles: 20, sampleInterval: 0.001 };
     const r = await analyse(spec);
@@ -138,7 +138,7 @@ describe("DOMAIN.md §8 check values from generated traces", () => {
   });
 });
 
-describe("DOMAIN.md §6: an RC filter keeps the charge and lowers the peak", () => {
+describe("lib/grader/PHYSICS.md §6: an RC filter keeps the charge and lowers the peak", () => {
   // 20 mA, 1 ms pulses every 20τ, sleep 0, through a first-order low-pass sampled every 10 µs. The filter is
   // stepped exactly for an input held over each sample interval: y ← x + (y − x)·e^(−dt/τ).
   function filteredCsv(tau: number): string {
