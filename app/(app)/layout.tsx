@@ -4,6 +4,7 @@ import { SignOutButton } from "@/components/shell/sign-out-button";
 import { Wordmark } from "@/components/shell/wordmark";
 import { QueryProvider } from "@/components/providers/query-provider";
 import { currentUser } from "@/lib/auth/access";
+import { mailboxAvailable } from "@/lib/mail/mailbox";
 
 // The signed-in app stays out of search engines (public/robots.txt says the same to crawlers).
 export const metadata: Metadata = { robots: { index: false, follow: false } };
@@ -19,6 +20,9 @@ export default async function AppLayout({ children }: { children: React.ReactNod
           </Link>
           {user ? (
             <div className="flex items-center gap-3 text-sm">
+              {user.isAdmin ? <Link href="/admin/outbox">Outbox</Link> : null}
+              {user.isAdmin && mailboxAvailable() ? <Link href="/dev/mailbox">Mailbox</Link> : null}
+              <Link href="/settings">Settings</Link>
               <span className="text-ink-soft">{user.name}</span>
               <SignOutButton />
             </div>

@@ -1,0 +1,72 @@
+import type { Metadata } from "next";
+import { db } from "@/db";
+import { ResendButton } from "@/components/mail/resend-button";
+import { Refusal } from "@/components/shell/refusal";
+import { forPage, refused, requireAdmin } from "@/lib/auth/access";
+import { outboxSummary } from "@/lib/mail/outbox";
+
+export const metadata: Metadata = { title: "Outbox" };
+export const dynamic = "force-dynamic";
+
+const when = (d: Date | null) => (d ? new Date(d).toISOString().slice(0, 16).replace("T", " ") + " UTC" : "—");
+
+export default async function OutboxPage() {
+  const user = await forPage(requireAdmin(), "/admin/outbox");
+  if (refused(user)) return <Refusal message={user.refused} backHref="/" />;
+  const { days, failures } = await outboxSummary(db);
+  return (
+    <>
+      <h1 className="text-3xl">Outbox</h1>
+      <p className="mt-1 text-sm text-ink-soft">
+        Every e-mail the site queued in the last 14 days, by the day it was queued (UTC). A message that still fails after its last retry
+        shows below with the mail server&apos;s answer.
+      </p>
+      <div className="card mt-6 overflow-x-auto p-0">
+        <table className="min-w-full text-sm">
+          <caption className="sr-only">Messages per day</caption>
+          <thead className="bg-paper-sunk text-left">
+            <tr>
+              <th scope="col" className="px-4 py-2">Day</th>
+              <th scope="col" className="px-4 py-2 text-right">Waiting</th>
+              <th scope="col" className="px-4 py-2 text-right">Sent</th>
+              <th scope="col" className="px-4 py-2 text-right">Failed</th>
+            </tr>
+          </thead>
+          <tbody>
+            {days.length === 0 ? (
+              <tr>
+                <td colSpan={4} className="px-4 py-3 text-ink-soft">
+                  Nothing queued in the last 14 days.
+                </td>
+              </tr>
+            ) : null}
+            {days.map((d) => (
+              <tr key={d.day} className="border-t border-ink/10">
+                <td className="px-4 py-2 font-mono text-xs">{d.day}</td>
+                <td className="px-4 py-2 text-right tabular-nums">{d.queued}</td>
+                <td className="px-4 py-2 text-right tabular-nums">{d.sent}</td>
+                <td className={`px-4 py-2 text-right tabular-nums ${d.failed ? "font-semibold text-verdict-wrong" : ""}`}>{d.failed}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+      <h2 className="mt-8 text-xl">Last failures</h2>
+      {failures.length === 0 ? <p className="mt-2 text-sm text-ink-soft">No message has failed.</p> : null}
+      <ul className="mt-3 space-y-3">
+        {failures.map((f) => (
+          <li key={f.id} className="card" data-testid="outbox-failure">
+            <p className="text-sm">
+              <span className="font-mono text-xs">{f.to}</span> · {f.kind.replace(/_/g, " ")} · queued {when(f.createdAt)}, gave up {when(f.failedAt)} after{" "}
+              {f.tries} tries
+            </p>
+            <p className="mt-1 font-mono text-xs text-verdict-wrong">{f.error ?? "no answer recorded"}</p>
+            <div className="mt-2">
+              <ResendButton mailId={f.id} />
+            </div>
+          </li>
+        ))}
+      </ul>
+    </>
+  );
+}

@@ -1,0 +1,9 @@
+import { db } from "@/db";
+import { json, route } from "@/lib/api";
+import { requireAdmin } from "@/lib/auth/access";
+import { outboxSummary } from "@/lib/mail/outbox";
+
+export const GET = route(async () => {
+  await requireAdmin();
+  return json(await outboxSummary(db));
+});
