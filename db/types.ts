@@ -17,6 +17,8 @@ export interface UsersTable {
   created_at: Generated<Date>;
   /** false: the student turned graded e-mails off (staff regrades are sent anyway) */
   grade_mail: Generated<boolean>;
+  /** sessions signed in before this time are void (set when a password is chosen through an e-mailed link) */
+  sessions_valid_after: Timestamp | null;
 }
 
 export interface CoursesTable {

@@ -8,7 +8,7 @@ async function main() {
   const url = await localDatabaseUrl(serviceConfig("dev"));
   const db = createDb(url, 2);
   try {
-    await seedDemo(db);
+    await seedDemo(db, { mailDatabaseUrl: url });
     console.log("demo course seeded");
   } finally {
     await db.destroy();

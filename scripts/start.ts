@@ -54,7 +54,7 @@ async function main() {
   try {
     const applied = await migrateToLatest(db);
     console.log(applied.length ? `Applied ${applied.length} migration(s).` : "Database schema is up to date.");
-    await seedDemo(db, { storage: seedStorageFromEnv(env) });
+    await seedDemo(db, { storage: seedStorageFromEnv(env), mailDatabaseUrl: dbUrl });
     console.log("Demo course is in place.");
   } finally {
     await db.destroy();

@@ -163,7 +163,7 @@ async function main(): Promise<Counts> {
     const db = createDb(url, 2);
     try {
       await migrateToLatest(db);
-      if (url === e2eUrl) await seedDemo(db, { storage: seedStorageFromEnv(env) });
+      if (url === e2eUrl) await seedDemo(db, { storage: seedStorageFromEnv(env), mailDatabaseUrl: url });
     } finally {
       await db.destroy();
     }

@@ -130,7 +130,7 @@ export async function deleteVariants(db: Db, labId: string) {
 }
 
 // Columns a copied lab starts afresh rather than copying.
-const FRESH = new Set(["id", "course_id", "status", "version", "created_by", "created_at", "updated_at", "published_at"]);
+const FRESH = new Set(["id", "course_id", "status", "version", "created_by", "created_at", "updated_at", "published_at", "grades_released_at"]);
 
 /**
  * Copies every lab of a course into another as drafts, moving each date column (opens, due, close…) by
@@ -155,4 +155,17 @@ export async function copyLabs(db: Db, fromCourseId: string, toCourseId: string,
 /** Every stored circuit of a lab. */
 export async function listVariants(db: Db, labId: string) {
   return db.selectFrom("lab_variants").select(["user_id as userId", "params"]).where("lab_id", "=", labId).execute();
+}
+
+/** Locks the lab's row for the rest of the transaction and reads whether its grades are held. */
+export async function lockLabHold(db: Transaction<Database>, labId: string) {
+  return db.selectFrom("labs").select(["id", "grades_held as gradesHeld", "counting"]).where("id", "=", labId).forUpdate().executeTakeFirst();
+}
+
+export async function setGradesHeld(db: Db, labId: string, held: boolean, releasedAt: Date | null) {
+  await db
+    .updateTable("labs")
+    .set(held ? { grades_held: true } : { grades_held: false, grades_released_at: releasedAt })
+    .where("id", "=", labId)
+    .execute();
 }

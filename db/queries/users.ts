@@ -1,5 +1,5 @@
 // Users. Password hashes are read only by `findCredentials`, which the sign-in check alone uses.
-import { type Kysely, sql } from "kysely";
+import { type Kysely, sql, type Transaction } from "kysely";
 import type { Database } from "../types";
 
 export interface PublicUser {
@@ -49,4 +49,28 @@ export async function insertUser(
     })
     .returning(["id", "email", "name", "is_admin as isAdmin"])
     .executeTakeFirstOrThrow();
+}
+
+/** Sessions signed in before this time are void; null when all are valid. */
+export async function sessionsValidAfter(db: Db, id: string): Promise<Date | null> {
+  const r = await db.selectFrom("users").select("sessions_valid_after as at").where("id", "=", id).executeTakeFirst();
+  return r?.at ?? null;
+}
+
+/** The graded-e-mail preference and other settings a user changes on their settings page. */
+export async function findPreferences(db: Db, id: string) {
+  return db.selectFrom("users").select(["grade_mail as gradeMail"]).where("id", "=", id).executeTakeFirst();
+}
+
+export async function setGradeMail(db: Db, id: string, gradeMail: boolean) {
+  await db.updateTable("users").set({ grade_mail: gradeMail }).where("id", "=", id).execute();
+}
+
+/** A new password; with `signOutOthers`, every session signed in before now becomes void. */
+export async function setPassword(db: Db | Transaction<Database>, id: string, passwordHash: string, opts: { signOutBefore?: Date } = {}) {
+  await db
+    .updateTable("users")
+    .set({ password_hash: passwordHash, ...(opts.signOutBefore ? { sessions_valid_after: opts.signOutBefore } : {}) })
+    .where("id", "=", id)
+    .execute();
 }

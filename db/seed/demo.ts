@@ -4,6 +4,7 @@ import type { Kysely } from "kysely";
 import { hash } from "@node-rs/argon2";
 import type { Database, Role } from "../types";
 import { seedLabs, type SeedStorage } from "./labs";
+import { seedMail } from "./mail";
 import { readLessonFiles } from "../../lib/lessons/files";
 
 export const DEMO_PASSWORD = "bench-demo-2026";
@@ -76,9 +77,13 @@ async function member(db: Kysely<Database>, courseId: string, userId: string, ro
     .execute();
 }
 
-export async function seedDemo(db: Kysely<Database>, opts: { storage?: SeedStorage } = {}): Promise<{ courseId: string }> {
+/**
+ * Seeds the demo. With `mailDatabaseUrl` (the same database, for the job queue) it also queues a few
+ * graded e-mails, which the app's worker delivers to the local mailbox.
+ */
+export async function seedDemo(db: Kysely<Database>, opts: { storage?: SeedStorage; mailDatabaseUrl?: string } = {}): Promise<{ courseId: string }> {
   const passwordHash = await hash(DEMO_PASSWORD); // argon2id, the library default
-  return db.transaction().execute(async (trx) => {
+  const seeded = await db.transaction().execute(async (trx) => {
     const courseId = await upsertCourse(trx, DEMO_COURSE);
     const secondId = await upsertCourse(trx, SECOND_COURSE);
     const ids: Record<string, string> = {};
@@ -138,6 +143,8 @@ export async function seedDemo(db: Kysely<Database>, opts: { storage?: SeedStora
     // Roles are per course: the first TA is a student in the advanced workshop.
     await member(trx, secondId, ids[`instructor@${DEMO_DOMAIN}`], "instructor");
     await member(trx, secondId, ids[`ta.one@${DEMO_DOMAIN}`], "student");
-    return { courseId };
+    return { courseId, students: [ids[`student.one@${DEMO_DOMAIN}`], ids[`student.two@${DEMO_DOMAIN}`]] };
   });
+  if (opts.mailDatabaseUrl) await seedMail(db, opts.mailDatabaseUrl, seeded.students);
+  return { courseId: seeded.courseId };
 }

@@ -2,7 +2,8 @@
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
 import { db } from "@/db";
-import { findCredentials } from "@/db/queries/users";
+import { findCredentials, sessionsValidAfter } from "@/db/queries/users";
+import { uuidSchema } from "@/lib/validation/members";
 import { signInSchema } from "@/lib/validation/auth";
 import { checkPassword } from "./password";
 
@@ -25,11 +26,18 @@ export const authOptions: NextAuthOptions = {
   ],
   callbacks: {
     async jwt({ token, user }) {
+      // `at`: when this sign-in happened. next-auth renews `iat` whenever it re-issues the cookie, so the
+      // sign-in time travels separately; sessions signed in before a password reset are refused below.
+      const at = user ? Math.floor(Date.now() / 1000) : ((token.at as number | undefined) ?? token.iat);
       if (user) token.sub = user.id;
       // Nothing else goes into the token: names, roles and the admin flag are read fresh on each request.
-      return { sub: token.sub, iat: token.iat, exp: token.exp, jti: token.jti };
+      return { sub: token.sub, at, iat: token.iat, exp: token.exp, jti: token.jti };
     },
     async session({ session, token }) {
+      const at = (token.at as number | undefined) ?? (token.iat as number | undefined) ?? 0;
+      const validAfter = token.sub && uuidSchema.safeParse(token.sub).success ? await sessionsValidAfter(db, token.sub) : null;
+      // whole seconds, like the token's times: a session from before the reset's second is void
+      if (validAfter && at < Math.floor(validAfter.getTime() / 1000)) return { expires: session.expires } as typeof session;
       return { expires: session.expires, user: { id: token.sub } } as typeof session;
     },
   },

@@ -164,6 +164,18 @@ export function presentAttempt(attempt: AttemptRow, lab: Lab, viewerIsStaff: boo
 
 export type PresentedAttempt = ReturnType<typeof presentAttempt>;
 
+export const HELD_NOTICE = "Graded, not yet released";
+
+/** While a lab's grades are held, a student sees that an attempt was graded, not its result. */
+export function heldAttempt(attempt: { id: string; labId: string; number: number; submittedAt: Date }, lab: Lab) {
+  return { id: attempt.id, labId: attempt.labId, labTitle: lab.title, number: attempt.number, status: "held" as const, submittedAt: attempt.submittedAt, notice: HELD_NOTICE };
+}
+
+/** The attempt as this viewer may see it now: held grades hide the result from students. */
+export function viewAttempt(attempt: AttemptRow, lab: Lab, viewerIsStaff: boolean, now = new Date()) {
+  return !viewerIsStaff && lab.gradesHeld ? heldAttempt(attempt, lab) : presentAttempt(attempt, lab, viewerIsStaff, now);
+}
+
 /** A student's own attempts; for staff every attempt, or one student's when `studentId` is given. */
 export async function attemptsFor(lab: Lab, access: CourseAccess, now = new Date(), studentId?: string) {
   const staff = isStaff(access.role);

@@ -91,7 +91,49 @@ describe("graded e-mail through the app's worker", () => {
     expect(page.status).toBe(200);
     expect(await page.text()).toContain("Fixed circuit for mail");
     const outsider = await clientFor(f.people.outsider.email);
-    expect((await outsider.fetch(path)).status).toBe(404);
+    // the page streams behind a loading state, so the refusal is the not-found page's content
+    const theirs = await (await outsider.fetch(path)).text();
+    expect(theirs).toContain("Not found");
+    expect(theirs).not.toContain("Fixed circuit for mail");
+    expect((await outsider.json(`/api/attempts/${attemptId}`)).status).toBe(404);
+  });
+});
+
+describe("held grades over HTTP", () => {
+  it("students see 'graded, not yet released' and get no message until the instructor releases", async () => {
+    const labId = await fixedLab();
+    const put = (c: Client, body: unknown) => c.json(`/api/labs/${labId}/grades-held`, { method: "PUT", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
+    expect((await put(as.student, { held: true })).status).toBe(403);
+    expect((await put(as.ta, { held: true })).status).toBe(403);
+    const bad = await put(as.instructor, { held: "yes" });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.fields).toHaveProperty("held");
+    expect((await put(as.instructor, { held: true })).body).toMatchObject({ lab: { id: labId, gradesHeld: true } });
+
+    const h = await as.student.json(`/api/labs/${labId}/handout`);
+    const [q1, q2] = h.body.handout.questions.map((q: { id: string }) => q.id);
+    // 3.3 V / 1 kΩ = 3.3 mA; 3.3 V / 1010 Ω = 3.267 mA (Ohm's law): all 5 points
+    const r = await as.student.post(`/api/labs/${labId}/attempts`, { idempotencyKey: `held-${Date.now()}`, readings: { [q1]: "3.3 mA", [q2]: "3.267 mA" } });
+    expect(r.status).toBe(201);
+    expect(r.body.attempt).toMatchObject({ status: "held", notice: "Graded, not yet released" });
+    expect(r.body.attempt.score).toBeUndefined();
+    const attemptId = r.body.attempt.id as string;
+    const one = await as.student.json(`/api/attempts/${attemptId}`);
+    expect(one.body.attempt.status).toBe("held");
+    expect(one.body.attempt.results).toBeUndefined();
+    const list = await as.student.json(`/api/labs/${labId}/attempts`);
+    expect(list.body.attempts.every((a: { status: string; score?: number }) => a.status === "held" && a.score === undefined)).toBe(true);
+    expect(await (await as.student.fetch(`/attempts/${attemptId}`)).text()).toContain("graded, not yet released");
+    expect((await as.instructor.json(`/api/attempts/${attemptId}`)).body.attempt.score).toBe(5); // staff see the grade
+
+    await new Promise((res) => setTimeout(res, 2000));
+    expect((await mailFor(f.people.student.email, () => true)).filter((m) => m.text.includes(attemptId))).toHaveLength(0);
+    const release = await put(as.instructor, { held: false });
+    expect(release.body).toMatchObject({ lab: { gradesHeld: false }, released: 1 });
+    const got = (await mailFor(f.people.student.email, (m) => m.some((x) => x.text.includes(attemptId)))).filter((m) => m.text.includes(attemptId));
+    expect(got).toHaveLength(1);
+    expect(got[0].text).toContain("Counted score: 5 / 5 points");
+    expect((await as.student.json(`/api/attempts/${attemptId}`)).body.attempt.score).toBe(5);
   });
 });
 

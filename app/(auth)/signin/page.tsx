@@ -11,6 +11,9 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
       <h1 className="mb-1 text-2xl">Sign in</h1>
       <p className="mb-6 text-sm text-ink-soft">Lessons, bench labs and your graded attempts.</p>
       <SignInForm next={next} />
+      <p className="mt-4 text-sm">
+        <Link href="/forgot-password">Forgot your password?</Link>
+      </p>
       <p className="mt-6 text-sm text-ink-soft">
         New in a course? <Link href="/signup">Create an account with your join code</Link>.
       </p>

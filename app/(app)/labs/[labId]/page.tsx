@@ -4,8 +4,9 @@ import { forPage, isStaff, refused } from "@/lib/auth/access";
 import { templates } from "@/lib/grader";
 import { handoutFor } from "@/lib/labs/handout";
 import { isOpen, lateDays } from "@/lib/labs/policy";
-import { attemptsFor, labAccess, type Lab } from "@/lib/labs/service";
+import { attemptsFor, HELD_NOTICE, labAccess, type Lab } from "@/lib/labs/service";
 import { Refusal } from "@/components/shell/refusal";
+import { HoldGrades } from "@/components/mail/hold-grades";
 import { Handout } from "@/components/labs/handout";
 import { attemptsLeftText, lateRuleText, utcDate, type FormMeasured, type FormQuestion } from "@/components/labs/submit/read";
 import { SubmissionForm } from "@/components/labs/submit/submission-form";
@@ -91,10 +92,10 @@ export default async function LabPage({ params }: { params: Promise<{ labId: str
             {ordered.map((a) => (
               <li key={a.id}>
                 <Link href={`/attempts/${a.id}`}>
-                  Attempt {a.number}: {points(a.score)} of {points(a.maxScore)} points
+                  Attempt {a.number}: {lab.gradesHeld ? HELD_NOTICE.toLowerCase() : `${points(a.score)} of ${points(a.maxScore)} points`}
                 </Link>{" "}
                 <span className="text-ink-soft">
-                  ({verdictSummary(a.results)}; submitted {utcDate(a.submittedAt)}
+                  ({lab.gradesHeld ? "" : `${verdictSummary(a.results)}; `}submitted {utcDate(a.submittedAt)}
                   {a.lateDays > 0 ? `, ${a.lateDays} day${a.lateDays === 1 ? "" : "s"} late` : ""})
                 </span>
               </li>
@@ -172,6 +173,8 @@ function StaffOverview({ lab, attempts, canEdit }: { lab: Lab; attempts: Attempt
           </dd>
         </div>
       </dl>
+
+      {canEdit ? <HoldGrades labId={lab.id} held={lab.gradesHeld} /> : lab.gradesHeld ? <p className="card mt-6">Grades of this lab are held: students do not see their scores yet.</p> : null}
 
       <h2 className="mt-8 text-xl">All attempts</h2>
       {sorted.length === 0 ? (

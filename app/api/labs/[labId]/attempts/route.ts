@@ -2,7 +2,7 @@ import { db } from "@/db";
 import { findAttempt } from "@/db/queries/attempts";
 import { json, jsonBody, route } from "@/lib/api";
 import { isStaff } from "@/lib/auth/access";
-import { attemptsFor, labAccess, presentAttempt, submitAttempt } from "@/lib/labs/service";
+import { attemptsFor, heldAttempt, labAccess, submitAttempt, viewAttempt } from "@/lib/labs/service";
 import { attemptInputSchema } from "@/lib/validation/labs";
 import { uuidSchema } from "@/lib/validation/members";
 import { AppError } from "@/lib/errors";
@@ -16,7 +16,10 @@ export const GET = route<Params>(async (req, { labId }) => {
   if (userId !== null && !uuidSchema.safeParse(userId).success) {
     throw new AppError("bad_request", "userId must be a user's id.", { userId: ["Not a user id."] });
   }
-  return json({ attempts: await attemptsFor(lab, access, new Date(), userId ?? undefined) });
+  const attempts = await attemptsFor(lab, access, new Date(), userId ?? undefined);
+  // held grades: a student sees that each attempt was graded, not its result
+  if (!isStaff(access.role) && lab.gradesHeld) return json({ attempts: attempts.map((a) => heldAttempt(a, lab)) });
+  return json({ attempts });
 });
 
 // Submits bench readings and grades them at once. A retry with the same idempotency key answers 200
@@ -26,5 +29,5 @@ export const POST = route<Params>(async (req, { labId }) => {
   const input = await jsonBody(req, attemptInputSchema);
   const { attemptId, created } = await submitAttempt(lab, access, input);
   const attempt = (await findAttempt(db, attemptId))!;
-  return json({ attempt: presentAttempt(attempt, lab, isStaff(access.role)) }, created ? 201 : 200);
+  return json({ attempt: viewAttempt(attempt, lab, isStaff(access.role)) }, created ? 201 : 200);
 });

@@ -1,0 +1,10 @@
+import { db } from "@/db";
+import { json, jsonBody, route } from "@/lib/api";
+import { requestPasswordReset } from "@/lib/mail/password-reset";
+import { resetRequestSchema } from "@/lib/validation/mail";
+
+// Asks for a password link. The answer is the same whether or not an account uses the address.
+export const POST = route(async (req) => {
+  const { email } = await jsonBody(req, resetRequestSchema);
+  return json({ message: await requestPasswordReset(db, email) });
+});
