@@ -29,13 +29,6 @@ export async function requireUser(): Promise<PublicUser> {
   return user;
 }
 
-/** A site admin (the site-wide flag); anyone else signed in is refused. */
-export async function requireAdmin(): Promise<PublicUser> {
-  const user = await requireUser();
-  if (!user.isAdmin) throw forbidden("Only a site administrator can see this.");
-  return user;
-}
-
 export interface CourseAccess {
   user: PublicUser;
   course: NonNullable<Awaited<ReturnType<typeof findCourse>>>;

@@ -20,12 +20,17 @@ export interface GradeMailEvent {
   eventKey: string;
   kind: GradeMailKind;
   /** for a regrade: the counted score before, and the reason given */
-  change?: { scoreBefore: number; reason?: string | null; by?: string | null };
+  change?: { scoreBefore: number; reason?: string | null; by?: string | null; actorId?: string | null };
   /** for a review answer: the staff's answer */
   answer?: string | null;
 }
 
 export type GradeMailOutcome = { queued: true; id: string } | { queued: false; why: "held" | "opted-out" | "duplicate" | "no-attempt" };
+
+async function actorName(trx: Transaction<Database>, id: string | null | undefined): Promise<string | null> {
+  if (!id) return null;
+  return (await trx.selectFrom("users").select("name").where("id", "=", id).executeTakeFirst())?.name ?? null;
+}
 
 export async function queueGradeMail(trx: Transaction<Database>, e: GradeMailEvent): Promise<GradeMailOutcome> {
   const c = await gradeMailContext(trx, e.attemptId);
@@ -51,7 +56,7 @@ export async function queueGradeMail(trx: Transaction<Database>, e: GradeMailEve
       points: q.points,
       maxPoints: q.maxPoints,
     })),
-    change: e.change ? { scoreBefore: e.change.scoreBefore, scoreAfter: c.score, reason: e.change.reason ?? null, by: e.change.by ?? null } : undefined,
+    change: e.change ? { scoreBefore: e.change.scoreBefore, scoreAfter: c.score, reason: e.change.reason ?? null, by: e.change.by ?? (await actorName(trx, e.change.actorId)) } : undefined,
     answer: e.answer ?? null,
     attemptPath: `/attempts/${c.attemptId}`,
   };

@@ -5,6 +5,7 @@ import fs from "node:fs";
 import path from "node:path";
 import type { Browser, BrowserContext, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { fixedLabBody } from "../support/mail";
 import { demo, launch, newPage, signIn } from "./harness";
 
 let browser: Browser;
@@ -31,33 +32,7 @@ beforeAll(async () => {
   await signIn(admin.page, demo.admin);
   const courses = await apiJson(staff.context, "GET", "/api/courses");
   const course = (courses.body.courses as { id: string; code: string; role: string }[]).find((c) => c.code === "ELM-214" && c.role === "instructor");
-  const day = 24 * 3600 * 1000;
-  const created = await apiJson(staff.context, "POST", `/api/courses/${course!.id}/labs`, {
-    title: TITLE,
-    templateKey: "shunt-burden",
-    spec: {
-      template: "shunt-burden",
-      parameters: {
-        supplyVoltage: { mode: "fixed", value: 3.3 },
-        loadResistance: { mode: "fixed", value: 1000 },
-        shuntResistance: { mode: "fixed", value: 10 },
-      },
-    },
-    questions: [
-      { quantity: "trueCurrent", kind: "prediction", points: 2 },
-      { quantity: "indicatedCurrent", kind: "prediction", points: 3 },
-    ],
-    policy: { relativeTolerance: 0.01 },
-    attemptsAllowed: 3,
-    counting: "best",
-    opensAt: new Date(Date.now() - day).toISOString(),
-    dueAt: new Date(Date.now() + 7 * day).toISOString(),
-    latePenaltyPercentPerDay: 0,
-    lateFloorPercent: 0,
-    showExpected: "after_attempt",
-    instructions: "Measure it.",
-    safetyNotes: "Set the bench supply's current limit first.",
-  });
+  const created = await apiJson(staff.context, "POST", `/api/courses/${course!.id}/labs`, fixedLabBody(TITLE));
   expect(created.status).toBe(201);
   labId = created.body.lab.id;
   expect((await apiJson(staff.context, "PATCH", `/api/labs/${labId}`, { status: "published" })).status).toBe(200);
@@ -100,8 +75,9 @@ describe("flow 4: graded e-mail", () => {
     const link = frame.getByRole("link", { name: "Open the attempt" });
     const href = await link.getAttribute("href");
     expect(new URL(href!).pathname).toBe(attemptPath);
-    await link.click();
-    await box.waitForURL((u) => u.pathname === attemptPath, { timeout: 20_000 });
+    const [opened] = await Promise.all([admin.context.waitForEvent("page", { timeout: 20_000 }), link.click()]);
+    await opened.waitForURL((u) => u.pathname === attemptPath, { timeout: 20_000 });
+    await opened.close();
 
     // the student, following the same link, sees the graded attempt
     await page.goto(href!);

@@ -5,8 +5,8 @@ import { DEMO_PASSWORD } from "@/db/seed/demo";
 import { e2eDb } from "../support/db";
 import { Client } from "../support/http";
 import { clientFor, courseWithPeople } from "./fixtures";
+import { fixedLabBody } from "../support/mail";
 
-const DAY = 24 * 3600 * 1000;
 let f: Awaited<ReturnType<typeof courseWithPeople>>;
 let admin: Client;
 let as: Record<"instructor" | "student" | "ta", Client>;
@@ -25,32 +25,7 @@ async function mailFor(to: string, until: (m: Message[]) => boolean, ms = 30_000
 
 /** A published lab on a fixed circuit: 3.3 V, 1 kΩ load, 10 Ω shunt; two questions worth 2 and 3 points. */
 async function fixedLab(): Promise<string> {
-  const created = await as.instructor.post(`/api/courses/${f.courseId}/labs`, {
-    title: "Fixed circuit for mail",
-    templateKey: "shunt-burden",
-    spec: {
-      template: "shunt-burden",
-      parameters: {
-        supplyVoltage: { mode: "fixed", value: 3.3 },
-        loadResistance: { mode: "fixed", value: 1000 },
-        shuntResistance: { mode: "fixed", value: 10 },
-      },
-    },
-    questions: [
-      { quantity: "trueCurrent", kind: "prediction", points: 2 },
-      { quantity: "indicatedCurrent", kind: "prediction", points: 3 },
-    ],
-    policy: { relativeTolerance: 0.01 },
-    attemptsAllowed: 3,
-    counting: "best",
-    opensAt: new Date(Date.now() - DAY).toISOString(),
-    dueAt: new Date(Date.now() + 7 * DAY).toISOString(),
-    latePenaltyPercentPerDay: 0,
-    lateFloorPercent: 0,
-    showExpected: "after_attempt",
-    instructions: "Measure it.",
-    safetyNotes: "Set the current limit first.",
-  });
+  const created = await as.instructor.post(`/api/courses/${f.courseId}/labs`, fixedLabBody("Fixed circuit for mail"));
   expect(created.status).toBe(201);
   const id = created.body.lab.id as string;
   const pub = await as.instructor.json(`/api/labs/${id}`, { method: "PATCH", headers: { "content-type": "application/json" }, body: JSON.stringify({ status: "published" }) });

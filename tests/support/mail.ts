@@ -59,6 +59,43 @@ export async function until<T>(what: () => Promise<T> | T, ok: (v: T) => boolean
   }
 }
 
+/** The fixed circuit the mail tests grade: 3.3 V supply, 1 kΩ load, 10 Ω shunt. */
+export const FIXED_SPEC = {
+  template: "shunt-burden",
+  parameters: {
+    supplyVoltage: { mode: "fixed", value: 3.3 },
+    loadResistance: { mode: "fixed", value: 1000 },
+    shuntResistance: { mode: "fixed", value: 10 },
+  },
+};
+
+/** Two questions: the current without the meter (2 points) and the current the meter shows (3 points). */
+export const FIXED_QUESTIONS = [
+  { quantity: "trueCurrent", kind: "prediction", points: 2 },
+  { quantity: "indicatedCurrent", kind: "prediction", points: 3 },
+] as const;
+
+/** A lab on the fixed circuit as the API takes it: open since yesterday, due in a week, no late penalty. */
+export function fixedLabBody(title: string) {
+  const day = 24 * 3600 * 1000;
+  return {
+    title,
+    templateKey: "shunt-burden",
+    spec: FIXED_SPEC,
+    questions: FIXED_QUESTIONS,
+    policy: { relativeTolerance: 0.01 },
+    attemptsAllowed: 3,
+    counting: "best",
+    opensAt: new Date(Date.now() - day).toISOString(),
+    dueAt: new Date(Date.now() + 7 * day).toISOString(),
+    latePenaltyPercentPerDay: 0,
+    lateFloorPercent: 0,
+    showExpected: "after_attempt",
+    instructions: "Measure it.",
+    safetyNotes: "Set the bench supply's current limit first.",
+  };
+}
+
 /**
  * A course with one student and a published shunt-and-burden lab with fixed values: 3.3 V supply,
  * 1 kΩ load, 10 Ω shunt. Two questions: the true current (2 points) and the indicated current (3 points).
@@ -102,18 +139,8 @@ export async function smallCourse(db: Kysely<Database>, opts: { held?: boolean; 
     {
       title: "Burden on a fixed circuit",
       templateKey: "shunt-burden",
-      spec: {
-        template: "shunt-burden",
-        parameters: {
-          supplyVoltage: { mode: "fixed", value: 3.3 },
-          loadResistance: { mode: "fixed", value: 1000 },
-          shuntResistance: { mode: "fixed", value: 10 },
-        },
-      },
-      questions: withIds([
-        { quantity: "trueCurrent", kind: "prediction", points: 2 },
-        { quantity: "indicatedCurrent", kind: "prediction", points: 3 },
-      ]),
+      spec: FIXED_SPEC,
+      questions: withIds(FIXED_QUESTIONS.map((q) => ({ ...q }))),
       policy: { relativeTolerance: 0.01, closeMultiple: 2, closeCredit: 0.5, instrumentAccuracyPercent: 0.5 },
       attemptsAllowed: 3,
       counting: "best",

@@ -6,8 +6,8 @@ import { mailboxAvailable, readMailbox } from "@/lib/mail/mailbox";
 
 export const metadata: Metadata = { title: "Development mailbox" };
 
-/** Links in a message open in the whole window, as they would from a mail client. */
-const linksOpenTheSite = (html: string) => (/<head[^>]*>/i.test(html) ? html.replace(/<head([^>]*)>/i, '<head$1><base target="_top">') : `<base target="_top">${html}`);
+/** Links in a message open in a new tab, as they would from a mail client (the frame itself runs nothing). */
+const linksOpenTheSite = (html: string) => (/<head[^>]*>/i.test(html) ? html.replace(/<head([^>]*)>/i, '<head$1><base target="_blank">') : `<base target="_blank">${html}`);
 export const dynamic = "force-dynamic";
 
 // What the local SMTP stand-in received, newest first: each message as HTML (in a sandboxed frame that
@@ -46,7 +46,7 @@ export default async function MailboxPage({ searchParams }: { searchParams: Prom
             </p>
             <details className="mt-3" open>
               <summary className="cursor-pointer text-sm font-semibold">As HTML</summary>
-              <iframe title={`HTML of “${m.subject}”`} sandbox="allow-popups allow-popups-to-escape-sandbox allow-top-navigation-by-user-activation" srcDoc={linksOpenTheSite(m.html)} className="mt-2 h-[28rem] w-full rounded-md border border-ink/10 bg-white" />
+              <iframe title={`HTML of “${m.subject}”`} sandbox="allow-popups allow-popups-to-escape-sandbox" srcDoc={linksOpenTheSite(m.html)} className="mt-2 h-[28rem] w-full rounded-md border border-ink/10 bg-white" />
             </details>
             <details className="mt-3">
               <summary className="cursor-pointer text-sm font-semibold">As plain text</summary>
