@@ -86,7 +86,7 @@ export function Scores({ summary }: { summary: StudentSummary }) {
               <tr key={s.lab.id} className="border-t border-ink/10">
                 <td className="py-1 pr-3">{s.lab.title}</td>
                 <td className="py-1 pr-3 text-right font-mono">
-                  {s.counted ? <Link href={`/attempts/${s.counted.attemptId}`}>{points(s.counted.score)} / {points(s.counted.maxScore)}</Link> : "—"}
+                  {s.counted ? <Link href={`/attempts/${s.counted.attemptId}`}>{points(s.counted.score)} / {points(s.counted.maxScore)}</Link> : s.lab.gradesHeld && s.attemptsUsed ? "graded, not yet released" : "—"}
                 </td>
                 <td className="py-1 text-right font-mono">{s.attemptsUsed} / {s.lab.attemptsAllowed}</td>
               </tr>

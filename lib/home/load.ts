@@ -17,6 +17,7 @@ export function homeLab(lab: Lab): HomeLab {
     attemptsAllowed: lab.attemptsAllowed,
     counting: lab.counting,
     maxPoints: lab.questions.reduce((s, q) => s + q.points, 0),
+    gradesHeld: lab.gradesHeld,
   };
 }
 

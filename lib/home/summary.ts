@@ -9,6 +9,8 @@ export interface HomeLab {
   attemptsAllowed: number;
   counting: "best" | "last";
   maxPoints: number;
+  /** the instructor holds this lab's grades: the student sees no score yet */
+  gradesHeld?: boolean;
 }
 
 export interface HomeAttempt {
@@ -49,7 +51,7 @@ export function studentSummary(labs: HomeLab[], attempts: HomeAttempt[], now: Da
       lab,
       attemptsUsed: mine.length,
       attemptsLeft: Math.max(0, lab.attemptsAllowed - mine.length),
-      counted: c ? { attemptId: c.id, score: c.score, maxScore: c.maxScore } : null,
+      counted: c && !lab.gradesHeld ? { attemptId: c.id, score: c.score, maxScore: c.maxScore } : null,
     };
   });
   const open = standings.filter((s) => isOpen(s.lab, now) && s.attemptsLeft > 0);
