@@ -1,37 +1,9 @@
 import type { Metadata } from "next";
-import Link from "next/link";
-import { SignOutButton } from "@/components/shell/sign-out-button";
-import { Wordmark } from "@/components/shell/wordmark";
-import { QueryProvider } from "@/components/providers/query-provider";
-import { currentUser } from "@/lib/auth/access";
-import { mailboxAvailable } from "@/lib/mail/mailbox";
+import { AppShell } from "@/components/shell/app-shell";
 
 // The signed-in app stays out of search engines (public/robots.txt says the same to crawlers).
 export const metadata: Metadata = { robots: { index: false, follow: false } };
 
-export default async function AppLayout({ children }: { children: React.ReactNode }) {
-  const user = await currentUser();
-  return (
-    <div className="min-h-screen">
-      <header className="no-print border-b border-ink/10 bg-paper-raised">
-        <div className="mx-auto flex max-w-5xl items-center justify-between px-4 py-3">
-          <Link href="/" className="no-underline" aria-label="Shuntwise: my courses">
-            <Wordmark small />
-          </Link>
-          {user ? (
-            <div className="flex items-center gap-3 text-sm">
-              {user.isAdmin ? <Link href="/admin/outbox">Outbox</Link> : null}
-              {user.isAdmin && mailboxAvailable() ? <Link href="/dev/mailbox">Mailbox</Link> : null}
-              <Link href="/settings">Settings</Link>
-              <span className="text-ink-soft">{user.name}</span>
-              <SignOutButton />
-            </div>
-          ) : null}
-        </div>
-      </header>
-      <main className="mx-auto max-w-5xl px-4 py-8">
-        <QueryProvider>{children}</QueryProvider>
-      </main>
-    </div>
-  );
+export default function AppLayout({ children }: { children: React.ReactNode }) {
+  return <AppShell>{children}</AppShell>;
 }

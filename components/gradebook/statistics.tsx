@@ -5,7 +5,7 @@
 import Link from "next/link";
 import type { GradebookLab, LabStatistics, QuestionStatistics } from "@/db/queries/gradebook";
 import { MISTAKES, templates, type TemplateKey } from "@/lib/grader";
-import { histogram, missedCount, mostMissed } from "@/lib/gradebook/stats";
+import { answeredCount, histogram, missedCount, mostMissed } from "@/lib/gradebook/stats";
 import { formatScore } from "@/lib/gradebook/view";
 import type { LessonSummary } from "@/lib/lessons";
 import { ScoreHistogram } from "./score-histogram";
@@ -40,7 +40,11 @@ export function GradebookStatistics({
 }) {
   const title = new Map(labs.map((l) => [l.id, l.title]));
   const maxPoints = new Map(labs.map((l) => [l.id, l.maxPoints]));
-  const lessonFor = (templateKey: string) => lessons.find((l) => (l.templates as string[]).includes(templateKey));
+  // the most specific lesson: the one preparing the fewest templates, then the earliest
+  const lessonFor = (templateKey: string) =>
+    lessons
+      .filter((l) => (l.templates as string[]).includes(templateKey))
+      .sort((a, b) => a.templates.length - b.templates.length || a.order - b.order)[0];
   const top = mostMissed(questionStats, 3);
 
   return (
@@ -49,13 +53,15 @@ export function GradebookStatistics({
         <h2 id="reteach-heading" className="text-xl">
           What to teach again
         </h2>
-        <p className="mt-1 text-sm text-ink-soft">The three questions of the course that most students missed (a recognised mistake, a wrong answer or no answer).</p>
+        <p className="mt-1 text-sm text-ink-soft">
+          The three questions of the course that most students missed among those who submitted the lab (a recognised mistake, a wrong answer or no answer).
+        </p>
         {top.length === 0 ? (
           <p className="mt-3 text-sm">No question has been missed yet.</p>
         ) : (
           <ol className="mt-3 space-y-3" data-testid="most-missed">
             {top.map((q) => {
-              const students = q.correct + q.close + missedCount(q);
+              const students = answeredCount(q);
               const lesson = lessonFor(q.templateKey);
               return (
                 <li key={`${q.labId}-${q.questionId}`} className="rounded-md border border-ink/10 p-3">

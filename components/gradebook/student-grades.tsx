@@ -4,7 +4,18 @@ import Link from "next/link";
 import type { Gradebook } from "@/db/queries/gradebook";
 import { cellMarkers, formatScore } from "@/lib/gradebook/view";
 
-export function StudentGrades({ gradebook, heading, headingLevel = 2 }: { gradebook: Gradebook; heading: string; headingLevel?: 2 | 3 }) {
+export function StudentGrades({
+  gradebook,
+  heading,
+  heldLabIds = [],
+  headingLevel = 2,
+}: {
+  gradebook: Gradebook;
+  heading: string;
+  /** labs whose grades are not yet released to students */
+  heldLabIds?: string[];
+  headingLevel?: 2 | 3;
+}) {
   const s = gradebook.students[0];
   const H = headingLevel === 2 ? "h2" : "h3";
   if (!s) return null;
@@ -34,6 +45,7 @@ export function StudentGrades({ gradebook, heading, headingLevel = 2 }: { gradeb
           <tbody>
             {gradebook.labs.map((l) => {
               const c = s.cells[l.id];
+              const held = heldLabIds.includes(l.id);
               return (
                 <tr key={l.id} className="border-t border-ink/10">
                   <th scope="row" className="py-1 pr-3 text-left font-medium">
@@ -41,7 +53,9 @@ export function StudentGrades({ gradebook, heading, headingLevel = 2 }: { gradeb
                   </th>
                   <td className="py-1 pr-3">{l.dueAt ? new Date(l.dueAt).toLocaleDateString("en-GB", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" }) : "–"}</td>
                   <td className="py-1 pr-3 tabular-nums">
-                    {c ? (
+                    {held ? (
+                      <span className="text-ink-soft">graded, not yet released</span>
+                    ) : c ? (
                       <Link href={`/attempts/${c.attemptId}`}>
                         {formatScore(c.score)} / {formatScore(c.maxScore)}
                       </Link>
@@ -50,7 +64,7 @@ export function StudentGrades({ gradebook, heading, headingLevel = 2 }: { gradeb
                     )}
                   </td>
                   <td className="py-1 text-ink-soft">
-                    {[...cellMarkers(c).map((m) => m.label), ...(c && c.attempts > 1 ? [`${c.attempts} attempts`] : [])].join("; ")}
+                    {held ? "" : [...cellMarkers(c).map((m) => m.label), ...(c && c.attempts > 1 ? [`${c.attempts} attempts`] : [])].join("; ")}
                   </td>
                 </tr>
               );

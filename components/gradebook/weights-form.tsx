@@ -1,12 +1,17 @@
 "use client";
 // The instructor's lab weights: each lab's share of the course total. Empty means "by its points".
 import { zodResolver } from "@hookform/resolvers/zod";
+import { useQueryClient } from "@tanstack/react-query";
+import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { FormMessage } from "@/components/ui/field";
+import { api, isApiError } from "@/lib/api-client";
 import { labWeightsSchema, type LabWeights, type LabWeightsInput } from "@/lib/validation/gradebook";
 
-export function WeightsForm({ courseId, labs, onSaved }: { courseId: string; labs: { id: string; title: string; weight: number | null; maxPoints: number }[]; onSaved?: () => void }) {
+export function WeightsForm({ courseId, labs }: { courseId: string; labs: { id: string; title: string; weight: number | null; maxPoints: number }[] }) {
+  const queryClient = useQueryClient();
+  const router = useRouter();
   const [message, setMessage] = useState<{ text: string; tone: "error" | "info" } | null>(null);
   const form = useForm<LabWeightsInput, unknown, LabWeights>({
     resolver: zodResolver(labWeightsSchema),
@@ -16,13 +21,14 @@ export function WeightsForm({ courseId, labs, onSaved }: { courseId: string; lab
 
   const onSubmit = form.handleSubmit(async (values) => {
     setMessage(null);
-    const res = await fetch(`/api/courses/${courseId}/gradebook/weights`, { method: "PUT", headers: { "content-type": "application/json" }, body: JSON.stringify(values) });
-    if (res.ok) {
+    try {
+      await api(`/api/courses/${courseId}/gradebook/weights`, { method: "PUT", body: values });
       setMessage({ text: "The weights are saved; the totals use them now.", tone: "info" });
-      onSaved?.();
-    } else {
-      const body = (await res.json().catch(() => null)) as { error?: { message?: string } } | null;
-      setMessage({ text: body?.error?.message ?? "The weights could not be saved.", tone: "error" });
+      // the table's totals come from the gradebook query; the page's own numbers from the server
+      await queryClient.invalidateQueries({ queryKey: ["gradebook", courseId] });
+      router.refresh();
+    } catch (e) {
+      setMessage({ text: isApiError(e) ? e.message : "The weights could not be saved.", tone: "error" });
     }
   });
 

@@ -51,13 +51,15 @@ const iso = (col: string) => sql.raw(`to_char(${col} at time zone 'UTC', 'YYYY-M
  * The common part: the course's published labs with their points and effective weight, its students,
  * and for each (lab, student) pair with attempts the counted attempt (best score, ties to the later
  * attempt; or the last one) with the attempt count and whether a review is open.
- * `onlyUser` narrows it to one student (the student's own row).
+ * `onlyUser` narrows it to one student; `hideHeld` (the student's own view) leaves out the scores of labs
+ * whose grades are held back (they neither show nor count in the total).
  */
-function gradebookCtes(courseId: string, onlyUser?: string) {
+function gradebookCtes(courseId: string, onlyUser?: string, hideHeld = false) {
   const userFilter = onlyUser ? sql`and m.user_id = ${onlyUser}` : sql``;
+  const released = hideHeld ? sql`not gl.grades_held` : sql`true`;
   return sql`
     gl as (
-      select l.id, l.title, l.due_at, l.created_at, l.weight, l.counting,
+      select l.id, l.title, l.due_at, l.created_at, l.weight, l.counting, l.grades_held,
         coalesce((select sum((q->>'points')::float8) from jsonb_array_elements(l.questions) q), 0) as max_points
       from labs l
       where l.course_id = ${courseId} and l.status = 'published'
@@ -74,7 +76,7 @@ function gradebookCtes(courseId: string, onlyUser?: string) {
         count(*) over w as attempts,
         bool_or(${REVIEW_OPEN}) over w as review_open
       from attempts a
-      join gl on gl.id = a.lab_id
+      join gl on gl.id = a.lab_id and ${released}
       join gs on gs.user_id = a.user_id
       window w as (partition by a.lab_id, a.user_id)
       order by a.lab_id, a.user_id, case when gl.counting = 'best' then a.score end desc nulls last, a.number desc
@@ -83,7 +85,7 @@ function gradebookCtes(courseId: string, onlyUser?: string) {
       select gs.user_id, gs.name, gs.email, gs.section, gl.id as lab_id, gl.due_at, gl.created_at,
         coalesce(gl.weight, gl.max_points) as w,
         gc.attempt_id, gc.score, gc.max_score, gc.late_days, gc.changed_by_staff, gc.attempts, gc.review_open,
-        (gc.attempt_id is not null or gl.due_at <= now()) as counts
+        ((gc.attempt_id is not null or gl.due_at <= now()) and ${released}) as counts
       from gs left join gl on true
       left join gc on gc.lab_id = gl.id and gc.user_id = gs.user_id
     ),
@@ -105,9 +107,9 @@ function gradebookCtes(courseId: string, onlyUser?: string) {
 }
 
 /** The gradebook document, as the JSON text the API answers (PostgreSQL builds it). */
-export function gradebookJsonQuery(courseId: string, onlyUser?: string) {
+export function gradebookJsonQuery(courseId: string, onlyUser?: string, hideHeld = false) {
   return sql<{ doc: string }>`
-    with ${gradebookCtes(courseId, onlyUser)}
+    with ${gradebookCtes(courseId, onlyUser, hideHeld)}
     select json_build_object(
       'labs', coalesce((select json_agg(json_build_object(
           'id', id, 'title', title, 'dueAt', ${iso("due_at")}, 'maxPoints', max_points, 'weight', weight)
@@ -118,13 +120,22 @@ export function gradebookJsonQuery(courseId: string, onlyUser?: string) {
     )::text as doc`;
 }
 
-export async function gradebookJson(db: Db, courseId: string, onlyUser?: string): Promise<string> {
-  const r = await gradebookJsonQuery(courseId, onlyUser).execute(db);
+export async function gradebookJson(db: Db, courseId: string, onlyUser?: string, hideHeld = false): Promise<string> {
+  const r = await gradebookJsonQuery(courseId, onlyUser, hideHeld).execute(db);
   return r.rows[0].doc;
 }
 
 export async function gradebook(db: Db, courseId: string, onlyUser?: string): Promise<Gradebook> {
   return JSON.parse(await gradebookJson(db, courseId, onlyUser)) as Gradebook;
+}
+
+/** A student's own row, as the student may see it: held grades left out; and which labs are held. */
+export async function ownGrades(db: Db, courseId: string, userId: string): Promise<{ gradebook: Gradebook; heldLabIds: string[] }> {
+  const [doc, held] = await Promise.all([
+    gradebookJson(db, courseId, userId, true),
+    db.selectFrom("labs").select("id").where("course_id", "=", courseId).where("status", "=", "published").where("grades_held", "=", true).execute(),
+  ]);
+  return { gradebook: JSON.parse(doc) as Gradebook, heldLabIds: held.map((l) => l.id) };
 }
 
 export interface LabStatistics {
@@ -166,6 +177,8 @@ export interface QuestionStatistics {
   mistake: number;
   wrong: number;
   missing: number;
+  /** Of `missing`, the students with no counted attempt at all (not submitted). */
+  notSubmitted: number;
   topMistake: string | null;
   topMistakeCount: number;
 }
@@ -201,6 +214,7 @@ export async function questionStatistics(db: Db, courseId: string): Promise<Ques
       count(*) filter (where vs.verdict = 'mistake')::int as mistake,
       count(*) filter (where vs.verdict in ('wrong', 'unit'))::int as wrong,
       (count(*) filter (where vs.verdict = 'missing') + (select count(*) from gs) - count(vs.verdict))::int as missing,
+      ((select count(*) from gs) - count(vs.verdict))::int as "notSubmitted",
       tm.mistake as "topMistake", coalesce(tm.n, 0)::int as "topMistakeCount"
     from qs
     left join vs on vs.lab_id = qs.lab_id and vs.position = qs.position
@@ -210,15 +224,20 @@ export async function questionStatistics(db: Db, courseId: string): Promise<Ques
   return r.rows;
 }
 
-/** Stored weights of the course's labs (null = by points), for the weights form. */
-export async function labWeights(db: Db, courseId: string) {
-  return db
-    .selectFrom("labs")
-    .select(["id", "title", "weight", "status"])
-    .where("course_id", "=", courseId)
-    .orderBy("due_at", "asc")
-    .orderBy("created_at", "asc")
-    .execute();
+/** The course's published labs with their stored weight (null = by points) and points, for the weights form. */
+export async function labWeights(db: Db, courseId: string): Promise<{ id: string; title: string; weight: number | null; maxPoints: number }[]> {
+  const r = await sql<{ id: string; title: string; weight: number | null; maxPoints: number }>`
+    select l.id, l.title, l.weight,
+      coalesce((select sum((q->>'points')::float8) from jsonb_array_elements(l.questions) q), 0) as "maxPoints"
+    from labs l where l.course_id = ${courseId} and l.status = 'published'
+    order by l.due_at nulls last, l.created_at`.execute(db);
+  return r.rows;
+}
+
+/** Ids of every lab of the course, drafts too (a weight may be set before publishing). */
+export async function courseLabIds(db: Db, courseId: string): Promise<Set<string>> {
+  const rows = await db.selectFrom("labs").select("id").where("course_id", "=", courseId).execute();
+  return new Set(rows.map((r) => r.id));
 }
 
 /** Sets the weights of labs of one course; labs of other courses are left alone. Returns how many changed. */

@@ -12,10 +12,17 @@ export function histogram(percents: number[], bins = 10): { from: number; to: nu
   return out;
 }
 
-/** Students who missed a question: a recognised mistake, a wrong answer, or no answer. */
-export const missedCount = (q: Pick<QuestionStatistics, "mistake" | "wrong" | "missing">) => q.mistake + q.wrong + q.missing;
+/**
+ * Students who submitted the lab and missed the question: a recognised mistake, a wrong answer, or no
+ * answer. Students who did not submit at all say nothing about the teaching, so they are left out.
+ */
+export const missedCount = (q: Pick<QuestionStatistics, "mistake" | "wrong" | "missing" | "notSubmitted">) => q.mistake + q.wrong + q.missing - q.notSubmitted;
 
-/** The `n` questions that most students missed (ties: more recognised mistakes first, then lab order). */
+/** Students who submitted the lab. */
+export const answeredCount = (q: Pick<QuestionStatistics, "correct" | "close" | "mistake" | "wrong" | "missing" | "notSubmitted">) =>
+  q.correct + q.close + q.mistake + q.wrong + q.missing - q.notSubmitted;
+
+/** The `n` questions that most submitting students missed (ties: more recognised mistakes first, then lab order). */
 export function mostMissed<Q extends QuestionStatistics>(qs: Q[], n = 3): Q[] {
   return qs
     .map((q, i) => ({ q, i }))

@@ -8,7 +8,7 @@ export interface Marker {
 }
 
 export const MARKERS: Record<Marker["key"], Marker> = {
-  late: { key: "late", symbol: "⏱", label: "submitted late (penalty applied)" },
+  late: { key: "late", symbol: "L", label: "submitted late (penalty applied)" },
   staff: { key: "staff", symbol: "✎", label: "changed by staff" },
   review: { key: "review", symbol: "?", label: "review requested, not yet answered" },
   missing: { key: "missing", symbol: "–", label: "not submitted" },

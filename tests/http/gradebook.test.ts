@@ -120,6 +120,13 @@ describe("GET /api/courses/{courseId}/gradebook", () => {
     expect(r.status).toBe(400);
     expect(Object.keys(r.body.error.fields)).toEqual(["format"]);
   });
+
+  it("refuses the gradebook page to a student with 403 and shows it to the TA", async () => {
+    const page = await as.student.fetch(`/courses/${f.courseId}/gradebook`);
+    expect(page.status).toBe(403);
+    const ta = await as.ta.fetch(`/courses/${f.courseId}/gradebook`);
+    expect(ta.status).toBe(200);
+  });
 });
 
 describe("PUT /api/courses/{courseId}/gradebook/weights", () => {

@@ -6,7 +6,7 @@ import Papa from "papaparse";
 import { sql } from "kysely";
 import { describe, expect, it } from "vitest";
 import { db } from "@/db";
-import { gradebook, labStatistics, questionStatistics, setLabWeights } from "@/db/queries/gradebook";
+import { gradebook, labStatistics, ownGrades, questionStatistics, setLabWeights } from "@/db/queries/gradebook";
 import { gradebookCsv } from "@/lib/gradebook/csv";
 
 const DAY = 24 * 3600 * 1000;
@@ -213,6 +213,18 @@ describe("the gradebook query", () => {
     expect(g.students[0]).toMatchObject({ userId: f.ada, total: 80 });
   });
 
+  it("leaves held grades out of the student's own row and total", async () => {
+    const f = await fixture();
+    await db.updateTable("labs").set({ grades_held: true }).where("id", "=", f.labC).execute();
+    const own = await ownGrades(db, f.courseId, f.ada);
+    expect(own.heldLabIds).toEqual([f.labC]);
+    expect(own.gradebook.students[0].cells[f.labC]).toBeNull();
+    // (8 + 3) / (10 + 5) = 73.33… → 73.3 %
+    expect(own.gradebook.students[0].total).toBe(73.3);
+    // the staff still see it
+    expect((await gradebook(db, f.courseId, f.ada)).students[0].cells[f.labC]).toMatchObject({ score: 9 });
+  });
+
   it("exports CSV that parses back to the same numbers, with a formula-like name kept as text", async () => {
     const f = await fixture();
     const g = await gradebook(db, f.courseId);
@@ -237,7 +249,7 @@ describe("the gradebook query", () => {
     const a1 = qs.find((q) => q.labId === f.labA && q.questionId === "q1")!;
     const a2 = qs.find((q) => q.labId === f.labA && q.questionId === "q2")!;
     // Counted attempts of lab A: Ada #2 (correct, close), "=1+1" #2 (correct, unit → wrong); Idle missing both.
-    expect(a1).toMatchObject({ correct: 2, close: 0, mistake: 0, wrong: 0, missing: 1, topMistake: null });
+    expect(a1).toMatchObject({ correct: 2, close: 0, mistake: 0, wrong: 0, missing: 1, notSubmitted: 1, topMistake: null });
     expect(a2).toMatchObject({ correct: 0, close: 1, mistake: 0, wrong: 1, missing: 1 });
     const b1 = qs.find((q) => q.labId === f.labB)!;
     expect(b1).toMatchObject({ correct: 0, mistake: 1, missing: 2, topMistake: "prefix-slip", topMistakeCount: 1 });

@@ -41,7 +41,7 @@ describe("statistics helpers", () => {
   });
 
   it("ranks the questions by how many students missed them", () => {
-    const q = (id: string, mistake: number, wrong: number, missing: number) => ({
+    const q = (id: string, mistake: number, wrong: number, missing: number, notSubmitted = 0) => ({
       labId: "l",
       questionId: id,
       quantity: "x",
@@ -52,11 +52,12 @@ describe("statistics helpers", () => {
       mistake,
       wrong,
       missing,
+      notSubmitted,
       topMistake: null,
       topMistakeCount: 0,
     });
-    const ranked = mostMissed([q("a", 1, 0, 0), q("b", 2, 2, 0), q("c", 0, 4, 0), q("d", 3, 0, 0), q("e", 0, 0, 0)]);
-    // b misses 4 with 2 mistakes, c misses 4 with none, d misses 3
+    const ranked = mostMissed([q("a", 1, 0, 0), q("b", 2, 2, 0), q("c", 0, 4, 0), q("d", 3, 0, 0), q("e", 0, 0, 0), q("f", 0, 0, 9, 9)]);
+    // b misses 4 with 2 mistakes, c misses 4 with none, d misses 3; f was only not submitted
     expect(ranked.map((x) => x.questionId)).toEqual(["b", "c", "d"]);
   });
 });

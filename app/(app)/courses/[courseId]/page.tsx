@@ -1,10 +1,13 @@
 import Link from "next/link";
 import { Suspense } from "react";
+import { db } from "@/db";
+import { ownGrades } from "@/db/queries/gradebook";
+import { StudentGrades } from "@/components/gradebook/student-grades";
 import { forPage, isStaff, refused, requireCourseRole } from "@/lib/auth/access";
 import { staffHome, studentHome } from "@/lib/home/load";
 import { labsForCourse } from "@/lib/labs/service";
 import { roleLabel } from "@/lib/roles";
-import { NextLabDue, OpenLabs, Panel, Scores, when } from "@/components/course/home-parts";
+import { NextLabDue, OpenLabs, Panel, when } from "@/components/course/home-parts";
 import { Refusal } from "@/components/shell/refusal";
 
 export default async function CoursePage({ params }: { params: Promise<{ courseId: string }> }) {
@@ -26,6 +29,7 @@ export default async function CoursePage({ params }: { params: Promise<{ courseI
         <Link className="btn-quiet" href={`/courses/${course.id}/lessons`}>Lessons</Link>
         <Link className="btn-quiet" href={`/courses/${course.id}/labs`}>Bench labs</Link>
         {staff ? <Link className="btn-quiet" href={`/courses/${course.id}/roster`}>Roster</Link> : null}
+        {staff ? <Link className="btn-quiet" href={`/courses/${course.id}/gradebook`}>Gradebook</Link> : null}
         {role === "instructor" ? <Link className="btn-quiet" href={`/courses/${course.id}/settings`}>Settings</Link> : null}
       </nav>
       <Suspense fallback={<p className="mt-8 text-sm text-ink-faint">Looking at what is next…</p>}>
@@ -37,7 +41,10 @@ export default async function CoursePage({ params }: { params: Promise<{ courseI
 
 async function StudentHome({ access, now }: { access: Parameters<typeof labsForCourse>[0]; now: Date }) {
   const labs = await labsForCourse(access);
-  const { summary, reviews, lesson } = await studentHome(access.course.id, access.user.id, labs, now);
+  const [{ summary, reviews, lesson }, own] = await Promise.all([
+    studentHome(access.course.id, access.user.id, labs, now),
+    ownGrades(db, access.course.id, access.user.id),
+  ]);
   const courseId = access.course.id;
   return (
     <div className="mt-8 grid gap-4 sm:grid-cols-2">
@@ -63,7 +70,9 @@ async function StudentHome({ access, now }: { access: Parameters<typeof labsForC
           <Link href={`/courses/${courseId}/lessons`}>The whole lesson plan</Link>
         </p>
       </Panel>
-      <Scores summary={summary} />
+      <div className="sm:col-span-2">
+        <StudentGrades gradebook={own.gradebook} heldLabIds={own.heldLabIds} heading="Your scores" />
+      </div>
       <Panel title="Your review requests" id="reviews">
         {reviews.length === 0 ? (
           <p className="text-ink-soft">You have not asked for a review. From an attempt&apos;s feedback you can ask the staff to look again.</p>

@@ -1,5 +1,5 @@
 import { db } from "@/db";
-import { labWeights, setLabWeights } from "@/db/queries/gradebook";
+import { courseLabIds, labWeights, setLabWeights } from "@/db/queries/gradebook";
 import { json, jsonBody, route } from "@/lib/api";
 import { requireCourseRole } from "@/lib/auth/access";
 import { AppError } from "@/lib/errors";
@@ -15,7 +15,7 @@ export const GET = route<Params>(async (_req, { courseId }) => {
 export const PUT = route<Params>(async (req, { courseId }) => {
   await requireCourseRole(courseId, ["instructor"]);
   const { weights } = await jsonBody(req, labWeightsSchema);
-  const known = new Set((await labWeights(db, courseId)).map((l) => l.id));
+  const known = await courseLabIds(db, courseId);
   const fields: Record<string, string[]> = {};
   weights.forEach((w, i) => {
     if (!known.has(w.labId)) fields[`weights.${i}.labId`] = ["No such lab in this course."];

@@ -1,0 +1,42 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { forbidden } from "next/navigation";
+import { db } from "@/db";
+import { gradebook, labStatistics, questionStatistics } from "@/db/queries/gradebook";
+import { forPage, refused, requireCourseRole, STAFF } from "@/lib/auth/access";
+import { listLessons } from "@/lib/lessons";
+import { GradebookStatistics } from "@/components/gradebook/statistics";
+import { GradebookTable } from "@/components/gradebook/gradebook-table";
+
+export const metadata: Metadata = { title: "Gradebook" };
+
+// The instructor's gradebook (TAs read it): the table is fetched in the browser from the gradebook API;
+// the statistics and the weights form are rendered here. Students get 403, outsiders 404.
+export default async function GradebookPage({ params }: { params: Promise<{ courseId: string }> }) {
+  const { courseId } = await params;
+  const access = await forPage(requireCourseRole(courseId, STAFF), `/courses/${courseId}/gradebook`);
+  if (refused(access)) forbidden();
+  const isInstructor = access.role === "instructor";
+  const [book, labStats, questionStats] = await Promise.all([gradebook(db, courseId), labStatistics(db, courseId), questionStatistics(db, courseId)]);
+  return (
+    <>
+      <p className="text-sm">
+        <Link href={`/courses/${courseId}`}>← {access.course.title}</Link>
+      </p>
+      <h1 className="mt-2 text-3xl">Gradebook</h1>
+      <p className="mt-1 text-sm text-ink-soft">
+        {book.students.length} students, {book.labs.length} published labs. The total weighs each lab by{" "}
+        {book.labs.some((l) => l.weight !== null) ? "the weights set" : "its points"}
+        {isInstructor ? (
+          <>
+            {" "}(<Link href={`/courses/${courseId}/settings#lab-weights`}>set the lab weights in the course settings</Link>).
+          </>
+        ) : (
+          ". Teaching assistants read the gradebook; the instructor exports it and sets the weights."
+        )}
+      </p>
+      <GradebookTable courseId={courseId} canExport={isInstructor} />
+      <GradebookStatistics labs={book.labs} labStats={labStats} questionStats={questionStats} lessons={listLessons()} />
+    </>
+  );
+}
