@@ -156,6 +156,10 @@ describe("PUT /api/courses/{courseId}/gradebook/weights", () => {
     expect(g.body.students[0].total).toBe(65);
     const csv = await (await as.instructor.fetch(`/api/courses/${f.courseId}/gradebook?format=csv`)).text();
     expect(csv.trim().split("\r\n")[1].endsWith(",65")).toBe(true);
+    // the form lives on the course settings page
+    const settings = await (await as.instructor.fetch(`/courses/${f.courseId}/settings`)).text();
+    expect(settings).toContain("Lab weights");
+    expect(settings).toContain("Burden, best");
   });
 });
 

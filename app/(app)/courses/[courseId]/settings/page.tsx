@@ -1,6 +1,9 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { db } from "@/db";
+import { labWeights } from "@/db/queries/gradebook";
 import { forPage, refused, requireCourseRole } from "@/lib/auth/access";
+import { WeightsForm } from "@/components/gradebook/weights-form";
 import { CopyCourseForm, CourseSettingsForm, JoinCodePanel } from "@/components/course/settings-form";
 import { Refusal } from "@/components/shell/refusal";
 
@@ -12,6 +15,7 @@ export default async function CourseSettingsPage({ params, searchParams }: { par
   if (refused(access)) return <Refusal message="Only the course's instructors change its settings." backHref={`/courses/${courseId}`} />;
   const { course } = access;
   const copied = (await searchParams).copied;
+  const weights = await labWeights(db, courseId);
   return (
     <>
       <p className="text-sm">
@@ -36,6 +40,15 @@ export default async function CourseSettingsPage({ params, searchParams }: { par
           }}
         />
         <JoinCodePanel key={course.joinCode} courseId={courseId} joinCode={course.joinCode} joiningOpen={course.joiningOpen} />
+        <section id="lab-weights" aria-labelledby="lab-weights-heading" className="card">
+          <h2 id="lab-weights-heading" className="text-xl">
+            Lab weights
+          </h2>
+          <p className="mb-3 text-sm text-ink-soft">
+            The gradebook&apos;s total and its export use these. <Link href={`/courses/${courseId}/gradebook`}>Open the gradebook</Link>
+          </p>
+          <WeightsForm courseId={courseId} labs={weights} />
+        </section>
         <CopyCourseForm courseId={courseId} code={course.code} />
       </div>
     </>
