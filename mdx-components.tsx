@@ -14,6 +14,8 @@ const components: MDXComponents = {
       <table className="min-w-full border-collapse text-sm [&_td]:border [&_td]:border-ink/15 [&_td]:px-2 [&_td]:py-1 [&_th]:border [&_th]:border-ink/15 [&_th]:bg-paper-sunk [&_th]:px-2 [&_th]:py-1" {...props} />
     </div>
   ),
+  // Links in running text are underlined: colour alone does not tell them apart (WCAG 1.4.1).
+  a: (props) => <a className="underline decoration-1 underline-offset-2" {...props} />,
   code: (props) => <code className="rounded bg-paper-sunk px-1 font-mono text-[0.9em]" {...props} />,
   blockquote: (props) => <blockquote className="my-4 border-l-4 border-copper-light pl-4 text-ink-soft" {...props} />,
 };
