@@ -6,6 +6,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { useFieldArray, useForm } from "react-hook-form";
 import { FormMessage } from "@/components/ui/field";
 import { api, isApiError } from "@/lib/api-client";
+import { toLocalInput } from "@/lib/dates";
 import { lessonPlanSchema, type LessonPlan, type LessonPlanInput } from "@/lib/validation/course-lessons";
 
 export interface PlanRow {
@@ -14,13 +15,6 @@ export interface PlanRow {
   visible: boolean;
   /** "YYYY-MM-DDTHH:mm" in the browser's time zone, or "" */
   opensAt: string;
-}
-
-function toLocalInput(iso: string | null): string {
-  if (!iso) return "";
-  const d = new Date(iso);
-  const pad = (n: number) => String(n).padStart(2, "0");
-  return `${d.getFullYear()}-${pad(d.getMonth() + 1)}-${pad(d.getDate())}T${pad(d.getHours())}:${pad(d.getMinutes())}`;
 }
 
 export function LessonPlanEditor({ courseId, initial }: { courseId: string; initial: { slug: string; title: string; visible: boolean; opensAt: string | null }[] }) {

@@ -1,9 +1,9 @@
 // A student's lab handout: instructions, safety notes, the circuit, the student's own values, the
 // questions with their units and points, and the rules. A server component (no client JavaScript):
-// symbols are typeset by KaTeX on the server, the instructor's Markdown by the small renderer below,
-// which builds React elements and never injects the typed text as HTML. Prints on one or two pages.
+// symbols are typeset by KaTeX on the server, the instructor's Markdown by react-markdown (React elements,
+// typed HTML kept as text). Prints on one or two pages.
 import katex from "katex";
-import { Fragment, type ReactNode } from "react";
+import ReactMarkdown, { type Components } from "react-markdown";
 import type { handoutFromParams } from "@/lib/labs/handout";
 import { CircuitDiagram } from "@/components/lesson/diagrams";
 import { Caution } from "@/components/lesson/Caution";
@@ -19,141 +19,47 @@ export interface HandoutProps {
 }
 
 // ---------------------------------------------------------------------------------------------------
-// Markdown, simply: paragraphs, headings, bullet and numbered lists, code blocks, **bold**, *italic*, `code`.
+// The instructor's Markdown, through react-markdown: paragraphs, headings, bullet and numbered lists, code
+// blocks, **bold**, *italic* and `code`. Anything else (links, images, quotes) is reduced to its text, and
+// typed HTML stays text: react-markdown builds React elements and never injects markup.
 
-const INLINE = /(`[^`\n]+`)|(\*\*[^\n]+?\*\*)|(__[^\n]+?__)|(\*[^*\s\n](?:[^*\n]*[^*\s\n])?\*)|(\b_[^_\s\n](?:[^_\n]*[^_\s\n])?_\b)/;
+const ALLOWED = ["p", "h1", "h2", "h3", "h4", "h5", "h6", "ul", "ol", "li", "pre", "code", "strong", "em"];
+const INLINE_CODE = "rounded bg-paper-sunk px-1 font-mono text-[0.9em]";
 
-export function renderInline(text: string, keyPrefix = "i"): ReactNode[] {
-  const out: ReactNode[] = [];
-  let rest = text;
-  let k = 0;
-  while (rest.length > 0) {
-    const m = INLINE.exec(rest);
-    if (!m) {
-      out.push(rest);
-      break;
-    }
-    if (m.index > 0) out.push(rest.slice(0, m.index));
-    const token = m[0];
-    const key = `${keyPrefix}-${k++}`;
-    if (m[1]) out.push(<code key={key} className="rounded bg-paper-sunk px-1 font-mono text-[0.9em]">{token.slice(1, -1)}</code>);
-    else if (m[2] || m[3]) out.push(<strong key={key}>{renderInline(token.slice(2, -2), key)}</strong>);
-    else out.push(<em key={key}>{renderInline(token.slice(1, -1), key)}</em>);
-    rest = rest.slice(m.index + token.length);
+function codeText(node: { children?: unknown[] } | undefined): string {
+  const code = node?.children?.[0] as { children?: { value?: string }[] } | undefined;
+  return (code?.children ?? []).map((c) => c.value ?? "").join("").replace(/\n$/, "");
+}
+
+function headings(baseLevel: number): Components {
+  const out: Components = {};
+  for (let level = 1; level <= 6; level++) {
+    const Tag = `h${Math.min(6, baseLevel + level - 1)}` as "h3";
+    out[`h${level}` as "h1"] = ({ children }) => <Tag className="mt-4 mb-1 text-base font-semibold">{children}</Tag>;
   }
   return out;
 }
 
-type Block =
-  | { kind: "p"; lines: string[] }
-  | { kind: "h"; level: number; text: string }
-  | { kind: "ul" | "ol"; items: string[] }
-  | { kind: "code"; text: string };
-
-export function parseMarkdown(source: string): Block[] {
-  const lines = source.replace(/\r\n?/g, "\n").split("\n");
-  const blocks: Block[] = [];
-  let i = 0;
-  while (i < lines.length) {
-    const line = lines[i];
-    if (/^\s*```/.test(line)) {
-      const body: string[] = [];
-      i++;
-      while (i < lines.length && !/^\s*```/.test(lines[i])) body.push(lines[i++]);
-      i++; // closing fence (or end)
-      blocks.push({ kind: "code", text: body.join("\n") });
-      continue;
-    }
-    if (line.trim() === "") {
-      i++;
-      continue;
-    }
-    const h = /^(#{1,6})\s+(.*)$/.exec(line);
-    if (h) {
-      blocks.push({ kind: "h", level: h[1].length, text: h[2].replace(/\s+#+\s*$/, "") });
-      i++;
-      continue;
-    }
-    const bullet = /^\s*[-*+]\s+(.*)$/;
-    const numbered = /^\s*\d+[.)]\s+(.*)$/;
-    const kind = bullet.test(line) ? "ul" : numbered.test(line) ? "ol" : null;
-    if (kind) {
-      const re = kind === "ul" ? bullet : numbered;
-      const items: string[] = [];
-      while (i < lines.length && lines[i].trim() !== "") {
-        const m = re.exec(lines[i]);
-        if (m) items.push(m[1]);
-        else if (/^\s+\S/.test(lines[i]) && items.length) items[items.length - 1] += ` ${lines[i].trim()}`;
-        else break;
-        i++;
-      }
-      blocks.push({ kind, items });
-      continue;
-    }
-    const para: string[] = [];
-    while (i < lines.length && lines[i].trim() !== "" && !/^\s*```/.test(lines[i]) && !/^#{1,6}\s/.test(lines[i]) && !bullet.test(lines[i]) && !numbered.test(lines[i])) {
-      para.push(lines[i].trim());
-      i++;
-    }
-    if (para.length) blocks.push({ kind: "p", lines: para });
-    else i++;
-  }
-  return blocks;
-}
-
 /** The instructor's Markdown as React elements; headings start at `baseLevel` (h3 by default). */
 export function Markdown({ source, baseLevel = 3 }: { source: string; baseLevel?: number }) {
-  const blocks = parseMarkdown(source);
+  const components: Components = {
+    ...headings(baseLevel),
+    p: ({ children }) => <p className="my-2">{children}</p>,
+    ul: ({ children }) => <ul className="my-2 list-disc pl-6">{children}</ul>,
+    ol: ({ children }) => <ol className="my-2 list-decimal pl-6">{children}</ol>,
+    li: ({ children }) => <li>{children}</li>,
+    // A code block is drawn here whole; `code` below is then only ever inline code.
+    pre: ({ node }) => (
+      <pre className="my-2 overflow-x-auto rounded-md bg-paper-sunk p-3 font-mono text-sm">
+        <code>{codeText(node)}</code>
+      </pre>
+    ),
+    code: ({ children }) => <code className={INLINE_CODE}>{children}</code>,
+  };
   return (
-    <>
-      {blocks.map((b, n) => {
-        const key = `b${n}`;
-        switch (b.kind) {
-          case "h": {
-            const level = Math.min(6, baseLevel + b.level - 1);
-            const Tag = `h${level}` as "h3";
-            return (
-              <Tag key={key} className="mt-4 mb-1 text-base font-semibold">
-                {renderInline(b.text, key)}
-              </Tag>
-            );
-          }
-          case "ul":
-            return (
-              <ul key={key} className="my-2 list-disc pl-6">
-                {b.items.map((it, j) => (
-                  <li key={j}>{renderInline(it, `${key}-${j}`)}</li>
-                ))}
-              </ul>
-            );
-          case "ol":
-            return (
-              <ol key={key} className="my-2 list-decimal pl-6">
-                {b.items.map((it, j) => (
-                  <li key={j}>{renderInline(it, `${key}-${j}`)}</li>
-                ))}
-              </ol>
-            );
-          case "code":
-            return (
-              <pre key={key} className="my-2 overflow-x-auto rounded-md bg-paper-sunk p-3 font-mono text-sm">
-                <code>{b.text}</code>
-              </pre>
-            );
-          default:
-            return (
-              <p key={key} className="my-2">
-                {b.lines.map((l, j) => (
-                  <Fragment key={j}>
-                    {j > 0 ? " " : null}
-                    {renderInline(l, `${key}-${j}`)}
-                  </Fragment>
-                ))}
-              </p>
-            );
-        }
-      })}
-    </>
+    <ReactMarkdown allowedElements={ALLOWED} unwrapDisallowed components={components}>
+      {source}
+    </ReactMarkdown>
   );
 }
 

@@ -5,7 +5,8 @@ import { useMemo, useState } from "react";
 import { nearestStandard, templates } from "@/lib/grader";
 import { formatAuto, formatText } from "@/lib/lessons/format";
 import { teaching } from "@/lib/lessons/teaching";
-import { CalculatorCard, Output, QuantityField, useQuantityFields } from "./fields";
+import { QuantityInput } from "@/components/ui/field";
+import { CalculatorCard, Output, useQuantityFields } from "./fields";
 import { Plot } from "./Plot";
 
 type Computed = Record<string, number | string>;
@@ -24,7 +25,7 @@ function Fields<K extends string>({ f, defs }: { f: ReturnType<typeof useQuantit
   return (
     <div className="no-print grid gap-3 sm:grid-cols-2">
       {(Object.keys(defs) as K[]).map((k) => (
-        <QuantityField key={k} label={defs[k].label} hint={defs[k].hint} value={f.texts[k]} onChange={(t) => f.setText(k, t)} error={f.errors[k]} />
+        <QuantityInput key={k} className="" label={defs[k].label} hint={defs[k].hint} value={f.texts[k]} onChange={(e) => f.setText(k, e.target.value)} error={f.errors[k]} />
       ))}
     </div>
   );

@@ -1,6 +1,6 @@
 "use client";
-// Labelled quantity inputs that read what a student types the way the grader does (parseQuantity):
-// "4k7", "2 uA", "0,5 mA", "1e-3 A". A wrong dimension or a typo shows a visible message under the field.
+// The calculators' state: quantity texts read the way the grader does (parseQuantity): "4k7", "2 uA",
+// "0,5 mA", "1e-3 A". The inputs themselves are QuantityInput from components/ui/field.tsx.
 import { useId, useMemo, useState } from "react";
 import { parseQuantity } from "@/lib/grader";
 
@@ -31,38 +31,6 @@ export function useQuantityFields<K extends string>(defs: Record<K, FieldDef>) {
     errors: parsed.errors,
     allOk,
   };
-}
-
-export function QuantityField({ label, value, onChange, error, hint }: { label: string; value: string; onChange: (t: string) => void; error?: string; hint?: string }) {
-  const id = useId();
-  const describedBy = [hint ? `${id}-hint` : "", error ? `${id}-error` : ""].filter(Boolean).join(" ") || undefined;
-  return (
-    <div>
-      <label htmlFor={id} className="field-label">
-        {label}
-      </label>
-      <input
-        id={id}
-        className="field-input"
-        value={value}
-        onChange={(e) => onChange(e.target.value)}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={describedBy}
-        autoComplete="off"
-        spellCheck={false}
-      />
-      {hint && (
-        <p id={`${id}-hint`} className="mt-1 text-xs text-ink-soft">
-          {hint}
-        </p>
-      )}
-      {error && (
-        <p id={`${id}-error`} className="field-error" role="alert">
-          {error}
-        </p>
-      )}
-    </div>
-  );
 }
 
 /** A calculator's frame: a titled card; controls are hidden in print, results stay. */

@@ -1,16 +1,17 @@
 "use client";
-// A logged current trace drawn with uPlot (canvas), with its numbers written out beside it. Traces of
+// A logged current trace drawn with the shared uPlot canvas (components/ui/plot.tsx), with its numbers
+// written out beside it. Traces of
 // 100k+ samples are min/max-decimated first so that every short wake still shows as a peak. The canvas is
 // hidden from assistive technology; the caption and the summary list carry the same information, and
 // nothing in the figure takes keyboard focus except the log-axis checkbox.
-import { useEffect, useId, useMemo, useRef, useState } from "react";
-import type uPlotType from "uplot";
-import "uplot/dist/uPlot.min.css";
+import { useId, useMemo, useState } from "react";
+import { PlotCanvas, type PlotSeries } from "@/components/ui/plot";
 import { minMaxDecimate } from "@/lib/trace/decimate";
 import { currentScale, formatCharge, formatCurrent, formatDuration, formatPercent, timeScale } from "@/lib/trace/format";
 import type { TraceAnalysis } from "@/lib/trace/types";
 
-export type TraceSummary = Pick<
+/** The parts of a trace analysis that the plot and its summary show. */
+export type PlottedTrace = Pick<
   TraceAnalysis,
   | "plot"
   | "rows"
@@ -37,12 +38,11 @@ export function TracePlot({
   maxPoints = 4000,
   testId,
 }: {
-  trace: TraceSummary;
+  trace: PlottedTrace;
   caption?: string;
   maxPoints?: number;
   testId?: string;
 }) {
-  const host = useRef<HTMLDivElement>(null);
   const summaryId = useId();
   const logId = useId();
   const [log, setLog] = useState(false);
@@ -66,45 +66,15 @@ export function TracePlot({
       threshold: level(trace.threshold),
     };
   }, [points, ts.factor, cs.factor, trace.averageCurrent, trace.threshold]);
-
-  useEffect(() => {
-    let cancelled = false;
-    let chart: uPlotType | null = null;
-    let observer: ResizeObserver | null = null;
-    (async () => {
-      const { default: uPlot } = await import("uplot");
-      if (cancelled || !host.current) return;
-      const width = Math.max(280, host.current.clientWidth);
-      const opts: uPlotType.Options = {
-        width,
-        height: HEIGHT,
-        scales: { x: { time: false }, y: useLog ? { distr: 3 } : {} },
-        axes: [
-          { label: `time (${ts.unit})`, stroke: "#46505c", grid: { stroke: "#e4e0d6" } },
-          { label: `current (${cs.unit})`, stroke: "#46505c", grid: { stroke: "#e4e0d6" }, size: 70 },
-        ],
-        legend: { show: true },
-        cursor: { drag: { x: true, y: false } },
-        series: [
-          { label: `time (${ts.unit})` },
-          // sample-and-hold, as the analysis integrates it
-          { label: "current", stroke: "#1f5f8b", width: 1.5, paths: uPlot.paths.stepped!({ align: 1 }), points: { show: false } },
-          { label: "average", stroke: "#a4532c", width: 1.5, dash: [6, 4], points: { show: false } },
-          { label: "sleep/active threshold", stroke: "#7a828c", width: 1, dash: [2, 4], points: { show: false } },
-        ],
-      };
-      chart = new uPlot(opts, [data.x, data.y, data.average, data.threshold] as uPlotType.AlignedData, host.current);
-      observer = new ResizeObserver(() => {
-        if (host.current && chart) chart.setSize({ width: Math.max(280, host.current.clientWidth), height: HEIGHT });
-      });
-      observer.observe(host.current);
-    })();
-    return () => {
-      cancelled = true;
-      observer?.disconnect();
-      chart?.destroy();
-    };
-  }, [data, useLog, ts.unit, cs.unit]);
+  const series: PlotSeries[] = useMemo(
+    () => [
+      // sample-and-hold, as the analysis integrates it
+      { label: "current", values: data.y, color: "#1f5f8b", width: 1.5, stepped: true },
+      { label: "average", values: data.average, color: "#a4532c", width: 1.5, dash: [6, 4] },
+      { label: "sleep/active threshold", values: data.threshold, color: "#7a828c", width: 1, dash: [2, 4] },
+    ],
+    [data],
+  );
 
   const rows: [string, string][] = [
     ["Samples", `${trace.rows.toLocaleString("en")}${trace.badRows > 0 ? ` (${trace.badRows.toLocaleString("en")} bad rows skipped)` : ""}`],
@@ -130,7 +100,7 @@ export function TracePlot({
 
   return (
     <figure className="my-4 break-inside-avoid" data-testid={testId} aria-describedby={summaryId}>
-      <div ref={host} className="w-full overflow-hidden" aria-hidden="true" />
+      <PlotCanvas x={data.x} series={series} xLabel={`time (${ts.unit})`} yLabel={`current (${cs.unit})`} yLog={useLog} height={HEIGHT} zoomX />
       <figcaption className="mt-2 text-sm text-ink-soft">
         {caption}: current against time
         {decimated

@@ -1,1 +1,1 @@
-export { TracePlot, type TraceSummary } from "./TracePlot";
+export { TracePlot, type PlottedTrace } from "./TracePlot";

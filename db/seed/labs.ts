@@ -4,7 +4,7 @@
 import crypto from "node:crypto";
 import type { Kysely } from "kysely";
 import { drawVariant, formatQuantity, MISTAKE_KEYS, seededRandom, templates, type MistakeKey, type Params, type TemplateKey, type VariantSpec } from "../../lib/grader";
-import { attemptRecord, gradeForLab, toLab, withIds, type TraceSummary } from "../../lib/labs/grading";
+import { attemptRecord, gradeForLab, toLab, withIds, type StoredTrace } from "../../lib/labs/grading";
 import { analyzeTrace, squareWaveCsv } from "../../lib/trace";
 import { findLab, insertLab } from "../queries/labs";
 import { insertAttempt } from "../queries/attempts";
@@ -427,7 +427,7 @@ export async function seedLabs(
           readings[q.id] = readingFor(t, params, q.quantity, outcome, Math.floor(r() * 4));
         }
         const uploadIds: string[] = [];
-        const traces: TraceSummary[] = [];
+        const traces: StoredTrace[] = [];
         if (demo.traces && storage && si2 < 6 && n === 1) {
           const csv = squareWaveCsv({
             sleepCurrent: params.sleepCurrent as number,
@@ -457,7 +457,7 @@ export async function seedLabs(
               analysis,
             }),
           );
-          traces.push(analysis as unknown as TraceSummary);
+          traces.push(analysis as unknown as StoredTrace);
         }
         const result = gradeForLab(lab, params, readings, {}, traces);
         for (const res of result.results) {

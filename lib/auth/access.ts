@@ -9,7 +9,7 @@ import { findCourse, findMembership } from "@/db/queries/courses";
 import { findUserById, type PublicUser } from "@/db/queries/users";
 import type { Role } from "@/db/types";
 import { AppError, forbidden, notFound, unauthorized } from "@/lib/errors";
-import { uuidSchema } from "@/lib/validation/members";
+import { uuidSchema } from "@/lib/validation/common";
 import { authOptions } from "./options";
 
 export const STAFF: Role[] = ["ta", "instructor"];

@@ -89,13 +89,14 @@ export function parseMeasured(lab: Lab, measured: Record<string, string | null>)
   return out;
 }
 
-export interface TraceSummary {
+/** An uploaded trace's stored analysis (lib/trace's TraceAnalysis, as JSON) as grading reads it: only its average. */
+export interface StoredTrace {
   averageCurrent?: number;
   [k: string]: unknown;
 }
 
 /** Grades readings for a lab and adds, for the average current, whether the typed value agrees with an uploaded trace. */
-export function gradeForLab(lab: Lab, params: Params, readings: Record<string, string | null>, measured: Params, traces: TraceSummary[]): StoredResult {
+export function gradeForLab(lab: Lab, params: Params, readings: Record<string, string | null>, measured: Params, traces: StoredTrace[]): StoredResult {
   const result = gradeAttempt({
     template: lab.templateKey,
     params,

@@ -6,7 +6,7 @@ import { listAttempts } from "@/db/queries/attempts";
 import { findLab } from "@/db/queries/labs";
 import { findUploads } from "@/db/queries/uploads";
 import { queueGradeMail } from "@/lib/mail/grade";
-import { toLab, type TraceSummary } from "./grading";
+import { toLab, type StoredTrace } from "./grading";
 import { recomputeAttempt } from "./rescore";
 
 export async function startRegrade(labId: string, labVersion: number, total: number): Promise<{ id: string; total: number }> {
@@ -49,7 +49,7 @@ export async function runRegrade(regradeId: string): Promise<void> {
       const traces = a.uploadIds
         .map((id) => uploads.get(id))
         .filter((u) => u?.kind === "trace" && u.analysis)
-        .map((u) => u!.analysis as TraceSummary);
+        .map((u) => u!.analysis as StoredTrace);
       // one transaction per attempt, on the locked row: a staff change made meanwhile is kept, not lost.
       // The student's message is queued in the same transaction, when the score changed.
       await db.transaction().execute(async (trx) => {

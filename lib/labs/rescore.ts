@@ -8,7 +8,7 @@ import { insertGradeEvent } from "@/db/queries/grade-events";
 import type { Database } from "@/db/types";
 import { AppError, notFound } from "@/lib/errors";
 import type { Params } from "@/lib/grader";
-import { gradeForLab, type Lab, type TraceSummary } from "./grading";
+import { gradeForLab, type Lab, type StoredTrace } from "./grading";
 import { applyOverrides, type Overrides } from "./overrides";
 import { applyPenalty } from "./policy";
 import type { StoredResult } from "./present";
@@ -37,7 +37,7 @@ export async function recomputeAttempt(
   trx: Trx,
   lab: Lab,
   attemptId: string,
-  traces: TraceSummary[],
+  traces: StoredTrace[],
   how: { kind: "recomputed"; actorId?: null; reason?: string } | { kind: "rerun"; actorId: string; reason: string },
 ) {
   const a = await locked(trx, attemptId);

@@ -13,7 +13,7 @@ import { templates } from "@/lib/grader";
 import { queueGradeMail } from "@/lib/mail/grade";
 import { parseRegrade, reviewAnswerSchema, reviewQuerySchema } from "@/lib/validation/reviews";
 import { invalid, parseOr400 } from "@/lib/validation/zod-errors";
-import type { Lab, TraceSummary } from "./grading";
+import type { Lab, StoredTrace } from "./grading";
 import { answerReviewRequest, overrideQuestion, recomputeAttempt } from "./rescore";
 import { attemptAccess, presentAttempt } from "./service";
 
@@ -36,9 +36,9 @@ export async function staffAttemptAccess(attemptId: string) {
   return found;
 }
 
-async function tracesOf(uploadIds: string[]): Promise<TraceSummary[]> {
+async function tracesOf(uploadIds: string[]): Promise<StoredTrace[]> {
   if (!uploadIds.length) return [];
-  return (await findUploads(db, uploadIds)).filter((u) => u.kind === "trace" && u.analysis).map((u) => u.analysis as TraceSummary);
+  return (await findUploads(db, uploadIds)).filter((u) => u.kind === "trace" && u.analysis).map((u) => u.analysis as StoredTrace);
 }
 
 /** The JSON body, read after the caller is authorized (so a refusal never depends on the body). */

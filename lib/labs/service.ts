@@ -20,14 +20,14 @@ import { assertRole, EVERYONE, isStaff, requireCourseRole, type CourseAccess } f
 import { AppError, notFound } from "@/lib/errors";
 import { queueGradeMail } from "@/lib/mail/grade";
 import { drawVariant, type Params } from "@/lib/grader";
-import { attemptRecord, gradeForLab, parseMeasured, toLab, withIds, type Lab, type TraceSummary } from "./grading";
+import { attemptRecord, gradeForLab, parseMeasured, toLab, withIds, type Lab, type StoredTrace } from "./grading";
 import { expectedVisible, isOpen } from "./policy";
 import { reviewIsOpen } from "./overrides";
 import { presentResults, type StoredResult } from "./present";
 
 export { gradeForLab, parseMeasured, policyFor, toLab, withIds, type Lab } from "./grading";
 import type { LabData } from "@/lib/validation/labs";
-import { uuidSchema } from "@/lib/validation/members";
+import { uuidSchema } from "@/lib/validation/common";
 
 /** The lab and the caller's access to its course. Students never see drafts (404). */
 export async function labAccess(labId: string, allowed: Role[] = EVERYONE): Promise<{ lab: Lab; access: CourseAccess }> {
@@ -83,7 +83,7 @@ export async function submitAttempt(lab: Lab, access: CourseAccess, input: Submi
   if (uploads.length !== new Set(input.uploadIds).size || uploads.some((u) => u.ownerId !== userId || u.courseId !== lab.courseId)) {
     throw new AppError("bad_request", "One of the attached files is not yours or not in this course.", { uploadIds: ["Attach only files you uploaded for this course."] });
   }
-  const traces = uploads.filter((u) => u.kind === "trace" && u.analysis).map((u) => u.analysis as TraceSummary);
+  const traces = uploads.filter((u) => u.kind === "trace" && u.analysis).map((u) => u.analysis as StoredTrace);
 
   return db.transaction().execute(async (trx: Transaction<Database>) => {
     await lockStudentLab(trx, lab.id, userId);

@@ -370,7 +370,7 @@ export const examples = [
     kind: "template",
     template: "uncertainty",
     params: { reading: 1, readingAccuracyPercent: 0, readingCounts: 0, countSize: 1e-3, shuntResistance: 1, shuntTolerancePercent: 0, coverageFactor: 2, adcBits: 12, adcReference: 3.3, amplifierGain: 1 },
-    checks: [{ quantity: "quantisationContribution", expected: 232.6e-6, source: "DOMAIN §4 4a [PUB: quantisation-noise formula page, 12-bit/3.3 V: 0.233 mV]" }], // [PUB]
+    checks: [{ quantity: "quantisationContribution", expected: 232.6e-6, source: "PHYSICS.md §4 4a [PUB: quantisation-noise formula page, 12-bit/3.3 V: 0.233 mV]" }], // [PUB]
   },
 
   // ---- Lesson 12: leakage and guarding ----

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { uuidSchema } from "./members";
+import { uuidSchema } from "./common";
 
 /** `?format=` of the gradebook route: JSON (default) or the CSV export. */
 export const gradebookQuerySchema = z.object({

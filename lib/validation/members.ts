@@ -36,4 +36,3 @@ export const importMembersSchema = z.object({
 });
 export type ImportMembersInput = z.input<typeof importMembersSchema>;
 
-export const uuidSchema = z.uuid();

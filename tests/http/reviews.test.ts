@@ -3,7 +3,7 @@
 // and who may do each.
 //
 // The circuit is fixed (5 V, 470 Ω load, 10 Ω shunt), so the expected values are Ohm's law done by hand
-// (DOMAIN.md §2): indicated current 5/480 A = 10.4167 mA, burden 10.4167 mA × 10 Ω = 0.10417 V.
+// (lib/grader/PHYSICS.md §2): indicated current 5/480 A = 10.4167 mA, burden 10.4167 mA × 10 Ω = 0.10417 V.
 import { beforeAll, describe, expect, it } from "vitest";
 import { hash } from "@node-rs/argon2";
 import type { Client } from "../support/http";

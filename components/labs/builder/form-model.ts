@@ -14,6 +14,7 @@ import {
   type TemplateKey,
   type VariantSpec,
 } from "@/lib/grader";
+import { fromLocalInput, toLocalInput } from "@/lib/dates";
 import { labInputSchema, type LabInput } from "@/lib/validation/labs";
 
 export type DrawMode = "fixed" | "range" | "list";
@@ -182,25 +183,6 @@ export function emptyForm(templateKey: TemplateKey = "shunt-burden", latePolicy?
     instructions: "",
     safetyNotes: "",
   };
-}
-
-function pad(n: number): string {
-  return String(n).padStart(2, "0");
-}
-
-/** An ISO instant as datetime-local text in the time zone of whoever runs this (the browser). */
-export function toLocalInput(iso: string | Date | null | undefined): string {
-  if (!iso) return "";
-  const d = iso instanceof Date ? iso : new Date(iso);
-  if (Number.isNaN(d.getTime())) return "";
-  return `${d.getFullYear()}-${pad(d.getMonth() + 1)}-${pad(d.getDate())}T${pad(d.getHours())}:${pad(d.getMinutes())}`;
-}
-
-/** datetime-local text (local time) as an ISO instant; "" → null; unreadable → the text itself, for the schema to refuse. */
-export function fromLocalInput(text: string): string | null {
-  if (!text.trim()) return null;
-  const d = new Date(text);
-  return Number.isNaN(d.getTime()) ? text : d.toISOString();
 }
 
 /** A stored lab as the builder receives it (labAsInput's shape, dates as ISO strings). */

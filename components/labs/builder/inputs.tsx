@@ -1,9 +1,10 @@
 "use client";
-// Labelled inputs bound to the builder's react-hook-form state. Each error (and each "read as" note) sits
-// in its own element named by aria-describedby; error text starts with a word, not only a colour.
+// Labelled inputs bound to the builder's react-hook-form state, drawn with the shared pieces of
+// components/ui/field.tsx (one message line per field, named by aria-describedby).
 import type { ReactNode } from "react";
 import { get, useFormContext, useWatch } from "react-hook-form";
 import type { ParameterSpec } from "@/lib/grader";
+import { FieldHint, FieldMessage, fieldIds, QuantityInput as SharedQuantityInput, type Reading } from "@/components/ui/field";
 import { readAsText, readValue, type BuilderForm } from "./form-model";
 
 export function idFor(name: string): string {
@@ -18,28 +19,13 @@ export function useFieldError(name: string): string | undefined {
   return e?.message || undefined;
 }
 
-function Described({ id, hint, error, note }: { id: string; hint?: ReactNode; error?: string; note?: ReactNode }) {
+function Described({ id, hint, error }: { id: string; hint?: ReactNode; error?: string }) {
   return (
     <>
-      {hint ? (
-        <p id={`${id}-hint`} className="mt-1 text-xs text-ink-faint">
-          {hint}
-        </p>
-      ) : null}
-      {note && !error ? (
-        <p id={`${id}-note`} className="mt-1 text-xs text-trace" aria-live="polite">
-          {note}
-        </p>
-      ) : null}
-      <p id={`${id}-error`} className="field-error" aria-live="polite">
-        {error ? `Check: ${error}` : ""}
-      </p>
+      <FieldHint id={id} hint={hint} />
+      <FieldMessage id={id} error={error} />
     </>
   );
-}
-
-function describedBy(id: string, hint: unknown, error: unknown, note: unknown): string | undefined {
-  return [hint ? `${id}-hint` : "", note && !error ? `${id}-note` : "", error ? `${id}-error` : ""].filter(Boolean).join(" ") || undefined;
 }
 
 type TextProps = {
@@ -60,7 +46,7 @@ export function TextInput({ name, label, hint, type = "text", inputMode, classNa
   const common = {
     id,
     "aria-invalid": error ? true : undefined,
-    "aria-describedby": describedBy(id, hint, error, null),
+    "aria-describedby": fieldIds(id, hint).describedBy,
     className: "field-input",
     placeholder,
     ...register(name as never),
@@ -90,7 +76,7 @@ export function SelectInput({ name, label, options, hint, className, onChangeVal
         id={id}
         className="field-input"
         aria-invalid={error ? true : undefined}
-        aria-describedby={describedBy(id, hint, error, null)}
+        aria-describedby={fieldIds(id, hint).describedBy}
         disabled={disabled}
         {...reg}
         onChange={(e) => {
@@ -113,32 +99,11 @@ export function SelectInput({ name, label, options, hint, className, onChangeVal
 export function QuantityInput({ name, label, param, hint, className }: { name: string; label: string; param: ParameterSpec; hint?: ReactNode; className?: string }) {
   const { register } = useFormContext<BuilderForm>();
   const text = (useWatch<BuilderForm>({ name: name as never }) as unknown as string | undefined) ?? "";
-  const formError = useFieldError(name);
-  const id = idFor(name);
-  let note: ReactNode = null;
-  let liveError: string | undefined;
+  const error = useFieldError(name);
+  let reading: Reading = { status: "empty" };
   if (text.trim() !== "") {
     const r = readValue(text, param);
-    if (r.ok) note = `Read as ${readAsText(r.value, param)}`;
-    else liveError = r.message;
+    reading = r.ok ? { status: "ok", readAs: readAsText(r.value, param) } : { status: "error", message: r.message };
   }
-  const error = formError ?? liveError;
-  return (
-    <div className={className ?? "mb-4"}>
-      <label htmlFor={id} className="field-label">
-        {label}
-      </label>
-      <input
-        id={id}
-        type="text"
-        autoComplete="off"
-        spellCheck={false}
-        className="field-input font-mono"
-        aria-invalid={error ? true : undefined}
-        aria-describedby={describedBy(id, hint, error, note)}
-        {...register(name as never)}
-      />
-      <Described id={id} hint={hint} error={error} note={note} />
-    </div>
-  );
+  return <SharedQuantityInput id={idFor(name)} label={label} hint={hint} className={className} inputClassName="font-mono" error={error} reading={reading} {...register(name as never)} />;
 }

@@ -13,6 +13,7 @@ const browserTimeZone = () => Intl.DateTimeFormat().resolvedOptions().timeZone;
 import { FormProvider, get, useForm, useWatch } from "react-hook-form";
 import { FormMessage } from "@/components/ui/field";
 import { api, isApiError } from "@/lib/api-client";
+import { toLocalInput } from "@/lib/dates";
 import { templates, TEMPLATE_KEYS, type TemplateKey } from "@/lib/grader";
 import { CircuitDiagram } from "@/components/lesson/diagrams";
 import type { LabInput } from "@/lib/validation/labs";
@@ -26,7 +27,6 @@ import {
   inputToForm,
   mapServerErrors,
   templateDefaults,
-  toLocalInput,
   type BuilderForm,
   type KeptPolicy,
   type StoredLabInput,

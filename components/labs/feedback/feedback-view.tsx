@@ -6,7 +6,7 @@
 import { useQuery, useQueryClient } from "@tanstack/react-query";
 import Link from "next/link";
 import { api } from "@/lib/api-client";
-import { utcDate } from "../submit/read";
+import { utcDate } from "@/lib/dates";
 import { Files } from "./files";
 import { Graded } from "./graded";
 import { ReviewForm } from "./review-form";

@@ -1,6 +1,6 @@
 // The graded part of the feedback: the score, then one card per question with the student's answer,
 // the expected value when it may be shown, the mistake found and the worked solution (already typeset).
-import { utcDate } from "../submit/read";
+import { utcDate } from "@/lib/dates";
 import type { AttemptView } from "./types";
 import { bandText, expectedValue, points, scoreLine, studentValue, verdictInfo, verdictSummary } from "./verdict";
 

@@ -149,28 +149,3 @@ export function uploadErrorMessage(status: number, error: ApiErrorDetail): strin
   if (status === 401) return "Your session has ended. Sign in again, then attach the file.";
   return error.message ?? `The upload failed (HTTP ${status}).`;
 }
-
-/** "3 of 5 attempts left" and friends. */
-export function attemptsLeftText(used: number, allowed: number): string {
-  const left = Math.max(0, allowed - used);
-  if (left === 0) return `You have used all ${allowed} attempt${allowed === 1 ? "" : "s"}.`;
-  return `${left} of ${allowed} attempt${allowed === 1 ? "" : "s"} left.`;
-}
-
-/** A date as the server and the browser both show it: "12 Mar 2027, 17:00 UTC". */
-export function utcDate(d: Date | string | null | undefined): string {
-  if (!d) return "";
-  const date = typeof d === "string" ? new Date(d) : d;
-  if (Number.isNaN(date.getTime())) return "";
-  const text = new Intl.DateTimeFormat("en-GB", { timeZone: "UTC", day: "numeric", month: "short", year: "numeric", hour: "2-digit", minute: "2-digit", hourCycle: "h23" }).format(date);
-  return `${text} UTC`;
-}
-
-/** The due date and late rule in one sentence. */
-export function lateRuleText(rules: { dueAt: Date | string | null; latePenaltyPercentPerDay: number; lateFloorPercent: number }): string {
-  if (!rules.dueAt) return "This lab has no due date.";
-  const due = `Due ${utcDate(rules.dueAt)}.`;
-  if (!(rules.latePenaltyPercentPerDay > 0)) return `${due} Late attempts are graded without a penalty.`;
-  const floor = rules.lateFloorPercent > 0 ? `, but a late attempt keeps at least ${rules.lateFloorPercent} % of its score` : "";
-  return `${due} Each day late (or part of a day) takes ${rules.latePenaltyPercentPerDay} % off the score${floor}.`;
-}

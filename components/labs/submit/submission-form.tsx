@@ -5,16 +5,15 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
-import { useId, useMemo, useRef, useState, type FormEvent } from "react";
+import { useMemo, useRef, useState, type FormEvent } from "react";
 import { useForm, useWatch, type Control, type UseFormRegisterReturn } from "react-hook-form";
 import type { z } from "zod";
-import { FormMessage } from "@/components/ui/field";
+import { FieldMessage, FormMessage, QuantityInput } from "@/components/ui/field";
 import { api, isApiError } from "@/lib/api-client";
 import { attemptInputSchema, type AttemptInput } from "@/lib/validation/labs";
 import { FileField } from "./file-field";
 import {
   echoReading,
-  echoText,
   mapServerFields,
   measuredPayload,
   measuredProblems,
@@ -34,7 +33,8 @@ function choiceLabel(choice: string): string {
   return choice.replace(/^u/, "µ");
 }
 
-function QuantityInput({
+/** A reading typed with its unit; under it, as it is typed, how the grader will read it. */
+function ReadingInput({
   label,
   hint,
   unit,
@@ -53,43 +53,9 @@ function QuantityInput({
   error?: string;
   registration: UseFormRegisterReturn;
 }) {
-  const id = useId();
   const text = (useWatch({ control, name: path }) as string | undefined) ?? "";
   const echo = echoReading(text, unit, displayUnit);
-  const problem = error ?? (echo.status === "error" ? echo.message : undefined);
-  return (
-    <div className="mb-4">
-      <label htmlFor={id} className="field-label">
-        {label}
-      </label>
-      <input
-        id={id}
-        className="field-input max-w-xs"
-        autoComplete="off"
-        spellCheck={false}
-        inputMode="text"
-        aria-invalid={problem ? true : undefined}
-        aria-describedby={`${id}-hint ${id}-echo`}
-        {...registration}
-      />
-      <p id={`${id}-hint`} className="mt-1 text-xs text-ink-soft">
-        {hint}
-      </p>
-      <p id={`${id}-echo`} aria-live="polite" data-testid={`echo-${path}`} className={problem ? "field-error" : "mt-1 text-sm text-ink-soft"}>
-        {problem ? (
-          <>
-            <span aria-hidden="true">✗ </span>
-            {problem}
-          </>
-        ) : echo.status === "ok" ? (
-          <>
-            <span aria-hidden="true">✓ </span>
-            {echoText(echo)}
-          </>
-        ) : null}
-      </p>
-    </div>
-  );
+  return <QuantityInput label={label} hint={hint} error={error} reading={echo} messageTestId={`echo-${path}`} inputClassName="max-w-xs" {...registration} />;
 }
 
 const UNIT_HINT: Record<string, string> = {
@@ -233,14 +199,12 @@ export function SubmissionForm({ labId, questions, components }: { labId: string
                 <p id={`${selId}-hint`} className="mt-1 text-xs text-ink-soft">
                   Pick one. {pts}.
                 </p>
-                <p id={`${selId}-error`} className="field-error" aria-live="polite">
-                  {error ?? ""}
-                </p>
+                <FieldMessage id={selId} error={error} />
               </div>
             );
           }
           return (
-            <QuantityInput
+            <ReadingInput
               key={q.id}
               label={label}
               hint={`Answer with ${UNIT_HINT[q.unit] ?? `a value in ${q.displayUnit || q.unit}`}. ${pts}.`}
@@ -262,7 +226,7 @@ export function SubmissionForm({ labId, questions, components }: { labId: string
             If you measured your resistors with a meter, enter what you measured: your bench readings are then checked against the circuit you actually built.
           </p>
           {components.map((c) => (
-            <QuantityInput
+            <ReadingInput
               key={c.key}
               label={`Measured ${c.label.toLowerCase()}`}
               hint={`Nominal value on your handout: ${c.shown}.`}

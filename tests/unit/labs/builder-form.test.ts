@@ -11,7 +11,6 @@ import {
   emptyForm,
   formPathFor,
   formToInput,
-  fromLocalInput,
   inputToForm,
   mapServerErrors,
   readAsText,
@@ -19,10 +18,10 @@ import {
   specToForm,
   splitList,
   templateDefaults,
-  toLocalInput,
   valueText,
 } from "@/components/labs/builder/form-model";
-import { labState } from "@/components/labs/builder/schedule";
+import { fromLocalInput, toLocalInput } from "@/lib/dates";
+import { labState } from "@/lib/labs/schedule";
 
 function filled(templateKey = "shunt-burden" as (typeof TEMPLATE_KEYS)[number]) {
   return { ...emptyForm(templateKey), title: "Burden on the bench" };

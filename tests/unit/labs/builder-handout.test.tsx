@@ -1,22 +1,21 @@
-// The handout's small Markdown renderer (instructions written in the builder): the blocks and inline
-// marks it supports, and that typed HTML stays text.
+// The handout's Markdown (instructions written in the builder, rendered by react-markdown): the blocks and
+// inline marks it shows, and that typed HTML stays text.
 import { renderToStaticMarkup } from "react-dom/server";
 import { describe, expect, it } from "vitest";
-import { Handout, Markdown, parseMarkdown, type HandoutData } from "@/components/labs/handout";
+import { Handout, Markdown, type HandoutData } from "@/components/labs/handout";
 
 const html = (src: string) => renderToStaticMarkup(<Markdown source={src} />);
 
 describe("handout Markdown", () => {
-  it("parses paragraphs, headings, lists and code blocks", () => {
-    const blocks = parseMarkdown("# Setup\nFirst line\nsecond line\n\n- one\n- two\n  continued\n\n1. a\n2) b\n\n```\nI = V / R\n```\nlast");
-    expect(blocks).toEqual([
-      { kind: "h", level: 1, text: "Setup" },
-      { kind: "p", lines: ["First line", "second line"] },
-      { kind: "ul", items: ["one", "two continued"] },
-      { kind: "ol", items: ["a", "b"] },
-      { kind: "code", text: "I = V / R" },
-      { kind: "p", lines: ["last"] },
-    ]);
+  it("renders paragraphs, headings, lists and code blocks", () => {
+    const out = html("# Setup\nFirst line\nsecond line\n\n- one\n- two\n  continued\n\n1. a\n2) b\n\n```\nI = V / R\n```\nlast");
+    // CommonMark: "2)" after "1." starts a second numbered list; the lazy line "continued" joins item two.
+    expect(out.replace(/\n/g, " ")).toBe(
+      '<h3 class="mt-4 mb-1 text-base font-semibold">Setup</h3> <p class="my-2">First line second line</p> ' +
+        '<ul class="my-2 list-disc pl-6"> <li>one</li> <li>two continued</li> </ul> ' +
+        '<ol class="my-2 list-decimal pl-6"> <li>a</li> </ol> <ol class="my-2 list-decimal pl-6"> <li>b</li> </ol> ' +
+        '<pre class="my-2 overflow-x-auto rounded-md bg-paper-sunk p-3 font-mono text-sm"><code>I = V / R</code></pre> <p class="my-2">last</p>',
+    );
   });
 
   it("renders bold, italic and code inline", () => {

@@ -1,10 +1,8 @@
 // The submission form's pure helpers: the "read as" echo, payloads, server field errors, messages.
 import { describe, expect, it } from "vitest";
 import {
-  attemptsLeftText,
   echoReading,
   echoText,
-  lateRuleText,
   mapServerFields,
   measuredPayload,
   measuredProblems,
@@ -13,9 +11,10 @@ import {
   submitErrorMessage,
   toPayload,
   uploadErrorMessage,
-  utcDate,
   type FormQuestion,
 } from "@/components/labs/submit/read";
+import { utcDate } from "@/lib/dates";
+import { attemptsLeftText, lateRuleText } from "@/lib/labs/wording";
 
 const current: FormQuestion = { id: "q1", label: "True current", unit: "A", displayUnit: "µA", answerKind: "number", points: 2 };
 const range: FormQuestion = { id: "q2", label: "Best range", unit: "", displayUnit: "", answerKind: "category", choices: ["nA", "uA", "mA"], points: 1 };

@@ -8,7 +8,9 @@ import { attemptsFor, HELD_NOTICE, labAccess, type Lab } from "@/lib/labs/servic
 import { Refusal } from "@/components/shell/refusal";
 import { HoldGrades } from "@/components/mail/hold-grades";
 import { Handout } from "@/components/labs/handout";
-import { attemptsLeftText, lateRuleText, utcDate, type FormMeasured, type FormQuestion } from "@/components/labs/submit/read";
+import type { FormMeasured, FormQuestion } from "@/components/labs/submit/read";
+import { utcDate } from "@/lib/dates";
+import { attemptsLeftText, lateRuleText } from "@/lib/labs/wording";
 import { SubmissionForm } from "@/components/labs/submit/submission-form";
 import { VERDICT_ORDER, VERDICTS, points, verdictCounts, verdictSummary } from "@/components/labs/feedback/verdict";
 

@@ -4,7 +4,7 @@ import { json, route } from "@/lib/api";
 import { isStaff, requireCourseRole } from "@/lib/auth/access";
 import { AppError, notFound } from "@/lib/errors";
 import { uploadView } from "@/lib/uploads";
-import { uuidSchema } from "@/lib/validation/members";
+import { uuidSchema } from "@/lib/validation/common";
 
 // The upload's record and a signed URL valid for 60 s: for its owner and the course staff only.
 export const GET = route<{ uploadId: string }>(async (_req, { uploadId }) => {

@@ -4,7 +4,7 @@ import { forPage, isStaff, refused, requireCourseRole } from "@/lib/auth/access"
 import { templates } from "@/lib/grader";
 import { labsForCourse } from "@/lib/labs/service";
 import { Refusal } from "@/components/shell/refusal";
-import { labState, STATE_LABEL } from "@/components/labs/builder/schedule";
+import { labState, STATE_LABEL } from "@/lib/labs/schedule";
 
 export const metadata: Metadata = { title: "Bench labs" };
 

@@ -4,7 +4,7 @@ import { json, jsonBody, route } from "@/lib/api";
 import { isStaff } from "@/lib/auth/access";
 import { attemptsFor, heldAttempt, labAccess, submitAttempt, viewAttempt } from "@/lib/labs/service";
 import { attemptInputSchema } from "@/lib/validation/labs";
-import { uuidSchema } from "@/lib/validation/members";
+import { uuidSchema } from "@/lib/validation/common";
 import { AppError } from "@/lib/errors";
 
 type Params = { labId: string };

@@ -2,7 +2,8 @@ import { json, jsonBody, route } from "@/lib/api";
 import { requireCourseRole } from "@/lib/auth/access";
 import { notFound } from "@/lib/errors";
 import { changeMember, removeMember } from "@/lib/roster/service";
-import { updateMemberSchema, uuidSchema } from "@/lib/validation/members";
+import { updateMemberSchema } from "@/lib/validation/members";
+import { uuidSchema } from "@/lib/validation/common";
 
 type Params = { courseId: string; userId: string };
 

@@ -1,0 +1,18 @@
+// Sentences about a lab's rules that the handout page and the submission form both show. Pure.
+import { utcDate } from "@/lib/dates";
+
+/** "3 of 5 attempts left" and friends. */
+export function attemptsLeftText(used: number, allowed: number): string {
+  const left = Math.max(0, allowed - used);
+  if (left === 0) return `You have used all ${allowed} attempt${allowed === 1 ? "" : "s"}.`;
+  return `${left} of ${allowed} attempt${allowed === 1 ? "" : "s"} left.`;
+}
+
+/** The due date and late rule in one sentence. */
+export function lateRuleText(rules: { dueAt: Date | string | null; latePenaltyPercentPerDay: number; lateFloorPercent: number }): string {
+  if (!rules.dueAt) return "This lab has no due date.";
+  const due = `Due ${utcDate(rules.dueAt)}.`;
+  if (!(rules.latePenaltyPercentPerDay > 0)) return `${due} Late attempts are graded without a penalty.`;
+  const floor = rules.lateFloorPercent > 0 ? `, but a late attempt keeps at least ${rules.lateFloorPercent} % of its score` : "";
+  return `${due} Each day late (or part of a day) takes ${rules.latePenaltyPercentPerDay} % off the score${floor}.`;
+}
