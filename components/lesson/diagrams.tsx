@@ -1,6 +1,9 @@
 // Circuit diagrams, one per grader template, as accessible SVG (role="img" with <title> and <desc>).
 // Drawn from plain primitives so they print crisply; reused by the lab handouts through
 // <CircuitDiagram template="…" />. Server-safe: no hooks, no client code.
+// Longer than 300 lines on purpose: the file is one table of drawings (`specs`, one per template, data
+// rather than logic) beside the primitives they are drawn with; split up, every drawing would need the
+// same dozen primitives exported and the table would be scattered over ten files.
 import type { ReactNode } from "react";
 import type { TemplateKey } from "@/lib/grader";
 

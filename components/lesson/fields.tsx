@@ -2,7 +2,8 @@
 // The calculators' state: quantity texts read the way the grader does (parseQuantity): "4k7", "2 uA",
 // "0,5 mA", "1e-3 A". The inputs themselves are QuantityInput from components/ui/field.tsx.
 import { useId, useMemo, useState } from "react";
-import { parseQuantity } from "@/lib/grader";
+import { parseQuantity, templates } from "@/lib/grader";
+import { QuantityInput } from "@/components/ui/field";
 
 export type FieldDef = { label: string; unit: string; initial: string; hint?: string };
 
@@ -56,3 +57,37 @@ export function Output({ label, value, testId }: { label: string; value: string;
     </div>
   );
 }
+
+// ---------------------------------------------------------------- shared by the calculators
+
+export type Computed = Record<string, number | string>;
+export function compute(template: string, params: Record<string, number | string>): Computed | null {
+  const t = (templates as Record<string, { compute(p: Record<string, number | string>): Computed }>)[template];
+  try {
+    const out = t.compute(params);
+    return Object.values(out).every((v) => typeof v === "string" || Number.isFinite(v)) ? out : null;
+  } catch {
+    return null;
+  }
+}
+export const num = (c: Computed | null, k: string) => (c && typeof c[k] === "number" ? (c[k] as number) : NaN);
+
+export function Fields<K extends string>({ f, defs }: { f: ReturnType<typeof useQuantityFields<K>>; defs: Record<K, { label: string; hint?: string }> }) {
+  return (
+    <div className="no-print grid gap-3 sm:grid-cols-2">
+      {(Object.keys(defs) as K[]).map((k) => (
+        <QuantityInput key={k} className="" label={defs[k].label} hint={defs[k].hint} value={f.texts[k]} onChange={(e) => f.setText(k, e.target.value)} error={f.errors[k]} />
+      ))}
+    </div>
+  );
+}
+
+export const invalid = <p className="text-sm text-ink-soft">Fix the highlighted input to see the results.</p>;
+
+/** The template's own check first (a reason in words), then its compute. */
+export function checked(template: string, params: Record<string, number>): { c: Computed | null; problem: string | null } {
+  const t = (templates as Record<string, { check(p: Record<string, number>): string | null }>)[template];
+  const problem = t.check(params);
+  return problem ? { c: null, problem } : { c: compute(template, params), problem: null };
+}
+export const pct = (x: number) => `${x.toPrecision(4)} %`;

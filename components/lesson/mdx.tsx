@@ -9,16 +9,8 @@ import { CircuitDiagram } from "./diagrams";
 import { Eq } from "./Eq";
 import { V } from "./Value";
 import { BudgetTable } from "./BudgetTable";
-import {
-  BurdenExplorer,
-  BurstSamplingCalculator,
-  DutyCycleCalculator,
-  LeakageGuardCalculator,
-  RangePicker,
-  RcStepResponse,
-  ShuntPicker,
-  ThermalReversalCalculator,
-} from "./calculators";
+import { BurdenExplorer, DutyCycleCalculator, RangePicker, RcStepResponse, ShuntPicker } from "./calculators";
+import { BurstSamplingCalculator, LeakageGuardCalculator, ThermalReversalCalculator } from "./calculators-depth";
 
 function H2(props: ComponentPropsWithoutRef<"h2">) {
   return <h2 id={headingId(childrenText(props.children))} className="mt-10 mb-3 scroll-mt-6 text-2xl break-after-avoid" {...props} />;
