@@ -3,7 +3,7 @@ import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
 import { db } from "@/db";
 import { findCredentials, sessionsValidAfter } from "@/db/queries/users";
-import { uuidSchema } from "@/lib/validation/members";
+import { uuidSchema } from "@/lib/validation/common";
 import { signInSchema } from "@/lib/validation/auth";
 import { checkPassword } from "./password";
 

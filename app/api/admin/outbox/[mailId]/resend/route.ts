@@ -4,7 +4,7 @@ import { requireAdmin } from "@/lib/auth/access";
 import { notFound } from "@/lib/errors";
 import { findOutbox } from "@/db/queries/mail-outbox";
 import { resendFailed } from "@/lib/mail/outbox";
-import { uuidSchema } from "@/lib/validation/members";
+import { uuidSchema } from "@/lib/validation/common";
 
 export const POST = route<{ mailId: string }>(async (_req, { mailId }) => {
   await requireAdmin();
