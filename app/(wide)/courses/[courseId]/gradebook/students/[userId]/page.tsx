@@ -4,7 +4,7 @@ import { forbidden, notFound } from "next/navigation";
 import { db } from "@/db";
 import { gradebook } from "@/db/queries/gradebook";
 import { forPage, refused, requireCourseRole, STAFF } from "@/lib/auth/access";
-import { uuidSchema } from "@/lib/validation/members";
+import { uuidSchema } from "@/lib/validation/common";
 import { StudentGrades } from "@/components/gradebook/student-grades";
 
 export const metadata: Metadata = { title: "Student grades" };
