@@ -13,9 +13,9 @@ function inUnit(value: number, unit: string): string {
   return formatAuto(value, SI_TEXT[unit] ?? unit);
 }
 
-function plain(value: number, unit: string): string {
-  const text = Number(value.toPrecision(4)).toString().replace(/^-/, "−");
-  return `${text} ${unit}`;
+/** A sensitivity coefficient: the current part gets its prefix ("−25.00 µA/K"). */
+function coefficient(value: number, unit: string): string {
+  return `${formatAuto(value, "A")}${unit.slice(1)}`;
 }
 
 export function BudgetTable({ ex }: { ex: string }) {
@@ -51,7 +51,7 @@ export function BudgetTable({ ex }: { ex: string }) {
               <td className="py-1 pr-3">{row.bound === 0 ? "—" : inUnit(row.bound, row.unit)}</td>
               <td className="py-1 pr-3">{row.distribution}</td>
               <td className="py-1 pr-3">{inUnit(row.standard, row.unit)}</td>
-              <td className="py-1 pr-3">{plain(row.sensitivity, C_UNIT[row.sensitivityUnit])}</td>
+              <td className="py-1 pr-3">{coefficient(row.sensitivity, C_UNIT[row.sensitivityUnit])}</td>
               <td className="py-1 pr-3">{formatAuto(row.contribution, "A")}</td>
               <td className="py-1">{`${Number(((100 * row.contribution ** 2) / total).toPrecision(3))} %`}</td>
             </tr>

@@ -125,7 +125,6 @@ export function BurstSamplingCalculator() {
             series={series}
             xLabel="time (s)"
             yLabel="current (A)"
-            yLog
             caption={`The slow logger's record: one sample every ${formatAuto(1 / logRate!, "s")}. A wake every ${formatAuto(wakePeriod!, "s")} ${
               alias > 0 ? `appears to repeat every ${formatAuto(1 / alias, "s")}` : "lands at the same phase every time: the logger sees every wake or none"
             }.`}

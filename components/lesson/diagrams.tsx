@@ -332,18 +332,18 @@ const specs: Record<DiagramTemplate, Spec> = {
         <Label x={40} y={88} anchor="start" size={10} color={TRACE}>guard</Label>
         <Wire d="M190,95 L208,95 L208,110 L232,110" thin color={TRACE} />
         <Ground x={208} y={110} />
-        <Resistor x1={160} y1={95} x2={160} y2={135} />
-        <Label x={150} y={118} anchor="end" size={10}>V_g across</Label>
-        <Wire d="M20,135 L232,135" />
-        <Arrow x1={26} y1={148} x2={62} y2={148} />
-        <Label x={44} y={164} color={TRACE}>I (DUT)</Label>
-        <Dot x={215} y={135} />
+        <Resistor x1={160} y1={95} x2={160} y2={130} />
+        <Label x={150} y={116} anchor="end" size={10}>V_g across</Label>
+        <Wire d="M20,130 L232,130" />
+        <Arrow x1={26} y1={143} x2={62} y2={143} />
+        <Label x={44} y={160} color={TRACE}>I (DUT)</Label>
+        <Dot x={215} y={130} />
         <Amp x={232} y={120} w={46} />
-        <Arrow x1={250} y1={172} x2={244} y2={142} color={COPPER} />
-        <Label x={262} y={184} size={10} color={COPPER}>I_b</Label>
-        <Wire d="M215,135 L215,195 L300,195 L300,120" thin />
-        <Resistor x1={230} y1={195} x2={290} y2={195} />
-        <Label x={260} y={188} size={10}>R_f</Label>
+        <Arrow x1={190} y1={162} x2={211} y2={136} color={COPPER} />
+        <Label x={186} y={172} anchor="end" size={10} color={COPPER}>I_b</Label>
+        <Wire d="M215,130 L215,192 L300,192 L300,120" thin />
+        <Resistor x1={230} y1={192} x2={290} y2={192} />
+        <Label x={260} y={178} size={10}>R_f</Label>
         <Wire d="M278,120 L340,120" />
         <Label x={340} y={112} anchor="end" size={10}>V_out = −I·R_f</Label>
       </g>

@@ -74,6 +74,39 @@ describe("lessons in the browser", () => {
     }
   });
 
+  it("the nanoamp and sampling calculators follow their inputs", async () => {
+    const { context, page } = await newPage(browser);
+    try {
+      await signIn(page, demo.student);
+      await page.goto("/lessons/leakage-and-guarding");
+      const leak = page.getByTestId("leakage-calculator");
+      // 10 V across 100 GΩ against 1 nA, 5 pA bias, guard within 2 mV: 100 pA and 0.502 % (Ohm's law, by hand)
+      expect(await leak.getByTestId("leakage-current").textContent()).toBe("100.0\u00a0pA");
+      expect(await leak.getByTestId("guarded-error").textContent()).toBe("0.5020 %");
+      // a guard that follows the input only within 20 mV: (20 mV/100 GΩ + 5 pA)/1 nA = 0.52 % (by hand)
+      await leak.getByLabel("Guard's residual voltage V_g").fill("20 mV");
+      await page.waitForFunction(() => document.querySelector('[data-testid="guarded-error"]')?.textContent === "0.5200 %");
+
+      await page.goto("/lessons/sampling-short-bursts");
+      const burst = page.getByTestId("burst-calculator");
+      // a 1.02 s wake on a 1 Hz logger: |1/1.02 − 1| Hz = 19.61 mHz (by hand)
+      expect(await burst.getByTestId("alias-frequency").textContent()).toBe("19.61\u00a0mHz");
+      const before = await plotPixels(page, "burst-plot");
+      // 0.95 s: |1/0.95 − 1| Hz = 52.63 mHz (by hand)
+      await burst.getByLabel("Wake period T").fill("0.95 s");
+      await page.waitForFunction(() => document.querySelector('[data-testid="alias-frequency"]')?.textContent === "52.63\u00a0mHz");
+      await page.waitForFunction(
+        (prev) => (document.querySelector('[data-testid="burst-plot"] canvas') as HTMLCanvasElement | null)?.toDataURL() !== prev,
+        before,
+      );
+      // a burst longer than the period is refused in words
+      await burst.getByLabel("Burst width t_b").fill("2 s");
+      await burst.getByText(/the burst must be shorter than the wake period/).waitFor({ timeout: 15_000 });
+    } finally {
+      await context.close();
+    }
+  });
+
   it("a check-yourself answer is checked in the page with a worked solution", async () => {
     const { context, page } = await newPage(browser);
     try {
@@ -95,7 +128,7 @@ describe("lessons in the browser", () => {
     const page = await context.newPage();
     try {
       await signIn(page, demo.student);
-      for (const slug of ["duty-cycled-loads", "bench-safety"]) {
+      for (const slug of ["duty-cycled-loads", "bench-safety", "leakage-and-guarding", "sampling-short-bursts", "uncertainty-budget"]) {
         await page.goto(`/lessons/${slug}`);
         await page.locator("canvas").first().waitFor({ state: "attached", timeout: 15_000 }).catch(() => undefined);
         const results = await new AxeBuilder({ page }).analyze();
