@@ -9,6 +9,7 @@ import { courseCodeTaken, findCourse, insertCourse, setJoinCode, updateCourseSet
 import { copyLabs } from "@/db/queries/labs";
 import { findUserByEmail, insertUser } from "@/db/queries/users";
 import { AppError, notFound } from "@/lib/errors";
+import { queuePasswordMail } from "@/lib/mail/tokens";
 import type { copyCourseSchema, courseSettingsSchema, createCourseSchema } from "@/lib/validation/courses";
 
 // No 0/O, 1/I/L: a join code is read aloud and copied from a projector.
@@ -45,7 +46,7 @@ async function withJoinCode<T>(courseCode: string, make: (joinCode: string) => P
 
 /**
  * Creates a course and makes the person with the given e-mail its first instructor. Without an account for
- * that address, one is created without a password (the person sets it through the invitation).
+ * that address, one is created without a password and an invitation with a set-password link is queued.
  */
 export async function createCourse(input: z.output<typeof createCourseSchema>) {
   if (await courseCodeTaken(db, input.code)) throw codeTaken();
@@ -57,7 +58,11 @@ export async function createCourse(input: z.output<typeof createCourseSchema>) {
   return withJoinCode(input.code, (joinCode) =>
     db.transaction().execute(async (trx) => {
       const courseId = await insertCourse(trx, { code: input.code, title: input.title, term: input.term, institution: input.institution, joinCode });
-      const instructor = existing ?? (await insertUser(trx, { email: input.instructorEmail, name: input.instructorName, passwordHash: null }));
+      let instructor = existing;
+      if (!instructor) {
+        instructor = await insertUser(trx, { email: input.instructorEmail, name: input.instructorName, passwordHash: null });
+        await queuePasswordMail(trx, instructor, "set");
+      }
       await upsertMembership(trx, { courseId, userId: instructor.id, role: "instructor" });
       return { course: { id: courseId, code: input.code, title: input.title, term: input.term, institution: input.institution, joinCode }, instructor: { id: instructor.id, email: instructor.email, name: instructor.name, invited: !existing } };
     }),

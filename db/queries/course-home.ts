@@ -22,7 +22,15 @@ export async function studentReviewRequests(db: Db, courseId: string, userId: st
   return db
     .selectFrom("attempts as a")
     .innerJoin("labs as l", "l.id", "a.lab_id")
-    .select(["a.id as attemptId", "a.number", "l.title as labTitle", "a.review_requested_at as requestedAt", "a.review_message as message"])
+    .select([
+      "a.id as attemptId",
+      "a.number",
+      "l.title as labTitle",
+      "a.review_requested_at as requestedAt",
+      "a.review_message as message",
+      "a.review_answer as answer",
+      "a.review_answered_at as answeredAt",
+    ])
     .where("l.course_id", "=", courseId)
     .where("a.user_id", "=", userId)
     .where("a.review_requested_at", "is not", null)
@@ -31,7 +39,10 @@ export async function studentReviewRequests(db: Db, courseId: string, userId: st
     .execute();
 }
 
-/** Attempts whose review was asked for by a current student of the course, oldest first. */
+/**
+ * Attempts of current students whose review is open (asked for, and not answered since it was asked),
+ * oldest first.
+ */
 export async function openReviewRequests(db: Db, courseId: string) {
   return db
     .selectFrom("attempts as a")
@@ -41,6 +52,7 @@ export async function openReviewRequests(db: Db, courseId: string) {
     .select(["a.id as attemptId", "a.number", "l.title as labTitle", "u.name as studentName", "a.review_requested_at as requestedAt"])
     .where("l.course_id", "=", courseId)
     .where("a.review_requested_at", "is not", null)
+    .where((eb) => eb.or([eb("a.review_answered_at", "is", null), eb("a.review_answered_at", "<", eb.ref("a.review_requested_at"))]))
     .orderBy("a.review_requested_at", "asc")
     .execute();
 }

@@ -21,12 +21,20 @@ export function homeLab(lab: Lab): HomeLab {
   };
 }
 
-/** The lesson to read next: the first open one after the last that opened, or the next to open. */
+/**
+ * The lessons to point a student at: the one that opened most recently (or, when none has an opening
+ * date, the first of the plan), and the next one to open.
+ */
 async function nextLesson(courseId: string, now: Date) {
   const lessons = await lessonsForStudents(courseId, now);
-  const upcoming = lessons.find((l) => !l.open);
-  const lastOpen = [...lessons].reverse().find((l) => l.open);
-  return { current: lastOpen ? { slug: lastOpen.slug, title: lastOpen.title } : null, upcoming: upcoming ? { slug: upcoming.slug, title: upcoming.title, opensAt: upcoming.opensAt } : null };
+  const open = lessons.filter((l) => l.open);
+  const dated = open.filter((l) => l.opensAt).sort((a, b) => b.opensAt!.getTime() - a.opensAt!.getTime());
+  const current = dated[0] ?? open[0];
+  const upcoming = lessons.filter((l) => !l.open && l.opensAt).sort((a, b) => a.opensAt!.getTime() - b.opensAt!.getTime())[0];
+  return {
+    current: current ? { slug: current.slug, title: current.title, latest: Boolean(dated[0]) } : null,
+    upcoming: upcoming ? { slug: upcoming.slug, title: upcoming.title, opensAt: upcoming.opensAt } : null,
+  };
 }
 
 export async function studentHome(courseId: string, userId: string, publishedLabs: Lab[], now = new Date()) {

@@ -18,6 +18,7 @@ import {
 import { findUserByEmail, insertUser } from "@/db/queries/users";
 import type { Database, Role } from "@/db/types";
 import { AppError, notFound } from "@/lib/errors";
+import { queuePasswordMail } from "@/lib/mail/tokens";
 import type { addMemberSchema, updateMemberSchema } from "@/lib/validation/members";
 import { classifyRows, lookupEmails, readRosterCsv, type ImportRow, type KnownAccount } from "./csv";
 
@@ -85,7 +86,8 @@ async function preview(conn: Transaction<Database> | typeof db, courseId: string
 
 /**
  * Previews (confirm false: nothing is saved) or imports students from a CSV of name, e-mail and section.
- * Confirming adds existing accounts and creates accounts without a password for new addresses, in one transaction.
+ * Confirming adds existing accounts, creates accounts without a password for new addresses and queues one
+ * invitation e-mail (a set-password link) per new account, all in one transaction.
  */
 export async function importMembers(courseId: string, csv: string, confirm: boolean): Promise<ImportResult> {
   if (readRosterCsv(csv).length === 0) {
@@ -103,6 +105,8 @@ export async function importMembers(courseId: string, csv: string, confirm: bool
       if (!userId) {
         const user = await insertUser(trx, { email: row.email, name: row.name, passwordHash: null });
         userId = user.id;
+        // the invitation: a set-password link through the mail queue, in this transaction
+        await queuePasswordMail(trx, user, "set");
       }
       if (await insertMembershipIfAbsent(trx, { courseId, userId, role: "student", section: row.section })) saved++;
     }

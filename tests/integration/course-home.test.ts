@@ -2,7 +2,7 @@
 // missing students, open review requests of current students, recomputations in progress.
 import { describe, expect, it } from "vitest";
 import { db } from "@/db";
-import { labsDueBetween, openReviewRequests, regradesInProgress } from "@/db/queries/course-home";
+import { labsDueBetween, openReviewRequests, regradesInProgress, studentReviewRequests } from "@/db/queries/course-home";
 
 const DAY = 24 * 3600 * 1000;
 
@@ -57,6 +57,14 @@ describe("staff course home", () => {
 
     const reviews = await openReviewRequests(db, course.id);
     expect(reviews.map((r) => [r.studentName, r.number])).toEqual([["Person 0", 2]]);
+    // answered after it was asked: no longer open; asked again after the answer: open again
+    const asked = await db.selectFrom("attempts").select(["id", "review_requested_at"]).where("review_requested_at", "is not", null).executeTakeFirstOrThrow();
+    await db.updateTable("attempts").set({ review_answer: "Checked: the grade stands.", review_answered_at: new Date(asked.review_requested_at!.getTime() + 60_000) }).where("id", "=", asked.id).execute();
+    expect(await openReviewRequests(db, course.id)).toEqual([]);
+    const mine = await studentReviewRequests(db, course.id, people[0]);
+    expect(mine.map((r) => [r.number, r.answer])).toEqual([[2, "Checked: the grade stands."]]);
+    await db.updateTable("attempts").set({ review_requested_at: new Date(asked.review_requested_at!.getTime() + 120_000) }).where("id", "=", asked.id).execute();
+    expect((await openReviewRequests(db, course.id)).map((r) => r.number)).toEqual([2]);
     // a student who left the course no longer shows in the queue
     await db.deleteFrom("memberships").where("user_id", "=", people[0]).execute();
     expect(await openReviewRequests(db, course.id)).toEqual([]);

@@ -1,10 +1,15 @@
 // Creating a course and copying one into a new term, against real PostgreSQL.
-import { describe, expect, it } from "vitest";
+import { afterAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
+import { boss } from "@/lib/jobs";
 import { changeCourseSettings, copyCourse, createCourse, regenerateJoinCode } from "@/lib/course-admin";
 import { signUpStudent } from "@/lib/courses";
 
 const DAY = 24 * 3600 * 1000;
+
+afterAll(async () => {
+  await (await boss()).stop({ graceful: false, wait: true });
+});
 
 async function person(email: string, name: string) {
   return db.insertInto("users").values({ email, name, password_hash: "x" }).returning("id").executeTakeFirstOrThrow();
@@ -20,6 +25,9 @@ describe("creating a course", () => {
     expect(b.instructor.invited).toBe(true);
     const row = await db.selectFrom("users").select(["name", "password_hash"]).where("email", "=", "new.person@college.example").executeTakeFirstOrThrow();
     expect(row).toEqual({ name: "New Person", password_hash: null });
+    // the new instructor is invited to choose a password; the existing one gets no message
+    const mail = await db.selectFrom("mail_outbox").select(["to_address", "kind"]).execute();
+    expect(mail).toEqual([{ to_address: "new.person@college.example", kind: "password_set" }]);
     const m = await db.selectFrom("memberships").select(["role"]).where("course_id", "=", b.course.id).execute();
     expect(m).toEqual([{ role: "instructor" }]);
   });

@@ -1,7 +1,8 @@
 // Roster changes against real PostgreSQL: the CSV import's preview and confirmation, and the rule that a
 // course always keeps an instructor.
-import { describe, expect, it } from "vitest";
+import { afterAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
+import { boss } from "@/lib/jobs";
 import { addMember, changeMember, importMembers, removeMember } from "@/lib/roster/service";
 
 async function course() {
@@ -25,6 +26,16 @@ async function members(courseId: string) {
     .orderBy("u.email")
     .execute();
   return rows;
+}
+
+afterAll(async () => {
+  await (await boss()).stop({ graceful: false, wait: true });
+});
+
+/** Invitations queued (one outbox row and one pg-boss job each), per address. */
+async function invitations() {
+  const rows = await db.selectFrom("mail_outbox").select(["to_address", "kind", "job_id"]).orderBy("to_address").execute();
+  return rows.map((r) => [r.to_address, r.kind, r.job_id !== null]);
 }
 
 const CSV = [
@@ -59,6 +70,7 @@ describe("CSV import", () => {
     expect(r.rows[4].message).toMatch(/line 2/);
     expect(await members(c.id)).toEqual([{ email: "mo.member@college.example", role: "student", section: "A1" }]);
     expect(await db.selectFrom("users").select("email").execute()).toEqual(usersBefore);
+    expect(await invitations()).toEqual([]);
   });
 
   it("on confirmation saves the good rows as students, creates accounts without passwords for new addresses", async () => {
@@ -86,10 +98,17 @@ describe("CSV import", () => {
       { email: "oli.other@college.example", name: "Oli Other", password_hash: null },
     ]);
 
-    // importing the same file again adds no one
+    // one invitation per new account, none for the existing ones
+    expect(await invitations()).toEqual([
+      ["nia.newcomer@college.example", "password_set", true],
+      ["oli.other@college.example", "password_set", true],
+    ]);
+
+    // importing the same file again adds no one and invites no one
     const again = await importMembers(c.id, CSV, true);
     expect(again.saved).toBe(0);
     expect(again.rows.filter((x) => x.outcome === "member")).toHaveLength(4);
+    expect(await invitations()).toHaveLength(2);
   });
 
   it("refuses a file without rows, naming the field", async () => {

@@ -28,6 +28,7 @@ export default async function CoursePage({ params }: { params: Promise<{ courseI
       <nav aria-label="Course" className="mt-6 flex flex-wrap gap-3">
         <Link className="btn-quiet" href={`/courses/${course.id}/lessons`}>Lessons</Link>
         <Link className="btn-quiet" href={`/courses/${course.id}/labs`}>Bench labs</Link>
+        {staff ? <Link className="btn-quiet" href={`/courses/${course.id}/gradebook`}>Gradebook</Link> : null}
         {staff ? <Link className="btn-quiet" href={`/courses/${course.id}/roster`}>Roster</Link> : null}
         {staff ? <Link className="btn-quiet" href={`/courses/${course.id}/gradebook`}>Gradebook</Link> : null}
         {role === "instructor" ? <Link className="btn-quiet" href={`/courses/${course.id}/settings`}>Settings</Link> : null}
@@ -55,7 +56,9 @@ async function StudentHome({ access, now }: { access: Parameters<typeof labsForC
       <Panel title="Next lesson" id="next-lesson">
         {lesson.current ? (
           <p>
-            Read <Link href={`/lessons/${lesson.current.slug}?course=${courseId}`}>{lesson.current.title}</Link>, the latest lesson to open.
+            {lesson.current.latest ? "Read " : "Start with "}
+            <Link href={`/lessons/${lesson.current.slug}?course=${courseId}`}>{lesson.current.title}</Link>
+            {lesson.current.latest ? ", the latest lesson to open." : "."}
           </p>
         ) : null}
         {lesson.upcoming ? (
@@ -64,7 +67,7 @@ async function StudentHome({ access, now }: { access: Parameters<typeof labsForC
             {lesson.upcoming.opensAt ? `, opens ${when(lesson.upcoming.opensAt)}` : ""}.
           </p>
         ) : (
-          <p className="mt-1 text-ink-soft">Every lesson of the plan is open.</p>
+          <p className="mt-1 text-ink-soft">Every lesson of the plan is open to you.</p>
         )}
         <p className="mt-2">
           <Link href={`/courses/${courseId}/lessons`}>The whole lesson plan</Link>
@@ -73,14 +76,22 @@ async function StudentHome({ access, now }: { access: Parameters<typeof labsForC
       <div className="sm:col-span-2">
         <StudentGrades gradebook={own.gradebook} heldLabIds={own.heldLabIds} heading="Your scores" />
       </div>
-      <Panel title="Your review requests" id="reviews">
+      <Panel title="Answers to your review requests" id="reviews">
         {reviews.length === 0 ? (
           <p className="text-ink-soft">You have not asked for a review. From an attempt&apos;s feedback you can ask the staff to look again.</p>
         ) : (
           <ul className="space-y-1">
             {reviews.map((r) => (
               <li key={r.attemptId}>
-                <Link href={`/attempts/${r.attemptId}`}>{r.labTitle}, attempt {r.number}</Link>: asked {when(r.requestedAt)}, waiting for an answer
+                <Link href={`/attempts/${r.attemptId}`}>{r.labTitle}, attempt {r.number}</Link>:{" "}
+                {r.answeredAt && r.requestedAt && new Date(r.answeredAt) >= new Date(r.requestedAt) ? (
+                  <>
+                    answered {when(r.answeredAt)}
+                    {r.answer ? <span className="mt-0.5 block border-l-2 border-trace/40 pl-2 text-ink-soft">{r.answer}</span> : null}
+                  </>
+                ) : (
+                  <>asked {when(r.requestedAt)}, waiting for an answer</>
+                )}
               </li>
             ))}
           </ul>
