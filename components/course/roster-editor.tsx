@@ -1,6 +1,7 @@
 "use client";
 
-// The instructor's roster: add a member by e-mail, change a role or section, remove a member.
+// The roster: the instructor adds a member by e-mail, changes a role or section, removes a member;
+// teaching assistants see the same table without the controls.
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
@@ -114,7 +115,18 @@ function AddMemberForm({ courseId, onNote }: { courseId: string; onNote: (n: Not
   );
 }
 
-export function RosterEditor({ courseId, members }: { courseId: string; members: RosterMember[] }) {
+function ReadOnlyRow({ m }: { m: RosterMember }) {
+  return (
+    <tr className="border-t border-ink/10">
+      <td className="px-4 py-2">{m.name}</td>
+      <td className="px-4 py-2 font-mono text-xs">{m.email}</td>
+      <td className="px-4 py-2">{roleLabel[m.role]}</td>
+      <td className="px-4 py-2">{m.section ?? "—"}</td>
+    </tr>
+  );
+}
+
+export function RosterEditor({ courseId, members, canEdit }: { courseId: string; members: RosterMember[]; canEdit: boolean }) {
   const [note, setNote] = useState<Note>(null);
   return (
     <>
@@ -128,17 +140,17 @@ export function RosterEditor({ courseId, members }: { courseId: string; members:
               <th scope="col" className="px-4 py-2">E-mail</th>
               <th scope="col" className="px-4 py-2">Role</th>
               <th scope="col" className="px-4 py-2">Section</th>
-              <th scope="col" className="px-4 py-2"><span className="sr-only">Changes</span></th>
+              {canEdit ? <th scope="col" className="px-4 py-2"><span className="sr-only">Changes</span></th> : null}
             </tr>
           </thead>
           <tbody>
-            {members.map((m) => (
-              <MemberRow key={`${m.userId}:${m.role}:${m.section ?? ""}`} courseId={courseId} m={m} onNote={setNote} />
-            ))}
+            {members.map((m) =>
+              canEdit ? <MemberRow key={`${m.userId}:${m.role}:${m.section ?? ""}`} courseId={courseId} m={m} onNote={setNote} /> : <ReadOnlyRow key={m.userId} m={m} />,
+            )}
           </tbody>
         </table>
       </div>
-      <AddMemberForm courseId={courseId} onNote={setNote} />
+      {canEdit ? <AddMemberForm courseId={courseId} onNote={setNote} /> : null}
     </>
   );
 }

@@ -3,7 +3,6 @@ import Link from "next/link";
 import { db } from "@/db";
 import { listMembers } from "@/db/queries/courses";
 import { forPage, refused, requireCourseRole, STAFF } from "@/lib/auth/access";
-import { roleLabel } from "@/lib/roles";
 import { RosterEditor } from "@/components/course/roster-editor";
 import { RosterImport } from "@/components/course/roster-import";
 import { Refusal } from "@/components/shell/refusal";
@@ -29,36 +28,8 @@ export default async function RosterPage({ params }: { params: Promise<{ courseI
         {counts.student} students, {counts.ta} teaching assistants, {counts.instructor} instructor{counts.instructor === 1 ? "" : "s"}.
         {canEdit ? " Removing someone keeps their attempts; they come back if the person is added again." : " Only the instructor can change the roster."}
       </p>
-      {canEdit ? (
-        <>
-          <RosterEditor courseId={courseId} members={rows} />
-          <RosterImport courseId={courseId} />
-        </>
-      ) : (
-        <div className="card overflow-x-auto p-0">
-          <table className="min-w-full text-sm">
-            <caption className="sr-only">Course members</caption>
-            <thead className="bg-paper-sunk text-left">
-              <tr>
-                <th scope="col" className="px-4 py-2">Name</th>
-                <th scope="col" className="px-4 py-2">E-mail</th>
-                <th scope="col" className="px-4 py-2">Role</th>
-                <th scope="col" className="px-4 py-2">Section</th>
-              </tr>
-            </thead>
-            <tbody>
-              {members.map((m) => (
-                <tr key={m.userId} className="border-t border-ink/10">
-                  <td className="px-4 py-2">{m.name}</td>
-                  <td className="px-4 py-2 font-mono text-xs">{m.email}</td>
-                  <td className="px-4 py-2">{roleLabel[m.role]}</td>
-                  <td className="px-4 py-2">{m.section ?? "—"}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
-      )}
+      <RosterEditor courseId={courseId} members={rows} canEdit={canEdit} />
+      {canEdit ? <RosterImport courseId={courseId} /> : null}
     </>
   );
 }
