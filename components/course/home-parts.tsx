@@ -65,36 +65,3 @@ export function OpenLabs({ summary, now }: { summary: StudentSummary; now: Date 
     </Panel>
   );
 }
-
-export function Scores({ summary }: { summary: StudentSummary }) {
-  return (
-    <Panel title="Your scores" id="scores">
-      {summary.standings.length === 0 ? (
-        <p className="text-ink-soft">No lab has opened yet.</p>
-      ) : (
-        <table className="min-w-full">
-          <caption className="sr-only">Counted score per lab</caption>
-          <thead className="text-left text-ink-soft">
-            <tr>
-              <th scope="col" className="py-1 pr-3 font-medium">Lab</th>
-              <th scope="col" className="py-1 pr-3 text-right font-medium">Counted</th>
-              <th scope="col" className="py-1 text-right font-medium">Attempts</th>
-            </tr>
-          </thead>
-          <tbody>
-            {summary.standings.map((s) => (
-              <tr key={s.lab.id} className="border-t border-ink/10">
-                <td className="py-1 pr-3">{s.lab.title}</td>
-                <td className="py-1 pr-3 text-right font-mono">
-                  {s.counted ? <Link href={`/attempts/${s.counted.attemptId}`}>{points(s.counted.score)} / {points(s.counted.maxScore)}</Link> : s.lab.gradesHeld && s.attemptsUsed ? "graded, not yet released" : "—"}
-                </td>
-                <td className="py-1 text-right font-mono">{s.attemptsUsed} / {s.lab.attemptsAllowed}</td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      )}
-      <p className="mt-2 text-xs text-ink-faint">The counted attempt is the best or the last one, as each lab says.</p>
-    </Panel>
-  );
-}
