@@ -5,6 +5,7 @@ import { hash } from "@node-rs/argon2";
 import type { Database, Role } from "../types";
 import { seedLabs, type SeedStorage } from "./labs";
 import { seedMail } from "./mail";
+import { seedReviews } from "./reviews";
 import { readLessonFiles } from "../../lib/lessons/files";
 
 export const DEMO_PASSWORD = "bench-demo-2026";
@@ -110,6 +111,9 @@ export async function seedDemo(db: Kysely<Database>, opts: { storage?: SeedStora
       { graded: [{ id: ids[`student.one@${DEMO_DOMAIN}`] }, { id: ids[`student.two@${DEMO_DOMAIN}`] }, ...others], open: others },
       opts.storage,
     );
+
+    // Review requests: a few waiting, one answered with a changed score.
+    await seedReviews(trx, courseId, { studentOne: ids[`student.one@${DEMO_DOMAIN}`], studentTwo: ids[`student.two@${DEMO_DOMAIN}`], ta: ids[`ta.one@${DEMO_DOMAIN}`] });
 
     // The lesson plan: the whole syllabus, the last three lessons opening over the coming weeks. A plan
     // seeded before newer lessons existed gets them appended (visible, open), and keeps its own rows.

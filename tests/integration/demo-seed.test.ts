@@ -5,6 +5,8 @@ import { describe, expect, it } from "vitest";
 import { db } from "@/db";
 import { seedDemo } from "@/db/seed/demo";
 import { seedStorageFromEnv } from "@/db/seed/storage";
+import { listGradeEvents } from "@/db/queries/grade-events";
+import { listReviews } from "@/db/queries/reviews";
 import { MISTAKE_KEYS } from "@/lib/grader";
 
 describe("the demo seed", () => {
@@ -47,5 +49,28 @@ describe("the demo seed", () => {
     const traces = await db.selectFrom("uploads").select(["analysis", "sha256"]).where("kind", "=", "trace").execute();
     expect(traces.length).toBeGreaterThan(0);
     for (const t of traces) expect((t.analysis as { averageCurrent: number }).averageCurrent).toBeGreaterThan(0);
+  });
+
+  it("leaves open review requests, one answered with a changed score, and a grade history for every attempt", async () => {
+    await seedDemo(db, { storage: seedStorageFromEnv(process.env) });
+    const course = await db.selectFrom("courses").select("id").where("code", "=", "ELM-214").executeTakeFirstOrThrow();
+    const open = await listReviews(db, course.id, { status: "open" });
+    expect(open.length).toBeGreaterThanOrEqual(3);
+    // the demo's first student login has one waiting, oldest first in the queue
+    expect(open.map((r) => r.student.name)).toContain("Noor Halvorsen");
+    const times = open.map((r) => new Date(r.requestedAt).getTime());
+    expect(times).toEqual([...times].sort((a, b) => a - b));
+    const answered = await listReviews(db, course.id, { status: "answered" });
+    expect(answered).toHaveLength(1);
+    const events = await listGradeEvents(db, answered[0].attemptId);
+    expect(events.map((e) => e.kind)).toEqual(["graded", "override", "review_answer"]);
+    expect(events[1].scoreAfter).toBeGreaterThan(events[1].scoreBefore!);
+    expect(answered[0].score).toBe(events[1].scoreAfter);
+    const without = await sql<{ n: number }>`select count(*)::int n from attempts a where not exists (select 1 from grade_events e where e.attempt_id = a.id)`.execute(db);
+    expect(without.rows[0].n).toBe(0);
+    // a second run adds no requests and no history
+    const before = await sql<{ n: number }>`select count(*)::int n from grade_events`.execute(db);
+    await seedDemo(db, { storage: seedStorageFromEnv(process.env) });
+    expect((await sql<{ n: number }>`select count(*)::int n from grade_events`.execute(db)).rows[0].n).toBe(before.rows[0].n);
   });
 });

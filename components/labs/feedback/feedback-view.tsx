@@ -7,6 +7,8 @@ import { useQuery, useQueryClient } from "@tanstack/react-query";
 import Link from "next/link";
 import { api } from "@/lib/api-client";
 import { utcDate } from "@/lib/dates";
+import { GradeTimeline } from "@/components/review/grade-timeline";
+import { StaffReview } from "@/components/review/staff-review";
 import { Files } from "./files";
 import { Graded } from "./graded";
 import { ReviewForm } from "./review-form";
@@ -23,9 +25,11 @@ export interface FeedbackProps {
   isOwner: boolean;
   typed: Record<string, string | null>;
   solutionHtml: Record<string, string>;
+  /** the staff's review page: scope captures inline, the regrade and answer forms; its queue's address */
+  reviewQueueHref?: string;
 }
 
-export function FeedbackView({ attempt: initial, studentId, studentName, isOwner, typed, solutionHtml }: FeedbackProps) {
+export function FeedbackView({ attempt: initial, studentId, studentName, isOwner, typed, solutionHtml, reviewQueueHref }: FeedbackProps) {
   const queryClient = useQueryClient();
   const attemptKey = ["attempt", initial.id];
   const { data: attempt } = useQuery({
@@ -42,14 +46,16 @@ export function FeedbackView({ attempt: initial, studentId, studentName, isOwner
   return (
     <>
       <p className="no-print text-sm">
-        <Link href={`/labs/${attempt.labId}`}>← Back to the lab</Link>
+        {reviewQueueHref ? <Link href={reviewQueueHref}>← Back to the review queue</Link> : <Link href={`/labs/${attempt.labId}`}>← Back to the lab</Link>}
       </p>
       <p role="status" className="sr-only">
         {`Graded: ${points(attempt.score)} of ${points(attempt.maxScore)} points.`}
       </p>
       <Graded attempt={attempt} typed={typed} solutionHtml={solutionHtml} studentName={studentName} />
 
-      <Files attempt={attempt} />
+      {reviewQueueHref ? <StaffReview attempt={attempt} /> : null}
+
+      <Files attempt={attempt} inline={Boolean(reviewQueueHref)} />
 
       <section aria-labelledby="history-heading" className="no-print mt-8">
         <h2 id="history-heading" className="text-xl">
@@ -81,7 +87,9 @@ export function FeedbackView({ attempt: initial, studentId, studentName, isOwner
         )}
       </section>
 
-      <Review attempt={attempt} isOwner={isOwner} onRequested={() => void queryClient.invalidateQueries({ queryKey: attemptKey })} />
+      {reviewQueueHref ? null : <Review attempt={attempt} isOwner={isOwner} onRequested={() => void queryClient.invalidateQueries({ queryKey: attemptKey })} />}
+
+      <GradeTimeline attemptId={attempt.id} />
     </>
   );
 }
@@ -95,9 +103,19 @@ function Review({ attempt, isOwner, onRequested }: { attempt: AttemptView; isOwn
       {attempt.reviewRequestedAt ? (
         <div role="status">
           <p className="mt-2 text-sm">
-            {isOwner ? "You asked" : "The student asked"} for a review on {utcDate(attempt.reviewRequestedAt)}. The course staff will look at it; a changed grade shows here.
+            {isOwner ? "You asked" : "The student asked"} for a review on {utcDate(attempt.reviewRequestedAt)}.
+            {attempt.reviewOpen ? " The course staff will look at it; a changed grade shows here." : ""}
           </p>
           {attempt.reviewMessage ? <blockquote className="mt-2 border-l-4 border-ink/20 pl-3 text-sm whitespace-pre-line">{attempt.reviewMessage}</blockquote> : null}
+          {attempt.reviewAnswer && attempt.reviewAnsweredAt ? (
+            <div className="mt-3 rounded-md border border-trace/30 bg-trace-pale p-3 text-sm" data-testid="review-answer">
+              <p className="font-semibold">
+                {attempt.reviewOpen ? "The staff's earlier answer" : "The staff's answer"} ({utcDate(attempt.reviewAnsweredAt)})
+              </p>
+              <p className="mt-1 whitespace-pre-line">{attempt.reviewAnswer}</p>
+              {attempt.changedByStaff ? <p className="mt-1 text-ink-soft">The staff changed points on this attempt; each change and its reason are in the grade history below.</p> : null}
+            </div>
+          ) : null}
         </div>
       ) : isOwner ? (
         <>

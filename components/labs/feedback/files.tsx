@@ -2,6 +2,7 @@
 // The files attached to an attempt: a logged trace with its analysis, and a scope capture whose signed
 // link is fetched again each time the viewer asks to see it (it works for about a minute).
 import { useMutation, useQueries } from "@tanstack/react-query";
+import { useEffect } from "react";
 import { api, ApiError } from "@/lib/api-client";
 import type { TraceAnalysis } from "@/lib/trace/types";
 import { TracePanel } from "./trace-panel";
@@ -12,7 +13,8 @@ const uploadQuery = (id: string) => ({
   queryFn: ({ signal }: { signal: AbortSignal }) => api<{ upload: UploadView }>(`/api/uploads/${id}`, { signal }).then((b) => b.upload),
 });
 
-export function Files({ attempt }: { attempt: AttemptView }) {
+/** `inline`: scope captures load at once (the review page), instead of on request. */
+export function Files({ attempt, inline = false }: { attempt: AttemptView; inline?: boolean }) {
   const ids = attempt.uploadIds;
   const all = useQueries({ queries: ids.map(uploadQuery) });
   if (!ids.length) return null;
@@ -31,7 +33,7 @@ export function Files({ attempt }: { attempt: AttemptView }) {
             u.kind === "trace" && u.analysis ? (
               <TracePanel key={u.id} name={u.originalName ?? "trace.csv"} analysis={u.analysis as TraceAnalysis} />
             ) : u.kind === "image" ? (
-              <ScopeCapture key={u.id} upload={u} />
+              <ScopeCapture key={u.id} upload={u} inline={inline} />
             ) : null,
           )
         : null}
@@ -40,7 +42,7 @@ export function Files({ attempt }: { attempt: AttemptView }) {
 }
 
 /** The image's link is signed for 60 s, so it is fetched again when the student asks to see it. */
-function ScopeCapture({ upload }: { upload: UploadView }) {
+function ScopeCapture({ upload, inline }: { upload: UploadView; inline: boolean }) {
   const link = useMutation({
     mutationFn: async () => {
       const { upload: fresh } = await api<{ upload: UploadView }>(`/api/uploads/${upload.id}`);
@@ -48,6 +50,10 @@ function ScopeCapture({ upload }: { upload: UploadView }) {
       return fresh.url;
     },
   });
+  const { mutate, isIdle } = link;
+  useEffect(() => {
+    if (inline && isIdle) mutate();
+  }, [inline, isIdle, mutate]);
   return (
     <div className="card mt-3" data-testid="scope-capture">
       <h3 className="text-lg">Scope capture</h3>

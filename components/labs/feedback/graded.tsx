@@ -84,6 +84,11 @@ function ResultCard({ r, index, typed, solutionHtml }: { r: Result; index: numbe
           </div>
         ) : null}
       </dl>
+      {r.override ? (
+        <p className="mt-3 rounded-md border border-copper/40 bg-copper/5 p-3 text-sm" data-testid="override">
+          <span className="font-semibold">Points set by the course staff: {points(r.override.points)}</span> (the grader gave {points(r.override.graderPoints)}). Reason: {r.override.reason}
+        </p>
+      ) : null}
       {r.mistake ? (
         <div className="mt-3 rounded-md border border-verdict-mistake/40 bg-verdict-mistake/5 p-3 text-sm" data-testid="mistake">
           <p className="font-semibold">What went wrong: {r.mistake.title}</p>

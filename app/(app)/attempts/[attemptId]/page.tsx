@@ -1,4 +1,3 @@
-import katex from "katex";
 import type { Metadata } from "next";
 import { asJson } from "@/lib/api-client";
 import { forPage, isStaff, refused } from "@/lib/auth/access";
@@ -6,18 +5,9 @@ import { attemptAccess, attemptsFor, HELD_NOTICE, presentAttempt } from "@/lib/l
 import Link from "next/link";
 import { Refusal } from "@/components/shell/refusal";
 import { FeedbackView } from "@/components/labs/feedback/feedback-view";
+import { typeset } from "@/components/labs/feedback/typeset";
 
 export const metadata: Metadata = { title: "Feedback" };
-
-/** Every worked-solution line this viewer may see, typeset once here so no KaTeX code reaches the browser. */
-function typeset(lines: string[]): Record<string, string> {
-  const out: Record<string, string> = {};
-  for (const line of lines) {
-    if (out[line] !== undefined) continue;
-    out[line] = katex.renderToString(line, { displayMode: true, throwOnError: false, output: "html", strict: false });
-  }
-  return out;
-}
 
 export default async function AttemptPage({ params }: { params: Promise<{ attemptId: string }> }) {
   const { attemptId } = await params;

@@ -5,6 +5,7 @@ import { ownGrades } from "@/db/queries/gradebook";
 import { StudentGrades } from "@/components/gradebook/student-grades";
 import { forPage, isStaff, refused, requireCourseRole } from "@/lib/auth/access";
 import { staffHome, studentHome } from "@/lib/home/load";
+import { openReviewCount } from "@/lib/labs/review";
 import { labsForCourse } from "@/lib/labs/service";
 import { roleLabel } from "@/lib/roles";
 import { NextLabDue, OpenLabs, Panel, when } from "@/components/course/home-parts";
@@ -17,6 +18,7 @@ export default async function CoursePage({ params }: { params: Promise<{ courseI
   const { course, role } = access;
   const staff = isStaff(role);
   const now = new Date();
+  const openReviews = await openReviewCount(access);
   return (
     <>
       <p className="text-xs font-semibold uppercase tracking-wide text-copper">
@@ -31,6 +33,11 @@ export default async function CoursePage({ params }: { params: Promise<{ courseI
         {staff ? <Link className="btn-quiet" href={`/courses/${course.id}/gradebook`}>Gradebook</Link> : null}
         {staff ? <Link className="btn-quiet" href={`/courses/${course.id}/roster`}>Roster</Link> : null}
         {staff ? <Link className="btn-quiet" href={`/courses/${course.id}/gradebook`}>Gradebook</Link> : null}
+        {staff ? (
+          <Link className="btn-quiet" href={`/courses/${course.id}/reviews`} data-testid="review-queue-link">
+            Review queue{openReviews ? ` (${openReviews} open)` : ""}
+          </Link>
+        ) : null}
         {role === "instructor" ? <Link className="btn-quiet" href={`/courses/${course.id}/settings`}>Settings</Link> : null}
       </nav>
       <Suspense fallback={<p className="mt-8 text-sm text-ink-faint">Looking at what is next…</p>}>
