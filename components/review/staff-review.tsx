@@ -25,6 +25,7 @@ function useRefresh(attemptId: string) {
     void qc.invalidateQueries({ queryKey: ["attempt", attemptId] });
     void qc.invalidateQueries({ queryKey: historyKey(attemptId) });
     void qc.invalidateQueries({ queryKey: ["reviews"] });
+    void qc.invalidateQueries({ queryKey: ["lab-attempts"] });
   };
 }
 
