@@ -126,7 +126,7 @@ async function main() {
   const env = appEnv(cfg, url);
   env.DATABASE_URL = url;
   const dist = process.env.SHUNTWISE_BENCH_DIST ?? ".next";
-  buildIfStale(dist, env);
+  await buildIfStale(dist, env);
   if (await portInUse(port)) throw new Error(`Port ${port} is in use; set SHUNTWISE_BENCH_PORT to a free port.`);
   const server = startNext({ distDir: dist, port, host: "127.0.0.1", env: { ...env, PORT: String(port), NEXTAUTH_URL: `http://127.0.0.1:${port}` }, quiet: true });
   const db = createDb(url, 4);
