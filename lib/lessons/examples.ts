@@ -354,15 +354,15 @@ export const examples = [
     },
     checks: [
       { quantity: "current", expected: 0.5, source: "Ohm's law [FORMULA]" }, // [FORMULA]
-      { quantity: "readingContribution", expected: 2.598e-3, source: "GUM 4.3.7 and 5.1.2, by hand [FORMULA]" }, // [FORMULA]
-      { quantity: "shuntToleranceContribution", expected: 2.887e-3, source: "GUM 4.3.7, by hand [FORMULA]" }, // [FORMULA]
-      { quantity: "tempcoContribution", expected: 144.3e-6, source: "GUM 4.3.7, ΔR/R = αΔT, by hand [FORMULA]" }, // [FORMULA]
-      { quantity: "gainContribution", expected: 577.4e-6, source: "GUM 4.3.7, by hand [FORMULA]" }, // [FORMULA]
-      { quantity: "referenceContribution", expected: 288.7e-6, source: "GUM 4.3.7, by hand [FORMULA]" }, // [FORMULA]
-      { quantity: "quantisationContribution", expected: 46.52e-6, source: "GUM F.2.2.1 (q/√12), by hand [FORMULA]" }, // [FORMULA]
-      { quantity: "relativeStandardUncertaintyPercent", expected: 0.788, source: "GUM 5.1.6, by hand [FORMULA]" }, // [FORMULA]
-      { quantity: "expandedUncertainty", expected: 7.880e-3, source: "GUM 6.2, k = 2, by hand [FORMULA]" }, // [FORMULA]
-      { quantity: "dominantContribution", expected: "shunt tolerance", source: "largest of the contributions above [FORMULA]" },
+      { quantity: "readingContribution", expected: 2.598e-3, source: "PHYSICS.md §9 9g [FORMULA: GUM 4.3.7, 5.1.2]" }, // [FORMULA]
+      { quantity: "shuntToleranceContribution", expected: 2.887e-3, source: "PHYSICS.md §9 9g [FORMULA: GUM 4.3.7]" }, // [FORMULA]
+      { quantity: "tempcoContribution", expected: 144.3e-6, source: "PHYSICS.md §9 9g [FORMULA: GUM 4.3.7, ΔR/R = αΔT]" }, // [FORMULA]
+      { quantity: "gainContribution", expected: 577.4e-6, source: "PHYSICS.md §9 9g [FORMULA: GUM 4.3.7]" }, // [FORMULA]
+      { quantity: "referenceContribution", expected: 288.7e-6, source: "PHYSICS.md §9 9g [FORMULA: GUM 4.3.7]" }, // [FORMULA]
+      { quantity: "quantisationContribution", expected: 46.52e-6, source: "PHYSICS.md §9 9g [FORMULA: GUM F.2.2.1, q/√12]" }, // [FORMULA]
+      { quantity: "relativeStandardUncertaintyPercent", expected: 0.788, source: "PHYSICS.md §9 9g [FORMULA]" }, // [FORMULA]
+      { quantity: "expandedUncertainty", expected: 7.880e-3, source: "PHYSICS.md §9 9g [FORMULA: GUM 6.2, k = 2]" }, // [FORMULA]
+      { quantity: "dominantContribution", expected: "shunt tolerance", source: "PHYSICS.md §9 9g [FORMULA]" },
     ],
   },
   {
@@ -380,12 +380,12 @@ export const examples = [
     template: "leakage-guard",
     params: { sourceVoltage: 10, insulationResistance: 1e11, measuredCurrent: 1e-9, biasCurrent: 5e-12, guardVoltage: 2e-3 },
     checks: [
-      { quantity: "leakageCurrent", expected: 100e-12, source: "Ohm's law, by hand [FORMULA]" }, // [FORMULA]
-      { quantity: "leakageErrorPercent", expected: 10, source: "by hand [FORMULA]" }, // [FORMULA]
-      { quantity: "biasErrorPercent", expected: 0.5, source: "by hand [FORMULA]" }, // [FORMULA]
-      { quantity: "unguardedErrorPercent", expected: 10.5, source: "by hand [FORMULA]" }, // [FORMULA]
-      { quantity: "guardedLeakage", expected: 20e-15, source: "Ohm's law, by hand [FORMULA]" }, // [FORMULA]
-      { quantity: "guardedErrorPercent", expected: 0.502, source: "by hand [FORMULA]" }, // [FORMULA]
+      { quantity: "leakageCurrent", expected: 100e-12, source: "PHYSICS.md §14 14b [FORMULA: Ohm's law]" }, // [FORMULA]
+      { quantity: "leakageErrorPercent", expected: 10, source: "PHYSICS.md §14 14b [FORMULA]" }, // [FORMULA]
+      { quantity: "biasErrorPercent", expected: 0.5, source: "PHYSICS.md §14 14b [FORMULA]" }, // [FORMULA]
+      { quantity: "unguardedErrorPercent", expected: 10.5, source: "PHYSICS.md §14 14b [FORMULA]" }, // [FORMULA]
+      { quantity: "guardedLeakage", expected: 20e-15, source: "PHYSICS.md §14 14b [FORMULA: Ohm's law]" }, // [FORMULA]
+      { quantity: "guardedErrorPercent", expected: 0.502, source: "PHYSICS.md §14 14b [FORMULA]" }, // [FORMULA]
     ],
   },
   {
@@ -393,7 +393,7 @@ export const examples = [
     kind: "template",
     template: "leakage-guard",
     params: { sourceVoltage: 5000, insulationResistance: 5e12, measuredCurrent: 100e-9, biasCurrent: 5e-12, guardVoltage: 1 },
-    checks: [{ quantity: "leakageCurrent", expected: 1e-9, source: "[PUB: insulation tester's user manual, 5 kV field ≈ 1 nA ≈ 5 TΩ]" }], // [PUB]
+    checks: [{ quantity: "leakageCurrent", expected: 1e-9, source: "PHYSICS.md §14 14a [PUB: insulation tester's user manual, 5 kV field ≈ 1 nA ≈ 5 TΩ]" }], // [PUB]
   },
 
   // ---- Lesson 13: offsets and thermoelectric voltages ----
@@ -403,12 +403,12 @@ export const examples = [
     template: "offset-thermal",
     params: { shuntResistance: 1e-3, current: 0.1, offsetVoltage: 10e-6, seebeckMicrovoltsPerKelvin: 5, junctionTemperatureDifference: 1 },
     checks: [
-      { quantity: "thermalEmf", expected: 5e-6, source: "[PUB: copper to tin-lead solder ≈ 5 µV/°C, thermoelectric table in a bench multimeter's measurement tutorial]" }, // [PUB]
-      { quantity: "apparentCurrent", expected: 15e-3, source: "Ohm's law, by hand [FORMULA]" }, // [FORMULA]
-      { quantity: "offsetErrorPercent", expected: 15, source: "by hand [FORMULA]" }, // [FORMULA]
-      { quantity: "forwardVoltage", expected: 115e-6, source: "by hand [FORMULA]" }, // [FORMULA]
-      { quantity: "reverseVoltage", expected: -85e-6, source: "by hand [FORMULA]" }, // [FORMULA]
-      { quantity: "reversedCurrent", expected: 100e-3, source: "by hand [FORMULA]" }, // [FORMULA]
+      { quantity: "thermalEmf", expected: 5e-6, source: "PHYSICS.md §15 [PUB: copper to tin-lead solder ≈ 5 µV/°C, thermoelectric table in a bench multimeter's measurement tutorial]" }, // [PUB]
+      { quantity: "apparentCurrent", expected: 15e-3, source: "PHYSICS.md §15 15c [FORMULA: Ohm's law]" }, // [FORMULA]
+      { quantity: "offsetErrorPercent", expected: 15, source: "PHYSICS.md §15 15c [FORMULA]" }, // [FORMULA]
+      { quantity: "forwardVoltage", expected: 115e-6, source: "PHYSICS.md §15 15c [FORMULA]" }, // [FORMULA]
+      { quantity: "reverseVoltage", expected: -85e-6, source: "PHYSICS.md §15 15c [FORMULA]" }, // [FORMULA]
+      { quantity: "reversedCurrent", expected: 100e-3, source: "PHYSICS.md §15 15c [FORMULA]" }, // [FORMULA]
     ],
   },
   {
@@ -416,7 +416,7 @@ export const examples = [
     kind: "template",
     template: "offset-thermal",
     params: { shuntResistance: 1e-3, current: 0.1, offsetVoltage: 0, seebeckMicrovoltsPerKelvin: 0.2, junctionTemperatureDifference: 5 },
-    checks: [{ quantity: "thermalEmf", expected: 1e-6, source: "[PUB: bench multimeter manual, copper to copper ≤ 0.2 µV/°C, several degrees → microvolts]" }], // [PUB]
+    checks: [{ quantity: "thermalEmf", expected: 1e-6, source: "PHYSICS.md §15 15a [PUB: bench multimeter manual, copper to copper ≤ 0.2 µV/°C]" }], // [PUB]
   },
 
   // ---- Lesson 14: sampling short bursts ----
@@ -426,11 +426,11 @@ export const examples = [
     template: "sampling-burst",
     params: { sampleRate: 1000, burstWidth: 5e-3, requiredSamples: 20, wakePeriod: 1.02, logRate: 1, activeCurrent: 20e-3, sleepCurrent: 2e-6 },
     checks: [
-      { quantity: "samplesPerBurst", expected: 5, source: "by hand [FORMULA]" }, // [FORMULA]
-      { quantity: "minimumSampleRate", expected: 4000, source: "by hand [FORMULA]" }, // [FORMULA]
-      { quantity: "apparentWakeFrequency", expected: 0.019608, source: "|1/1.02 − 1| Hz, by hand [FORMULA]" }, // [FORMULA]
-      { quantity: "worstCaseAverageError", expected: 19.606e-6, source: "by hand [FORMULA]" }, // [FORMULA]
-      { quantity: "worstCaseErrorPercent", expected: 19.6, source: "by hand [FORMULA]" }, // [FORMULA]
+      { quantity: "samplesPerBurst", expected: 5, source: "PHYSICS.md §16 16c [FORMULA]" }, // [FORMULA]
+      { quantity: "minimumSampleRate", expected: 4000, source: "PHYSICS.md §16 16c [FORMULA]" }, // [FORMULA]
+      { quantity: "apparentWakeFrequency", expected: 0.019608, source: "PHYSICS.md §16 16c [FORMULA]" }, // [FORMULA]
+      { quantity: "worstCaseAverageError", expected: 19.606e-6, source: "PHYSICS.md §16 16c [FORMULA]" }, // [FORMULA]
+      { quantity: "worstCaseErrorPercent", expected: 19.6, source: "PHYSICS.md §16 16c [FORMULA]" }, // [FORMULA]
     ],
   },
   {
@@ -438,7 +438,7 @@ export const examples = [
     kind: "template",
     template: "sampling-burst",
     params: { sampleRate: 100e3, burstWidth: 0.1e-3, requiredSamples: 5, wakePeriod: 1 / 3200, logRate: 1000, activeCurrent: 20e-3, sleepCurrent: 2e-6 },
-    checks: [{ quantity: "apparentWakeFrequency", expected: 200, source: "[PUB: signal-processing question-and-answer page, \"Alias frequency formula\": 3200 Hz sampled at 1000 Hz looks like 200 Hz]" }], // [PUB]
+    checks: [{ quantity: "apparentWakeFrequency", expected: 200, source: "PHYSICS.md §16 16a [PUB: signal-processing question-and-answer page, \"Alias frequency formula\": 3200 Hz sampled at 1000 Hz looks like 200 Hz]" }], // [PUB]
   },
 
   // ---- Teaching helpers that lib/grader has no template for (lib/lessons/teaching.ts) ----

@@ -1,6 +1,7 @@
 // Reference values of the three nanoamp/microvolt/sampling templates and of the uncertainty template's
 // whole chain. Check values are typed in from the source named beside each (or worked by hand from the
 // physical law named, "common practice"); mathjs evaluates the same laws with units as an outside oracle.
+// The same values, with their tags, are lib/grader/PHYSICS.md §9 9f–9h, §14, §15 and §16.
 import { describe, expect, it } from "vitest";
 import { create, all } from "mathjs";
 import { templates, gradeAttempt, defaultVariantSpec, drawVariant, isComputable } from "../../../lib/grader";
