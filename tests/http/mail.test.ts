@@ -74,6 +74,15 @@ describe("graded e-mail through the app's worker", () => {
   });
 });
 
+describe("the demo's messages", () => {
+  it("the seed's graded e-mails reach the mailbox once the app's worker runs", async () => {
+    const got = await mailFor("student.one@larkmoor-tech.example", (m) => m.length > 0);
+    expect(got.length).toBeGreaterThan(0);
+    expect(got[0].subject).toMatch(/^ELM-214: /);
+    expect(got[0].text).toMatch(/Score: [\d.]+ \/ [\d.]+ points/);
+  });
+});
+
 describe("held grades over HTTP", () => {
   it("students see 'graded, not yet released' and get no message until the instructor releases", async () => {
     const labId = await fixedLab();
