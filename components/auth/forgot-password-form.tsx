@@ -5,10 +5,12 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Field, FormMessage } from "@/components/ui/field";
+import { useHydrated } from "@/components/ui/use-hydrated";
 import { api, isApiError } from "@/lib/api-client";
 import { resetRequestSchema, type ResetRequestInput } from "@/lib/validation/mail";
 
 export function ForgotPasswordForm() {
+  const hydrated = useHydrated();
   const [done, setDone] = useState<string | null>(null);
   const [failure, setFailure] = useState<string | null>(null);
   const { register, handleSubmit, formState } = useForm<ResetRequestInput>({ resolver: zodResolver(resetRequestSchema) });
@@ -32,7 +34,7 @@ export function ForgotPasswordForm() {
     <form onSubmit={onSubmit} noValidate aria-label="Ask for a password link">
       <FormMessage message={failure} />
       <Field label="E-mail" type="email" autoComplete="email" error={formState.errors.email?.message} {...register("email")} />
-      <button type="submit" className="btn-primary w-full" disabled={formState.isSubmitting}>
+      <button type="submit" className="btn-primary w-full" disabled={formState.isSubmitting || !hydrated}>
         {formState.isSubmitting ? "Sending…" : "Send me a link"}
       </button>
     </form>

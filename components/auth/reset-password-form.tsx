@@ -5,10 +5,12 @@ import Link from "next/link";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Field, FormMessage } from "@/components/ui/field";
+import { useHydrated } from "@/components/ui/use-hydrated";
 import { api, isApiError } from "@/lib/api-client";
 import { resetConfirmSchema, type ResetConfirmInput } from "@/lib/validation/mail";
 
 export function ResetPasswordForm({ token }: { token: string }) {
+  const hydrated = useHydrated();
   const [done, setDone] = useState<string | null>(null);
   const [failure, setFailure] = useState<string | null>(null);
   const { register, handleSubmit, formState } = useForm<ResetConfirmInput>({ resolver: zodResolver(resetConfirmSchema), defaultValues: { token } });
@@ -39,7 +41,7 @@ export function ResetPasswordForm({ token }: { token: string }) {
       <input type="hidden" {...register("token")} />
       <Field label="New password" type="password" autoComplete="new-password" hint="At least 10 characters." error={formState.errors.password?.message} {...register("password")} />
       <Field label="New password again" type="password" autoComplete="new-password" error={formState.errors.confirm?.message} {...register("confirm")} />
-      <button type="submit" className="btn-primary w-full" disabled={formState.isSubmitting}>
+      <button type="submit" className="btn-primary w-full" disabled={formState.isSubmitting || !hydrated}>
         {formState.isSubmitting ? "Saving…" : "Save the new password"}
       </button>
     </form>

@@ -5,16 +5,20 @@ import { useMutation } from "@tanstack/react-query";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Field, FormMessage } from "@/components/ui/field";
+import { useHydrated } from "@/components/ui/use-hydrated";
 import { api, isApiError } from "@/lib/api-client";
 import { changePasswordSchema, type ChangePasswordInput, type PreferencesInput } from "@/lib/validation/mail";
 
 const failure = (e: unknown) => (isApiError(e) && e.status > 0 ? e.message : "The request did not reach the server. Try again.");
 
 export function GradeMailForm({ initial }: { initial: boolean }) {
+  const hydrated = useHydrated();
   const [on, setOn] = useState(initial);
   const save = useMutation({
     mutationFn: (body: PreferencesInput) => api<{ preferences: PreferencesInput }>("/api/me/preferences", { method: "PATCH", body }),
+    onMutate: (body) => setOn(body.gradeMail), // the box follows the click; a failure puts it back
     onSuccess: (r) => setOn(r.preferences.gradeMail),
+    onError: (_e, body) => setOn(!body.gradeMail),
   });
   return (
     <section aria-labelledby="mail-heading" className="card mt-6">
@@ -23,7 +27,7 @@ export function GradeMailForm({ initial }: { initial: boolean }) {
       </h2>
       <FormMessage message={save.isError ? failure(save.error) : null} />
       <label className="mt-3 flex items-start gap-3">
-        <input type="checkbox" className="mt-1 h-4 w-4" checked={on} disabled={save.isPending} onChange={(e) => save.mutate({ gradeMail: e.target.checked })} />
+        <input type="checkbox" className="mt-1 h-4 w-4" checked={on} disabled={save.isPending || !hydrated} onChange={(e) => save.mutate({ gradeMail: e.target.checked })} />
         <span>
           <span className="font-semibold">E-mail me when an attempt is graded</span>
           <span className="block text-sm text-ink-soft">
@@ -40,6 +44,7 @@ export function GradeMailForm({ initial }: { initial: boolean }) {
 }
 
 export function ChangePasswordForm() {
+  const hydrated = useHydrated();
   const { register, handleSubmit, formState, reset, setError } = useForm<ChangePasswordInput>({ resolver: zodResolver(changePasswordSchema) });
   const change = useMutation({
     mutationFn: (body: ChangePasswordInput) => api<{ message: string }>("/api/me/password", { method: "POST", body }),
@@ -63,7 +68,7 @@ export function ChangePasswordForm() {
         <Field label="Current password" type="password" autoComplete="current-password" error={formState.errors.currentPassword?.message} {...register("currentPassword")} />
         <Field label="New password" type="password" autoComplete="new-password" hint="At least 10 characters." error={formState.errors.newPassword?.message} {...register("newPassword")} />
         <Field label="New password again" type="password" autoComplete="new-password" error={formState.errors.confirm?.message} {...register("confirm")} />
-        <button type="submit" className="btn-primary" disabled={formState.isSubmitting}>
+        <button type="submit" className="btn-primary" disabled={formState.isSubmitting || !hydrated}>
           {formState.isSubmitting ? "Saving…" : "Change password"}
         </button>
       </form>

@@ -83,5 +83,5 @@ describe("password reset and settings in the browser", () => {
     await admin.page.goto("/admin/outbox");
     expect(await admin.page.getByRole("table", { name: "Messages per day" }).getByText(new Date().toISOString().slice(0, 10)).count()).toBe(1);
     await admin.page.screenshot({ path: path.join(shots, "outbox.png"), fullPage: true });
-  });
+  }, 180_000); // five sign-ins, each hashing a password on a busy machine
 });
