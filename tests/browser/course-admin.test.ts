@@ -1,6 +1,7 @@
 // Running a course in a real browser: the site admin creates a course for the demo instructor, who
-// publishes a lab and imports two students from a CSV; one of them signs in and finds the course home
-// with the lab that is due next.
+// publishes a lab and imports two students from a CSV (one with an account, one invited by e-mail); the
+// invited one follows the e-mailed link, chooses a password and finds the course home with the lab that
+// is due next.
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { demo, launch, newPage, signIn } from "./harness";
@@ -90,16 +91,40 @@ describe("a new course from creation to a student's course home", () => {
     await i.page.getByRole("cell", { name: invited.email }).waitFor();
     await i.context.close();
 
-    // 3. The student signs in and opens the course: the next lab due, with the time left.
+    // 3. The invited student's message arrives (queue, worker, local SMTP); its link sets a password.
+    const admin = await newPage(browser);
+    await signIn(admin.page, demo.admin);
+    let link = "";
+    await expect
+      .poll(
+        async () => {
+          const r = await admin.context.request.get(`/api/dev/mail?to=${encodeURIComponent(invited.email)}`);
+          const messages = r.ok() ? ((await r.json()).messages as { html: string }[]) : [];
+          // the message's button: <a href="http://…/reset-password/TOKEN">
+          link = /href="[^"]*?(\/reset-password\/[^"]+)"/.exec(messages[0]?.html ?? "")?.[1] ?? "";
+          return link;
+        },
+        { timeout: 40_000, interval: 1000 },
+      )
+      .not.toBe("");
+    await admin.context.close();
+
     const j = await newPage(browser);
-    await signIn(j.page, joining.email, joining.password);
+    await j.page.goto(link);
+    await j.page.getByLabel("New password", { exact: true }).fill(joining.password);
+    await j.page.getByLabel("New password again").fill(joining.password);
+    await j.page.getByRole("button", { name: "Save the new password" }).click();
+    await j.page.getByRole("status").getByRole("link", { name: "Sign in" }).waitFor();
+
+    // 4. The student signs in and opens the course: the next lab due, with the time left.
+    await signIn(j.page, invited.email, joining.password);
     await j.page.getByRole("link", { name: title }).click();
     await j.page.waitForURL(courseUrl);
     const next = j.page.getByRole("region", { name: "Next lab due" });
     await next.waitFor();
     expect(await next.getByRole("link", { name: "Burden on the bench" }).count()).toBe(1);
     expect(await next.textContent()).toMatch(/3 days( 0 hours| 1 hour)? left/);
-    expect(await j.page.getByText(/Your section: B1/).count()).toBe(1);
+    expect(await j.page.getByText(/Your section: B2/).count()).toBe(1);
     await j.page.screenshot({ path: "tests/.artifacts/course-home-student.png", fullPage: true });
     await j.context.close();
   });
