@@ -40,6 +40,18 @@ describe("where each demo login lands", () => {
     await page.getByRole("region", { name: "Drafts to finish" }).getByRole("link").first().waitFor();
     expect(await page.getByRole("region", { name: "Join code" }).textContent()).toContain("LARK-214");
     await page.screenshot({ path: "tests/.artifacts/course-home-instructor.png", fullPage: true });
+    // the bench parts list of a lab whose circuits have resistors, from the lab's page
+    const courseId = new URL(page.url()).pathname.split("/")[2];
+    const labs = (await (await page.context().request.get(`/api/courses/${courseId}/labs`)).json()).labs as { id: string; templateKey: string; status: string }[];
+    const withResistors = labs.find((l) => l.status === "published" && l.templateKey === "shunt-burden")!;
+    await page.goto(`/labs/${withResistors.id}`);
+    await page.getByRole("link", { name: "Bench parts list" }).click();
+    await page.waitForURL(/\/parts$/);
+    const parts = page.getByRole("table", { name: "Resistors per value and per section" });
+    await parts.waitFor();
+    expect(await parts.getByRole("row").count()).toBeGreaterThan(1);
+    await page.getByRole("link", { name: "Download CSV" }).waitFor();
+    await page.screenshot({ path: "tests/.artifacts/parts-list.png", fullPage: true });
     await done();
   });
 
