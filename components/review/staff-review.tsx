@@ -8,6 +8,7 @@ import { useForm } from "react-hook-form";
 import type { z } from "zod";
 import { FormMessage } from "@/components/ui/field";
 import { api, isApiError } from "@/lib/api-client";
+import { formatQuantity, templates, type TemplateKey } from "@/lib/grader";
 import { questionRegradeSchema, reviewAnswerSchema, rerunSchema } from "@/lib/validation/reviews";
 import { utcDate } from "@/lib/dates";
 import type { AttemptView } from "../labs/feedback/types";
@@ -55,22 +56,28 @@ export function StaffReview({ attempt }: { attempt: AttemptView }) {
 }
 
 function CircuitValues({ attempt }: { attempt: AttemptView }) {
+  const specs = templates[attempt.templateKey as TemplateKey]?.parameters ?? [];
   const params = Object.entries((attempt.params ?? {}) as Record<string, unknown>);
+  const label = (k: string) => specs.find((p) => p.key === k)?.label ?? k;
+  const shown = (k: string, v: unknown) => {
+    const unit = specs.find((p) => p.key === k)?.unit;
+    return typeof v === "number" ? (unit ? formatQuantity(v, unit) : String(Number(v.toPrecision(6)))) : String(v);
+  };
   const measured = Object.entries(attempt.typed.measured).filter(([, v]) => v && v.trim());
   return (
     <div className="mt-4 text-sm">
-      <h3 className="text-lg">The student&apos;s circuit</h3>
+      <h3 className="text-lg">The student&apos;s circuit values</h3>
       <dl className="mt-1 grid grid-cols-[auto_1fr] gap-x-4 gap-y-0.5" data-testid="circuit-values">
         {params.map(([k, v]) => (
           <div key={k} className="contents">
-            <dt className="text-ink-soft">{k}</dt>
-            <dd className="m-0 tabular-nums">{typeof v === "number" ? Number(v.toPrecision(6)) : String(v)}</dd>
+            <dt className="text-ink-soft">{label(k)}</dt>
+            <dd className="m-0 tabular-nums">{shown(k, v)}</dd>
           </div>
         ))}
       </dl>
       <p className="mt-2">
         {measured.length ? (
-          <>Measured component values: {measured.map(([k, v]) => `${k} = ${v}`).join(", ")}.</>
+          <>Measured component values (used instead of the nominal ones): {measured.map(([k, v]) => `${label(k)} ${v}`).join(", ")}.</>
         ) : (
           <span className="text-ink-soft">No measured component values were entered; the nominal values were used.</span>
         )}

@@ -22,11 +22,11 @@ export interface PresentedResult {
   solution?: string[];
   traceNote?: string;
   /** points set by staff over the grader's, with their reason */
-  override?: { points: number; graderPoints: number; reason: string; at: string };
+  override?: { points: number; graderPoints: number; reason: string; at: string; keptAt?: string };
 }
 
 export interface StoredResult extends GradeResult {
-  results: (QuestionResult & { id?: string; traceNote?: string; graderPoints?: number; override?: { points: number; reason: string; at: string } })[];
+  results: (QuestionResult & { id?: string; traceNote?: string; graderPoints?: number; override?: { points: number; reason: string; at: string; keptAt?: string } })[];
 }
 
 /** Feedback that does not give the answer away, for labs that hide expected values. */
@@ -70,7 +70,7 @@ export function presentResults(templateKey: TemplateKey, stored: StoredResult, s
       mistake: m && r.mistake ? { key: r.mistake, ...m } : undefined,
       feedback: showExpected ? r.feedback : guardedFeedback(r),
       traceNote: r.traceNote,
-      override: r.override ? { points: r.override.points, graderPoints: r.graderPoints ?? r.points, reason: r.override.reason, at: r.override.at } : undefined,
+      override: r.override ? { points: r.override.points, graderPoints: r.graderPoints ?? r.points, reason: r.override.reason, at: r.override.at, keptAt: r.override.keptAt } : undefined,
     };
     if (showExpected) {
       base.method = r.method;

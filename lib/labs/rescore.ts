@@ -47,6 +47,9 @@ export async function recomputeAttempt(
   const known = new Set(graded.results.map((r) => r.id));
   const kept: Overrides = how.kind === "recomputed" ? Object.fromEntries(Object.entries(a.overrides ?? {}).filter(([q]) => known.has(q))) : {};
   const { result, rawScore, applied } = applyOverrides({ ...graded, params: stored.params }, kept);
+  // the review page says when a recomputation kept the staff's points
+  const keptAt = new Date().toISOString();
+  for (const r of result.results) if (r.override) r.override.keptAt = keptAt;
   const score = applyPenalty(rawScore, a.penaltyPercent);
   await updateAttemptGrade(trx, a.id, {
     result,

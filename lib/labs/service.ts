@@ -137,6 +137,7 @@ export function presentAttempt(attempt: AttemptRow, lab: Lab, viewerIsStaff: boo
     id: attempt.id,
     labId: attempt.labId,
     labTitle: lab.title,
+    templateKey: lab.templateKey,
     number: attempt.number,
     status: "graded" as const,
     submittedAt: attempt.submittedAt,

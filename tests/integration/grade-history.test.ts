@@ -138,7 +138,7 @@ describe("a staff override", () => {
     expect(events[2]).toMatchObject({ actorId: null, scoreBefore: 9.5, scoreAfter: 10.5 });
     expect(events[2].reason).toMatch(/Kept the staff's points on question 2/);
     const q2 = (a.result as { results: { id: string; points: number; graderPoints?: number }[] }).results.find((r) => r.id === "q2")!;
-    expect(q2).toMatchObject({ points: 2.5, graderPoints: 0 });
+    expect(q2).toMatchObject({ points: 2.5, graderPoints: 0, override: { points: 2.5, keptAt: expect.any(String) } });
   });
 
   it("refuses points above the question's maximum or off the half steps, naming the field", async () => {

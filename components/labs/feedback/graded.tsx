@@ -87,6 +87,7 @@ function ResultCard({ r, index, typed, solutionHtml }: { r: Result; index: numbe
       {r.override ? (
         <p className="mt-3 rounded-md border border-copper/40 bg-copper/5 p-3 text-sm" data-testid="override">
           <span className="font-semibold">Points set by the course staff: {points(r.override.points)}</span> (the grader gave {points(r.override.graderPoints)}). Reason: {r.override.reason}
+          {r.override.keptAt ? ` Kept when the lab was changed and this attempt graded again (${utcDate(r.override.keptAt)}).` : null}
         </p>
       ) : null}
       {r.mistake ? (
