@@ -126,6 +126,14 @@ describe("GET /api/courses/{courseId}/gradebook", () => {
     expect(page.status).toBe(403);
     const ta = await as.ta.fetch(`/courses/${f.courseId}/gradebook`);
     expect(ta.status).toBe(200);
+    // a row's link: one student's counted scores, for the staff only
+    const row = await as.ta.fetch(`/courses/${f.courseId}/gradebook/students/${f.people.student.id}`);
+    expect(row.status).toBe(200);
+    const html = await row.text();
+    expect(html).toContain("Counted scores");
+    expect(html).toContain(`/attempts/${attemptIds[1]}`);
+    expect((await as.student.fetch(`/courses/${f.courseId}/gradebook/students/${f.people.student.id}`)).status).toBe(403);
+    expect((await as.outsider.fetch(`/courses/${f.courseId}/gradebook`)).status).toBe(404);
   });
 });
 
