@@ -75,6 +75,23 @@ describe("graded e-mail", () => {
     expect(sent?.messageId).toBe(m.messageId);
   });
 
+  it("after the last retry the message is marked failed with the SMTP error, for the admin outbox", async () => {
+    const port = await freePort(); // nothing listens there
+    const { lab, students, access } = await smallCourse(db);
+    workerId = await startMailWorker(await boss(), { transport: transport(`smtp://127.0.0.1:${port}`), pollingIntervalSeconds: 0.5 });
+    process.env.SHUNTWISE_MAIL_RETRY_LIMIT = "1";
+    try {
+      const { attemptId } = await submitAttempt(lab, access(students[0]), { idempotencyKey: "k-f", readings: READINGS, measured: {}, uploadIds: [] });
+      const row = await until(() => findOutboxByKey(db, `graded:${attemptId}`), (r) => r?.status === "failed", 25_000);
+      expect(row?.status).toBe("failed");
+      expect(row?.tries).toBe(2); // the first try and one retry
+      expect(row?.lastError).toMatch(/ECONNREFUSED|connect/i);
+      expect(row?.failedAt).toBeInstanceOf(Date);
+    } finally {
+      delete process.env.SHUNTWISE_MAIL_RETRY_LIMIT;
+    }
+  });
+
   it("sends one message when the same job runs twice, one after the other or at the same time", async () => {
     const port = await freePort();
     const smtp = await startCatcher(port);
