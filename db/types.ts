@@ -68,6 +68,8 @@ export interface LabsTable {
   counting: Generated<Counting>;
   opens_at: Timestamp | null;
   due_at: Timestamp | null;
+  /** late attempts accepted until then; null: the default close (lib/labs/policy.ts closeOf) */
+  closes_at: Timestamp | null;
   late_penalty_percent_per_day: Generated<number>;
   late_floor_percent: Generated<number>;
   show_expected: Generated<ShowExpected>;

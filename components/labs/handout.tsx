@@ -7,6 +7,7 @@ import ReactMarkdown, { type Components } from "react-markdown";
 import type { handoutFromParams } from "@/lib/labs/handout";
 import { CircuitDiagram } from "@/components/lesson/diagrams";
 import { Caution } from "@/components/lesson/Caution";
+import { expectedWhenText } from "@/lib/labs/policy";
 
 export type HandoutData = ReturnType<typeof handoutFromParams>;
 
@@ -79,11 +80,11 @@ function formatDate(d: Date | string | null | undefined, timeZone?: string): str
   return new Intl.DateTimeFormat("en-GB", { weekday: "long", day: "numeric", month: "long", year: "numeric", hour: "2-digit", minute: "2-digit", timeZone, timeZoneName: "short" }).format(date);
 }
 
-const SHOW_EXPECTED: Record<string, string> = {
-  after_attempt: "after each attempt",
-  after_due: "after the due date",
-  never: "not shown; you see your verdicts and feedback",
-};
+function asDate(d: Date | string | null | undefined): Date | null {
+  if (!d) return null;
+  const date = d instanceof Date ? d : new Date(d);
+  return Number.isNaN(date.getTime()) ? null : date;
+}
 
 function plural(n: number, one: string, many = `${one}s`): string {
   return `${n} ${n === 1 ? one : many}`;
@@ -95,6 +96,12 @@ export function Handout({ handout, headingLevel = 1, timeZone }: HandoutProps) {
   const Section = headingLevel === 1 ? "h2" : "h3";
   const opens = formatDate(lab.opensAt, timeZone);
   const due = formatDate(lab.dueAt, timeZone);
+  // labPublic gives the effective close (the explicit one or the default)
+  const closes = formatDate(lab.closesAt, timeZone);
+  const expectedWhen = expectedWhenText(
+    { ...lab, dueAt: asDate(lab.dueAt), closesAt: asDate(lab.closesAt) },
+    (d) => formatDate(d, timeZone) ?? "",
+  );
   const totalPoints = questions.reduce((s, q) => s + q.points, 0);
   const idBase = `handout-${lab.id}`;
   return (
@@ -127,9 +134,19 @@ export function Handout({ handout, headingLevel = 1, timeZone }: HandoutProps) {
                 : "no penalty"}
             </dd>
           </div>
+          <div className="sm:col-span-2 print:col-span-2" data-testid="handout-closes">
+            <dt className="inline font-medium">Closes: </dt>
+            <dd className="inline">
+              {closes
+                ? lab.dueAt && asDate(lab.closesAt)!.getTime() > asDate(lab.dueAt)!.getTime()
+                  ? `${closes}; late attempts are accepted until then, none after`
+                  : `${closes}; no attempt is accepted after it`
+                : "no close date: attempts are accepted while you have attempts left"}
+            </dd>
+          </div>
           <div className="sm:col-span-2 print:col-span-2">
             <dt className="inline font-medium">Expected values: </dt>
-            <dd className="inline">{SHOW_EXPECTED[lab.showExpected] ?? lab.showExpected}</dd>
+            <dd className="inline">{expectedWhen}</dd>
           </div>
         </dl>
       </header>

@@ -17,6 +17,7 @@ const LAB_COLUMNS = [
   "counting",
   "opens_at as opensAt",
   "due_at as dueAt",
+  "closes_at as closesAt",
   "late_penalty_percent_per_day as latePenaltyPercentPerDay",
   "late_floor_percent as lateFloorPercent",
   "show_expected as showExpected",
@@ -51,6 +52,7 @@ export interface LabWrite {
   counting: "best" | "last";
   opensAt: Date | null;
   dueAt: Date | null;
+  closesAt?: Date | null;
   latePenaltyPercentPerDay: number;
   lateFloorPercent: number;
   showExpected: "after_attempt" | "after_due" | "never";
@@ -69,6 +71,7 @@ function columns(l: Partial<LabWrite>) {
   if (l.counting !== undefined) out.counting = l.counting;
   if (l.opensAt !== undefined) out.opens_at = l.opensAt;
   if (l.dueAt !== undefined) out.due_at = l.dueAt;
+  if (l.closesAt !== undefined) out.closes_at = l.closesAt;
   if (l.latePenaltyPercentPerDay !== undefined) out.late_penalty_percent_per_day = l.latePenaltyPercentPerDay;
   if (l.lateFloorPercent !== undefined) out.late_floor_percent = l.lateFloorPercent;
   if (l.showExpected !== undefined) out.show_expected = l.showExpected;

@@ -49,6 +49,7 @@ export function labAsInput(lab: Lab) {
     counting: lab.counting,
     opensAt: lab.opensAt ? lab.opensAt.toISOString() : null,
     dueAt: lab.dueAt ? lab.dueAt.toISOString() : null,
+    closesAt: lab.closesAt ? lab.closesAt.toISOString() : null,
     latePenaltyPercentPerDay: lab.latePenaltyPercentPerDay,
     lateFloorPercent: lab.lateFloorPercent,
     showExpected: lab.showExpected,

@@ -47,6 +47,7 @@ export function toLab(row: LabRow): Lab {
     policy: row.policy as GradePolicy,
     opensAt: row.opensAt ? new Date(row.opensAt) : null,
     dueAt: row.dueAt ? new Date(row.dueAt) : null,
+    closesAt: row.closesAt ? new Date(row.closesAt) : null,
     publishedAt: row.publishedAt ? new Date(row.publishedAt) : null,
   };
 }

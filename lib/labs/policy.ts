@@ -9,6 +9,8 @@ export interface LabRules {
   lateFloorPercent: number;
   counting: "best" | "last";
   showExpected: "after_attempt" | "after_due" | "never";
+  /** The explicit close (late attempts accepted until then); null: the default close, see `closeOf`. */
+  closesAt: Date | null;
 }
 
 const DAY = 24 * 3600 * 1000;
@@ -44,9 +46,58 @@ export function isOpen(rules: Pick<LabRules, "opensAt">, now: Date): boolean {
   return !rules.opensAt || rules.opensAt.getTime() <= now.getTime();
 }
 
-/** Whether a student may see expected values, bands and worked solutions now. */
-export function expectedVisible(rules: Pick<LabRules, "showExpected" | "dueAt">, now: Date): boolean {
-  if (rules.showExpected === "after_attempt") return true;
+/**
+ * Days after the due date until the late penalty reaches its floor (the score can fall no further):
+ * 0 without a penalty, so that by default a lab without a late penalty takes no late attempts.
+ */
+export function daysToFloor(rules: Pick<LabRules, "latePenaltyPercentPerDay" | "lateFloorPercent">): number {
+  if (!(rules.latePenaltyPercentPerDay > 0)) return 0;
+  return Math.max(0, Math.ceil((100 - rules.lateFloorPercent) / rules.latePenaltyPercentPerDay));
+}
+
+/** The default close: the due date plus the days the late penalty takes to reach its floor. */
+export function defaultClose(rules: Pick<LabRules, "dueAt" | "latePenaltyPercentPerDay" | "lateFloorPercent">): Date | null {
+  if (!rules.dueAt) return null;
+  return new Date(rules.dueAt.getTime() + daysToFloor(rules) * DAY);
+}
+
+/** When the lab stops accepting attempts: the explicit close, else the default one; null never closes. */
+export function closeOf(rules: Pick<LabRules, "closesAt" | "dueAt" | "latePenaltyPercentPerDay" | "lateFloorPercent">): Date | null {
+  return rules.closesAt ?? defaultClose(rules);
+}
+
+/** Whether the lab has closed: no attempt is accepted any more. */
+export function isClosed(rules: Pick<LabRules, "closesAt" | "dueAt" | "latePenaltyPercentPerDay" | "lateFloorPercent">, now: Date): boolean {
+  const close = closeOf(rules);
+  return close !== null && now.getTime() > close.getTime();
+}
+
+type ExpectedRules = Pick<LabRules, "showExpected" | "dueAt" | "closesAt" | "attemptsAllowed" | "latePenaltyPercentPerDay" | "lateFloorPercent">;
+
+/** Whether a student with `attemptsUsed` attempts can still earn points: attempts left and the lab not closed. */
+export function canStillEarn(rules: Omit<ExpectedRules, "showExpected">, attemptsUsed: number, now: Date): boolean {
+  return attemptsUsed < rules.attemptsAllowed && !isClosed(rules, now);
+}
+
+/**
+ * Whether a student may see expected values, bands and worked solutions now. The one rule: never while
+ * they can still earn points (attempts left and the lab still accepting attempts), whatever the lab's
+ * setting; after that, as the setting says ("after the due date" also waits for the due date). Staff
+ * always see them; callers decide that before asking.
+ */
+export function expectedVisible(rules: ExpectedRules, attemptsUsed: number, now: Date): boolean {
   if (rules.showExpected === "never") return false;
-  return !rules.dueAt || now.getTime() > rules.dueAt.getTime();
+  if (canStillEarn(rules, attemptsUsed, now)) return false;
+  if (rules.showExpected === "after_due") return !rules.dueAt || now.getTime() > rules.dueAt.getTime();
+  return true;
+}
+
+/** When a student will see expected values, in words, for the builder and the handout. */
+export function expectedWhenText(rules: ExpectedRules, formatDate: (d: Date) => string): string {
+  if (rules.showExpected === "never") return "Never shown to students; they see their verdicts and feedback.";
+  const close = closeOf(rules);
+  const all = `all ${rules.attemptsAllowed} attempt${rules.attemptsAllowed === 1 ? " is" : "s are"} used`;
+  const when = close ? `once ${all} or the lab closes (${formatDate(close)}), whichever comes first` : `once ${all} (the lab has no close date)`;
+  const due = rules.showExpected === "after_due" && rules.dueAt ? `, and not before the due date (${formatDate(rules.dueAt)})` : "";
+  return `Expected values, bands and worked solutions appear ${when}${due}: never while points can still be earned.`;
 }

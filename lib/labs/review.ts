@@ -15,7 +15,7 @@ import { parseRegrade, reviewAnswerSchema, reviewQuerySchema } from "@/lib/valid
 import { invalid, parseOr400 } from "@/lib/validation/zod-errors";
 import type { Lab, StoredTrace } from "./grading";
 import { answerReviewRequest, overrideQuestion, recomputeAttempt } from "./rescore";
-import { attemptAccess, presentAttempt } from "./service";
+import { attemptAccess, attemptsUsed, presentAttempt } from "./service";
 
 /** The course's review requests for its staff (students 403, outsiders 404). */
 export async function reviewQueue(courseId: string, search: URLSearchParams) {
@@ -66,7 +66,7 @@ export async function regradeAttempt(attemptId: string, readBody: () => Promise<
     await queueGradeMail(trx, { attemptId: attempt.id, eventKey: `${kind}:${r.eventId}`, kind, change: { scoreBefore: r.scoreBefore, reason: input.reason, by: access.user.name } });
   });
   const after = (await findAttempt(db, attempt.id))!;
-  return presentAttempt(after, lab, true);
+  return presentAttempt(after, lab, true, await attemptsUsed(after));
 }
 
 /** The staff's answer to the student's review request; it closes the request. */

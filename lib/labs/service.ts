@@ -21,7 +21,7 @@ import { AppError, notFound } from "@/lib/errors";
 import { queueGradeMail } from "@/lib/mail/grade";
 import { drawVariant, type Params } from "@/lib/grader";
 import { attemptRecord, gradeForLab, parseMeasured, toLab, withIds, type Lab, type StoredTrace } from "./grading";
-import { expectedVisible, isOpen } from "./policy";
+import { closeOf, expectedVisible, isClosed, isOpen } from "./policy";
 import { reviewIsOpen } from "./overrides";
 import { presentResults, type StoredResult } from "./present";
 
@@ -90,6 +90,7 @@ export async function submitAttempt(lab: Lab, access: CourseAccess, input: Submi
     const previous = await findAttemptByKey(trx, lab.id, userId, input.idempotencyKey);
     if (previous) return { attemptId: previous.id, created: false };
     if (!isOpen(lab, now)) throw new AppError("conflict", `This lab opens on ${lab.opensAt!.toISOString().slice(0, 16).replace("T", " ")} UTC.`);
+    if (isClosed(lab, now)) throw new AppError("conflict", `This lab closed on ${closeOf(lab)!.toISOString().slice(0, 16).replace("T", " ")} UTC and accepts no more attempts.`);
     const used = await countAttempts(trx, lab.id, userId);
     if (used >= lab.attemptsAllowed) {
       throw new AppError("conflict", `You have used all ${lab.attemptsAllowed} attempt${lab.attemptsAllowed === 1 ? "" : "s"} of this lab.`);
@@ -130,8 +131,18 @@ export async function attemptAccess(attemptId: string) {
   return { attempt, lab, access };
 }
 
-export function presentAttempt(attempt: AttemptRow, lab: Lab, viewerIsStaff: boolean, now = new Date()) {
-  const show = viewerIsStaff || expectedVisible(lab, now);
+/** How many attempts the attempt's student has made at its lab (the rule for expected values needs it). */
+export async function attemptsUsed(attempt: Pick<AttemptRow, "labId" | "userId">): Promise<number> {
+  return countAttempts(db, attempt.labId, attempt.userId);
+}
+
+/**
+ * An attempt as its viewer may see it. Expected values, bands and worked solutions reach a student only
+ * when `expectedVisible` allows it (never while they can still earn points); staff always see them.
+ * `studentAttempts` is how many attempts the attempt's student has made at this lab.
+ */
+export function presentAttempt(attempt: AttemptRow, lab: Lab, viewerIsStaff: boolean, studentAttempts: number, now = new Date()) {
+  const show = viewerIsStaff || expectedVisible(lab, studentAttempts, now);
   const stored = attempt.result as StoredResult & { params?: Params };
   return {
     id: attempt.id,
@@ -173,14 +184,16 @@ export function heldAttempt(attempt: { id: string; labId: string; number: number
 }
 
 /** The attempt as this viewer may see it now: held grades hide the result from students. */
-export function viewAttempt(attempt: AttemptRow, lab: Lab, viewerIsStaff: boolean, now = new Date()) {
-  return !viewerIsStaff && lab.gradesHeld ? heldAttempt(attempt, lab) : presentAttempt(attempt, lab, viewerIsStaff, now);
+export function viewAttempt(attempt: AttemptRow, lab: Lab, viewerIsStaff: boolean, studentAttempts: number, now = new Date()) {
+  return !viewerIsStaff && lab.gradesHeld ? heldAttempt(attempt, lab) : presentAttempt(attempt, lab, viewerIsStaff, studentAttempts, now);
 }
 
 /** A student's own attempts; for staff every attempt, or one student's when `studentId` is given. */
 export async function attemptsFor(lab: Lab, access: CourseAccess, now = new Date(), studentId?: string) {
   const staff = isStaff(access.role);
   const rows = await listAttempts(db, lab.id, staff ? studentId : access.user.id);
-  return rows.map((r) => ({ ...presentAttempt(r, lab, staff, now), studentId: r.userId, studentName: r.studentName }));
+  const counts = new Map<string, number>();
+  for (const r of rows) counts.set(r.userId, (counts.get(r.userId) ?? 0) + 1);
+  return rows.map((r) => ({ ...presentAttempt(r, lab, staff, counts.get(r.userId)!, now), studentId: r.userId, studentName: r.studentName }));
 }
 

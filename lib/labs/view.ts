@@ -1,5 +1,6 @@
 // JSON views of a lab for the API: a summary for lists, the full definition for staff.
 import type { Lab } from "./grading";
+import { closeOf } from "./policy";
 
 export function labSummary(lab: Lab) {
   return {
@@ -10,6 +11,8 @@ export function labSummary(lab: Lab) {
     status: lab.status,
     opensAt: lab.opensAt,
     dueAt: lab.dueAt,
+    /** when the lab stops accepting attempts (the explicit close or the default one); null: never */
+    closesAt: closeOf(lab),
     attemptsAllowed: lab.attemptsAllowed,
     counting: lab.counting,
     version: lab.version,
@@ -30,5 +33,5 @@ export function labPublic(lab: Lab) {
 }
 
 export function labFull(lab: Lab) {
-  return { ...labPublic(lab), questions: lab.questions, spec: lab.spec, policy: lab.policy, publishedAt: lab.publishedAt, updatedAt: lab.updatedAt };
+  return { ...labPublic(lab), closesAtSet: lab.closesAt, questions: lab.questions, spec: lab.spec, policy: lab.policy, publishedAt: lab.publishedAt, updatedAt: lab.updatedAt };
 }

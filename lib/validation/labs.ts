@@ -19,6 +19,8 @@ export const labFields = {
   counting: z.enum(["best", "last"], { error: "Choose best or last attempt." }),
   opensAt: isoDate,
   dueAt: isoDate,
+  /** late attempts accepted until then; empty: the due date plus the days the late penalty takes to reach its floor */
+  closesAt: isoDate.optional().transform((d) => d ?? null),
   latePenaltyPercentPerDay: z.number({ error: "Enter a number." }).min(0, "Use 0 or more.").max(100, "Use at most 100."),
   lateFloorPercent: z.number({ error: "Enter a number." }).min(0, "Use 0 or more.").max(100, "Use at most 100."),
   showExpected: z.enum(["after_attempt", "after_due", "never"], { error: "Choose when expected values are shown." }),
@@ -26,7 +28,7 @@ export const labFields = {
   safetyNotes: z.string().max(5_000, "Use at most 5,000 characters.").default(""),
 };
 
-function checkLab(lab: { templateKey: TemplateKey; spec: { template: string; parameters: Record<string, unknown> }; questions: { quantity: string }[]; opensAt: Date | null; dueAt: Date | null }, ctx: z.RefinementCtx) {
+function checkLab(lab: { templateKey: TemplateKey; spec: { template: string; parameters: Record<string, unknown> }; questions: { quantity: string }[]; opensAt: Date | null; dueAt: Date | null; closesAt?: Date | null }, ctx: z.RefinementCtx) {
   if (lab.spec.template !== lab.templateKey) {
     ctx.addIssue({ code: "custom", path: ["spec", "template"], message: "The parameter spec belongs to another template." });
   }
@@ -50,6 +52,15 @@ function checkLab(lab: { templateKey: TemplateKey; spec: { template: string; par
   }
   if (lab.opensAt && lab.dueAt && lab.dueAt <= lab.opensAt) {
     ctx.addIssue({ code: "custom", path: ["dueAt"], message: "The due date must come after the opening date." });
+  }
+  if (lab.closesAt && lab.dueAt && lab.closesAt < lab.dueAt) {
+    ctx.addIssue({ code: "custom", path: ["closesAt"], message: "The lab cannot close before its due date." });
+  }
+  if (lab.closesAt && !lab.dueAt) {
+    ctx.addIssue({ code: "custom", path: ["closesAt"], message: "Set a due date first: the close is when late attempts stop." });
+  }
+  if (lab.closesAt && lab.opensAt && lab.closesAt <= lab.opensAt) {
+    ctx.addIssue({ code: "custom", path: ["closesAt"], message: "The lab must close after it opens." });
   }
 }
 

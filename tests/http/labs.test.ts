@@ -175,7 +175,8 @@ describe("submitting attempts", () => {
     expect(r.body.attempt.score).toBe(4);
     expect(r.body.attempt.maxScore).toBe(10);
     expect(r.body.attempt.graderVersion).toMatch(/^\d+\.\d+\.\d+$/);
-    expect(byQ.indicatedCurrent.expected).toBeCloseTo(e.indicated, 12);
+    const staff = await as.ta.json(`/api/attempts/${r.body.attempt.id}`);
+    expect(staff.body.attempt.results[0].expected).toBeCloseTo(e.indicated, 12);
   });
 
   it("gives partial credit to a close answer and none to a wrong one; a missing answer is missing", async () => {
@@ -263,8 +264,9 @@ describe("submitting attempts", () => {
       measured: { shuntResistance: `${shunt} ohm` },
     });
     expect(r.status).toBe(201);
-    const res = r.body.attempt.results.find((x: { quantity: string }) => x.quantity === "burdenVoltage");
-    expect(res.verdict).toBe("correct");
+    expect(r.body.attempt.results.find((x: { quantity: string }) => x.quantity === "burdenVoltage").verdict).toBe("correct");
+    const staff = await as.ta.json(`/api/attempts/${r.body.attempt.id}`);
+    const res = staff.body.attempt.results.find((x: { quantity: string }) => x.quantity === "burdenVoltage");
     expect(res.expected).toBeCloseTo(burden, 9);
   });
 });
@@ -312,6 +314,122 @@ describe("who can read attempts", () => {
     expect(ok.status).toBe(201);
     const after = await as.student.json(`/api/attempts/${a.body.attempt.id}`);
     expect(after.body.attempt.reviewMessage).toBe("My shunt measured 4 % high.");
+  });
+});
+
+describe("no expected value, band or solution while points can still be earned", () => {
+  const patch = (id: string, body: unknown) =>
+    as.instructor.json(`/api/labs/${id}`, { method: "PATCH", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
+
+  /** Asserts what a student's views of an attempt reveal: the POST answer, GET one, GET the list and the feedback page. */
+  async function studentSees(c: Client, labId: string, attemptId: string, shown: boolean, indicated: number) {
+    const one = await c.json(`/api/attempts/${attemptId}`);
+    const list = await c.json(`/api/labs/${labId}/attempts`);
+    const fromList = list.body.attempts.find((a: { id: string }) => a.id === attemptId);
+    for (const a of [one.body.attempt, fromList]) {
+      expect(a.expectedShown).toBe(shown);
+      for (const r of a.results) {
+        if (shown) {
+          expect(r.expected).toBeDefined();
+          expect(r.band === null || Array.isArray(r.band)).toBe(true);
+          expect(r.solution?.length).toBeGreaterThan(0);
+        } else {
+          expect(r.expected).toBeUndefined();
+          expect(r.band).toBeUndefined();
+          expect(r.solution).toBeUndefined();
+          expect(r.method).toBeUndefined();
+        }
+      }
+    }
+    const indicatedResult = one.body.attempt.results.find((r: { quantity: string }) => r.quantity === "indicatedCurrent");
+    if (shown) expect(indicatedResult.expected).toBeCloseTo(indicated, 12);
+    // the feedback page: worked solutions are typeset on the server only when they may be shown
+    const page = await c.fetch(`/attempts/${attemptId}`);
+    expect(page.status).toBe(200);
+    const html = await page.text();
+    if (shown) expect(html).toContain("katex");
+    else expect(html).not.toContain("katex");
+  }
+
+  it("after each attempt: hidden while attempts are left, shown with the last one; staff always see them", async () => {
+    const id = await publishedLab({ showExpected: "after_attempt", attemptsAllowed: 2 });
+    const e = await expectedFor(as.student, id);
+    const q = Object.fromEntries(e.questions.map((x) => [x.quantity, x.id]));
+    const first = await as.student.post(`/api/labs/${id}/attempts`, { idempotencyKey: key(), readings: { [q.indicatedCurrent]: `${e.indicated * 2} A` } });
+    expect(first.status).toBe(201);
+    expect(first.body.attempt.expectedShown).toBe(false);
+    expect(first.body.attempt.results[0].expected).toBeUndefined();
+    expect(first.text).not.toContain(String(e.indicated));
+    await studentSees(as.student, id, first.body.attempt.id, false, e.indicated);
+    const staff = await as.ta.json(`/api/attempts/${first.body.attempt.id}`);
+    expect(staff.body.attempt.results[0].expected).toBeCloseTo(e.indicated, 12);
+    const staffPage = await as.ta.fetch(`/attempts/${first.body.attempt.id}`);
+    expect(await staffPage.text()).toContain("katex");
+
+    const last = await as.student.post(`/api/labs/${id}/attempts`, { idempotencyKey: key(), readings: {} });
+    expect(last.status).toBe(201);
+    expect(last.body.attempt.expectedShown).toBe(true);
+    // attempts used up: the first attempt's expected values appear too
+    await studentSees(as.student, id, first.body.attempt.id, true, e.indicated);
+  });
+
+  for (const showExpected of ["after_due", "after_attempt"] as const) {
+    it(`"${showExpected}": after the due date while late attempts still earn points, still hidden; once the lab closes, shown`, async () => {
+      // due a day ago, 10 % a day down to a 50 % floor: accepts late attempts for 5 days after the due date
+      const id = await publishedLab({
+        showExpected,
+        opensAt: new Date(Date.now() - 10 * DAY).toISOString(),
+        dueAt: new Date(Date.now() - DAY).toISOString(),
+      });
+      const lab = await as.student.json(`/api/labs/${id}`);
+      const due = new Date(lab.body.lab.dueAt).getTime();
+      // the default close, from the late rule by hand: (100 − 50) / 10 = 5 days after the due date
+      expect(new Date(lab.body.lab.closesAt).getTime()).toBe(due + 5 * DAY);
+      const e = await expectedFor(as.student, id);
+      const q = Object.fromEntries(e.questions.map((x) => [x.quantity, x.id]));
+      const late = await as.student.post(`/api/labs/${id}/attempts`, { idempotencyKey: key(), readings: { [q.indicatedCurrent]: "1 mA" } });
+      expect(late.status).toBe(201);
+      expect(late.body.attempt.lateDays).toBe(1);
+      expect(late.body.attempt.expectedShown).toBe(false);
+      await studentSees(as.student, id, late.body.attempt.id, false, e.indicated);
+
+      // the instructor closes the lab now: no attempt is accepted, and the expected values appear
+      const closed = await patch(id, { closesAt: new Date(Date.now() - 60_000).toISOString() });
+      expect(closed.status).toBe(200);
+      await studentSees(as.student, id, late.body.attempt.id, true, e.indicated);
+      const refused = await as.student.post(`/api/labs/${id}/attempts`, { idempotencyKey: key(), readings: {} });
+      expect(refused.status).toBe(409);
+      expect(refused.body.error.message).toMatch(/closed/);
+      expect((await as.student.json(`/api/labs/${id}/attempts`)).body.attempts).toHaveLength(1);
+    });
+  }
+
+  it("a close before the due date is refused with a 400 naming the field", async () => {
+    const id = await publishedLab();
+    const bad = await patch(id, { closesAt: new Date(Date.now() + DAY).toISOString() });
+    expect(bad.status).toBe(400);
+    expect(Object.keys(bad.body.error.fields)).toContain("closesAt");
+  });
+
+  it("the handout and the labs list show the close; the list says closed only when no attempt is accepted", async () => {
+    const lateId = await publishedLab({ title: "Late but open", opensAt: new Date(Date.now() - 10 * DAY).toISOString(), dueAt: new Date(Date.now() - DAY).toISOString() });
+    const closedId = await publishedLab({
+      title: "Over and done",
+      opensAt: new Date(Date.now() - 20 * DAY).toISOString(),
+      dueAt: new Date(Date.now() - 10 * DAY).toISOString(),
+    });
+    const handout = await as.student.fetch(`/labs/${lateId}`);
+    const html = await handout.text();
+    expect(html).toMatch(/Closes: .*late attempts are accepted until then/);
+    expect(html).toContain("never while points can still be earned");
+    const closedPage = await (await as.student.fetch(`/labs/${closedId}`)).text();
+    expect(closedPage).toContain("accepts no more attempts");
+    expect(closedPage).not.toContain("Submit for grading");
+    const list = await (await as.student.fetch(`/courses/${f.courseId}/labs`)).text();
+    const row = (labId: string) => list.slice(list.indexOf(`data-lab="${labId}"`), list.indexOf("</tr>", list.indexOf(`data-lab="${labId}"`)));
+    expect(row(lateId)).toContain('data-state="late"');
+    expect(row(lateId)).not.toContain('data-state="closed"');
+    expect(row(closedId)).toContain('data-state="closed"');
   });
 });
 

@@ -60,6 +60,8 @@ export interface BuilderForm {
   /** datetime-local text ("2026-12-10T09:00") in the browser's time zone, or "" */
   opensAt: string;
   dueAt: string;
+  /** late attempts accepted until then; "" for the default close */
+  closesAt: string;
   latePenaltyPercentPerDay: string;
   lateFloorPercent: string;
   showExpected: "after_attempt" | "after_due" | "never";
@@ -177,6 +179,7 @@ export function emptyForm(templateKey: TemplateKey = "shunt-burden", latePolicy?
     counting: "best",
     opensAt: "",
     dueAt: "",
+    closesAt: "",
     latePenaltyPercentPerDay: String(latePolicy?.latePenaltyPercentPerDay ?? 10),
     lateFloorPercent: String(latePolicy?.lateFloorPercent ?? 50),
     showExpected: "after_attempt",
@@ -196,6 +199,7 @@ export interface StoredLabInput {
   counting: "best" | "last";
   opensAt: string | null;
   dueAt: string | null;
+  closesAt?: string | null;
   latePenaltyPercentPerDay: number;
   lateFloorPercent: number;
   showExpected: "after_attempt" | "after_due" | "never";
@@ -224,6 +228,7 @@ export function inputToForm(input: StoredLabInput): BuilderForm {
     counting: input.counting,
     opensAt: toLocalInput(input.opensAt),
     dueAt: toLocalInput(input.dueAt),
+    closesAt: toLocalInput(input.closesAt ?? null),
     latePenaltyPercentPerDay: String(input.latePenaltyPercentPerDay),
     lateFloorPercent: String(input.lateFloorPercent),
     showExpected: input.showExpected,
@@ -369,6 +374,7 @@ export function formToInput(form: BuilderForm, kept: KeptPolicy = {}): { input: 
     counting: form.counting,
     opensAt: fromLocalInput(form.opensAt),
     dueAt: fromLocalInput(form.dueAt),
+    closesAt: fromLocalInput(form.closesAt),
     latePenaltyPercentPerDay: readNumber(form.latePenaltyPercentPerDay),
     lateFloorPercent: readNumber(form.lateFloorPercent),
     showExpected: form.showExpected,
@@ -393,6 +399,7 @@ const TOP_FIELDS = new Set([
   "counting",
   "opensAt",
   "dueAt",
+  "closesAt",
   "latePenaltyPercentPerDay",
   "lateFloorPercent",
   "showExpected",
@@ -501,7 +508,7 @@ export function changedFields(before: LabInput, next: LabInput): Partial<LabInpu
   for (const key of Object.keys(next) as (keyof LabInput)[]) {
     const a = before[key];
     const b = next[key];
-    const same = key === "opensAt" || key === "dueAt" ? sameInstant(a as string | null, b as string | null) : sameValue(a, b);
+    const same = key === "opensAt" || key === "dueAt" || key === "closesAt" ? sameInstant(a as string | null, b as string | null) : sameValue(a, b);
     if (!same) out[key] = b;
   }
   return out as Partial<LabInput>;

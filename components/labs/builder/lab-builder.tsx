@@ -17,6 +17,7 @@ import { toLocalInput } from "@/lib/dates";
 import { templates, TEMPLATE_KEYS, type TemplateKey } from "@/lib/grader";
 import { CircuitDiagram } from "@/components/lesson/diagrams";
 import type { LabInput } from "@/lib/validation/labs";
+import { expectedWhenText } from "@/lib/labs/policy";
 import { RegradeProgress } from "../regrade-progress";
 import {
   builderSchema,
@@ -290,6 +291,13 @@ export function LabBuilder({ courseId, lab, notice, latePolicy }: LabBuilderProp
             <TextInput name="dueAt" label="Due" type="datetime-local" hint={`Leave empty for no due date.${timeZone ? ` Times are in ${timeZone}.` : ""}`} />
             <TextInput name="latePenaltyPercentPerDay" label="Late penalty (% per day)" inputMode="decimal" hint="Each day or part of a day after the due date." />
             <TextInput name="lateFloorPercent" label="Late floor (%)" inputMode="decimal" hint="A late attempt always keeps at least this share of its score." />
+            <TextInput
+              name="closesAt"
+              label="Closes (late attempts accepted until)"
+              type="datetime-local"
+              className="sm:col-span-2"
+              hint={`Leave empty to close when the late penalty reaches its floor (the due date plus (100 − floor) ÷ penalty days; at the due date without a penalty).${timeZone ? ` Times are in ${timeZone}.` : ""}`}
+            />
             <SelectInput
               name="showExpected"
               label="Expected values shown to students"
@@ -300,6 +308,7 @@ export function LabBuilder({ courseId, lab, notice, latePolicy }: LabBuilderProp
                 { value: "never", label: "Never" },
               ]}
             />
+            <ExpectedWhen />
           </div>
         </section>
 
@@ -366,5 +375,29 @@ export function LabBuilder({ courseId, lab, notice, latePolicy }: LabBuilderProp
         </div>
       </form>
     </FormProvider>
+  );
+}
+
+/** Explains, from the form as it stands, when students will see expected values (lib/labs/policy.ts's rule). */
+function ExpectedWhen() {
+  const [showExpected, attemptsAllowed, dueAt, closesAt, perDay, floor] = useWatch<BuilderForm, ["showExpected", "attemptsAllowed", "dueAt", "closesAt", "latePenaltyPercentPerDay", "lateFloorPercent"]>({
+    name: ["showExpected", "attemptsAllowed", "dueAt", "closesAt", "latePenaltyPercentPerDay", "lateFloorPercent"],
+  });
+  const date = (t: string) => (t && !Number.isNaN(new Date(t).getTime()) ? new Date(t) : null);
+  const text = expectedWhenText(
+    {
+      showExpected,
+      attemptsAllowed: Number(attemptsAllowed) || 1,
+      dueAt: date(dueAt),
+      closesAt: date(closesAt),
+      latePenaltyPercentPerDay: Number(perDay) || 0,
+      lateFloorPercent: Number(floor) || 0,
+    },
+    (d) => new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", year: "numeric", hour: "2-digit", minute: "2-digit" }).format(d),
+  );
+  return (
+    <p className="mb-4 text-sm text-ink-soft sm:col-span-2" data-testid="expected-when" aria-live="polite">
+      {text} Course staff always see them.
+    </p>
   );
 }

@@ -27,7 +27,7 @@ export function Graded({ attempt, typed, solutionHtml, studentName }: { attempt:
         <p className="mt-1 text-sm">{scoreLine(attempt)}.</p>
         <p className="mt-1 text-sm text-ink-soft">{verdictSummary(attempt.results)}.</p>
         {!attempt.expectedShown ? (
-          <p className="mt-2 text-sm text-ink-soft">This lab does not show the expected values and worked solutions yet; the feedback below says how each answer was judged.</p>
+          <p className="mt-2 text-sm text-ink-soft">Expected values and worked solutions stay hidden while you can still earn points on this lab (attempts left and the lab still open); the feedback below says how each answer was judged.</p>
         ) : null}
         <p className="mt-2 text-xs text-ink-soft">Grader version {attempt.graderVersion}</p>
       </section>

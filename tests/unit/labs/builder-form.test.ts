@@ -242,10 +242,12 @@ describe("editing a stored lab", () => {
 
 describe("lab state for the list", () => {
   const now = new Date("2026-12-10T12:00:00Z");
-  it("is upcoming, open or closed", () => {
-    expect(labState({ opensAt: "2026-12-11T00:00:00Z", dueAt: null }, now)).toBe("upcoming");
-    expect(labState({ opensAt: null, dueAt: null }, now)).toBe("open");
-    expect(labState({ opensAt: new Date("2026-12-01T00:00:00Z"), dueAt: new Date("2026-12-20T00:00:00Z") }, now)).toBe("open");
-    expect(labState({ opensAt: null, dueAt: "2026-12-09T00:00:00Z" }, now)).toBe("closed");
+  it("is upcoming, open, taking late attempts, or closed only once no attempt is accepted", () => {
+    expect(labState({ opensAt: "2026-12-11T00:00:00Z", dueAt: null, closesAt: null }, now)).toBe("upcoming");
+    expect(labState({ opensAt: null, dueAt: null, closesAt: null }, now)).toBe("open");
+    expect(labState({ opensAt: new Date("2026-12-01T00:00:00Z"), dueAt: new Date("2026-12-20T00:00:00Z"), closesAt: new Date("2026-12-25T00:00:00Z") }, now)).toBe("open");
+    // past the due date but before the close: late attempts are still accepted, so not "closed"
+    expect(labState({ opensAt: null, dueAt: "2026-12-09T00:00:00Z", closesAt: "2026-12-14T00:00:00Z" }, now)).toBe("late");
+    expect(labState({ opensAt: null, dueAt: "2026-12-04T00:00:00Z", closesAt: "2026-12-09T00:00:00Z" }, now)).toBe("closed");
   });
 });

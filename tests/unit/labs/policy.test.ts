@@ -1,7 +1,7 @@
 // Lab rules around the grader: late days, the late penalty with its floor, which attempt counts, and
 // when expected values may be shown. Expected numbers are worked out by hand in each case.
 import { describe, expect, it } from "vitest";
-import { applyPenalty, countingAttempt, expectedVisible, isOpen, latePenaltyPercent, lateDays } from "@/lib/labs/policy";
+import { applyPenalty, canStillEarn, closeOf, countingAttempt, expectedVisible, isClosed, isOpen, latePenaltyPercent, lateDays } from "@/lib/labs/policy";
 
 const due = new Date("2027-03-01T12:00:00Z");
 const at = (iso: string) => new Date(iso);
@@ -56,12 +56,58 @@ describe("opening and expected values", () => {
     expect(isOpen({ opensAt: due }, at("2027-03-01T12:00:00Z"))).toBe(true);
     expect(isOpen({ opensAt: null }, at("2000-01-01T00:00:00Z"))).toBe(true);
   });
-  it("expected values show after each attempt, after the due date, or never", () => {
+});
+
+describe("the close and expected values (no expected value while points can still be earned)", () => {
+  // 10 % per day with a 50 % floor: the floor is reached after (100 - 50) / 10 = 5 days (hand calculation)
+  const rules = { dueAt: due, closesAt: null, latePenaltyPercentPerDay: 10, lateFloorPercent: 50, attemptsAllowed: 3 };
+  it("closes by default when the late penalty reaches its floor; an explicit close wins", () => {
+    expect(closeOf(rules)?.toISOString()).toBe("2027-03-06T12:00:00.000Z");
+    // 30 % per day, floor 0: ceil(100 / 30) = 4 days
+    expect(closeOf({ ...rules, latePenaltyPercentPerDay: 30, lateFloorPercent: 0 })?.toISOString()).toBe("2027-03-05T12:00:00.000Z");
+    // no late penalty: closes at the due date (late work would score as much as work on time)
+    expect(closeOf({ ...rules, latePenaltyPercentPerDay: 0 })?.toISOString()).toBe("2027-03-01T12:00:00.000Z");
+    expect(closeOf({ ...rules, closesAt: at("2027-03-02T00:00:00Z") })?.toISOString()).toBe("2027-03-02T00:00:00.000Z");
+    expect(closeOf({ ...rules, dueAt: null })).toBeNull();
+    expect(isClosed(rules, at("2027-03-06T12:00:00Z"))).toBe(false);
+    expect(isClosed(rules, at("2027-03-06T12:00:01Z"))).toBe(true);
+    // the last accepted moment is exactly at the floor: 5 days late, 50 % off
+    expect(latePenaltyPercent(rules, lateDays(rules, at("2027-03-06T12:00:00Z")))).toBe(50);
+  });
+
+  it("points can be earned with attempts left until the close", () => {
+    expect(canStillEarn(rules, 2, at("2027-03-03T00:00:00Z"))).toBe(true);
+    expect(canStillEarn(rules, 3, at("2027-03-03T00:00:00Z"))).toBe(false);
+    expect(canStillEarn(rules, 0, at("2027-03-07T00:00:00Z"))).toBe(false);
+  });
+
+  for (const showExpected of ["after_attempt", "after_due"] as const) {
+    it(`"${showExpected}": hidden while attempts are left and the lab accepts them, the due date passed included`, () => {
+      const r = { ...rules, showExpected };
+      expect(expectedVisible(r, 1, at("2027-02-28T00:00:00Z"))).toBe(false);
+      // after the due date, late attempts still earn up to half the points: still hidden
+      expect(expectedVisible(r, 1, at("2027-03-02T00:00:00Z"))).toBe(false);
+      expect(expectedVisible(r, 2, at("2027-03-06T12:00:00Z"))).toBe(false);
+      // closed: shown
+      expect(expectedVisible(r, 1, at("2027-03-06T12:00:01Z"))).toBe(true);
+      // attempts used up after the due date: shown
+      expect(expectedVisible(r, 3, at("2027-03-02T00:00:00Z"))).toBe(true);
+    });
+  }
+
+  it("attempts used up before the due date: shown at once after each attempt, after the due date otherwise", () => {
     const before = at("2027-02-28T00:00:00Z");
-    const after = at("2027-03-02T00:00:00Z");
-    expect(expectedVisible({ showExpected: "after_attempt", dueAt: due }, before)).toBe(true);
-    expect(expectedVisible({ showExpected: "after_due", dueAt: due }, before)).toBe(false);
-    expect(expectedVisible({ showExpected: "after_due", dueAt: due }, after)).toBe(true);
-    expect(expectedVisible({ showExpected: "never", dueAt: due }, after)).toBe(false);
+    expect(expectedVisible({ ...rules, showExpected: "after_attempt" }, 3, before)).toBe(true);
+    expect(expectedVisible({ ...rules, showExpected: "after_due" }, 3, before)).toBe(false);
+  });
+
+  it("never means never", () => {
+    expect(expectedVisible({ ...rules, showExpected: "never" }, 3, at("2030-01-01T00:00:00Z"))).toBe(false);
+  });
+
+  it("a lab without due date or close shows them only after the last attempt", () => {
+    const open = { ...rules, dueAt: null, showExpected: "after_attempt" as const };
+    expect(expectedVisible(open, 2, at("2030-01-01T00:00:00Z"))).toBe(false);
+    expect(expectedVisible(open, 3, at("2030-01-01T00:00:00Z"))).toBe(true);
   });
 });

@@ -126,9 +126,12 @@ describe("lab rules in words", () => {
     expect(utcDate(null)).toBe("");
   });
   it("states the late rule", () => {
-    expect(lateRuleText({ dueAt: null, latePenaltyPercentPerDay: 10, lateFloorPercent: 50 })).toBe("This lab has no due date.");
-    expect(lateRuleText({ dueAt: "2027-03-12T17:00:00Z", latePenaltyPercentPerDay: 10, lateFloorPercent: 50 })).toBe(
-      "Due 12 Mar 2027, 17:00 UTC. Each day late (or part of a day) takes 10 % off the score, but a late attempt keeps at least 50 % of its score.",
+    expect(lateRuleText({ dueAt: null, closesAt: null, latePenaltyPercentPerDay: 10, lateFloorPercent: 50 })).toBe("This lab has no due date.");
+    expect(lateRuleText({ dueAt: "2027-03-12T17:00:00Z", closesAt: "2027-03-17T17:00:00Z", latePenaltyPercentPerDay: 10, lateFloorPercent: 50 })).toBe(
+      "Due 12 Mar 2027, 17:00 UTC. Each day late (or part of a day) takes 10 % off the score, but a late attempt keeps at least 50 % of its score. Closes 17 Mar 2027, 17:00 UTC: no attempt is accepted after that.",
+    );
+    expect(lateRuleText({ dueAt: "2027-03-12T17:00:00Z", closesAt: "2027-03-12T17:00:00Z", latePenaltyPercentPerDay: 0, lateFloorPercent: 0 })).toBe(
+      "Due 12 Mar 2027, 17:00 UTC. Closes 12 Mar 2027, 17:00 UTC: no attempt is accepted after that.",
     );
   });
 });

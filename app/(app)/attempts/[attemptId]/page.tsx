@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { asJson } from "@/lib/api-client";
 import { forPage, isStaff, refused } from "@/lib/auth/access";
-import { attemptAccess, attemptsFor, HELD_NOTICE, presentAttempt } from "@/lib/labs/service";
+import { attemptAccess, attemptsFor, attemptsUsed, HELD_NOTICE, presentAttempt } from "@/lib/labs/service";
 import Link from "next/link";
 import { Refusal } from "@/components/shell/refusal";
 import { FeedbackView } from "@/components/labs/feedback/feedback-view";
@@ -36,7 +36,7 @@ export default async function AttemptPage({ params }: { params: Promise<{ attemp
     );
   }
   // The attempt as GET /api/attempts/{id} returns it; the server also typesets the solutions it may show.
-  const presented = presentAttempt(attempt, lab, staff);
+  const presented = presentAttempt(attempt, lab, staff, await attemptsUsed(attempt));
   const lines = presented.results.flatMap((r) => r.solution ?? []);
   let studentName: string | null = null;
   if (staff && !isOwner) {

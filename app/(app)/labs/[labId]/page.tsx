@@ -3,7 +3,7 @@ import Link from "next/link";
 import { forPage, isStaff, refused } from "@/lib/auth/access";
 import { templates } from "@/lib/grader";
 import { handoutFor } from "@/lib/labs/handout";
-import { isOpen, lateDays } from "@/lib/labs/policy";
+import { closeOf, expectedWhenText, isClosed, isOpen, lateDays } from "@/lib/labs/policy";
 import { attemptsFor, HELD_NOTICE, labAccess, type Lab } from "@/lib/labs/service";
 import { Refusal } from "@/components/shell/refusal";
 import { HoldGrades } from "@/components/mail/hold-grades";
@@ -18,11 +18,6 @@ export const metadata: Metadata = { title: "Lab" };
 
 type Attempts = Awaited<ReturnType<typeof attemptsFor>>;
 
-const SHOW_EXPECTED: Record<Lab["showExpected"], string> = {
-  after_attempt: "after each attempt",
-  after_due: "after the due date",
-  never: "never",
-};
 
 export default async function LabPage({ params }: { params: Promise<{ labId: string }> }) {
   const { labId } = await params;
@@ -64,6 +59,7 @@ export default async function LabPage({ params }: { params: Promise<{ labId: str
     .map((p) => ({ key: p.key, label: p.label, unit: p.unit, displayUnit: p.displayUnit, shown: p.shown }));
   const ordered = [...attempts].sort((a, b) => b.number - a.number);
   const late = lateDays(lab, now);
+  const closed = isClosed(lab, now);
 
   return (
     <>
@@ -76,8 +72,8 @@ export default async function LabPage({ params }: { params: Promise<{ labId: str
         <p className="font-semibold" data-testid="attempts-left">
           {attemptsLeftText(used, lab.attemptsAllowed)}
         </p>
-        <p className="mt-1 text-sm text-ink-soft">{lateRuleText(lab)}</p>
-        {late ? (
+        <p className="mt-1 text-sm text-ink-soft">{lateRuleText({ ...lab, closesAt: closeOf(lab) })}</p>
+        {late && !closed ? (
           <p className="mt-1 text-sm font-semibold text-verdict-close">
             <span aria-hidden="true">! </span>
             The due date has passed: an attempt now is {late} day{late === 1 ? "" : "s"} late.
@@ -110,6 +106,10 @@ export default async function LabPage({ params }: { params: Promise<{ labId: str
         {!open ? (
           <p className="card" role="status">
             This lab opens on {utcDate(lab.opensAt)}. You can read the handout now and submit from then on.
+          </p>
+        ) : closed ? (
+          <p className="card" role="status" data-testid="lab-closed">
+            This lab closed on {utcDate(closeOf(lab))} and accepts no more attempts.
           </p>
         ) : left <= 0 ? (
           <p className="card" role="status">
@@ -150,7 +150,7 @@ function StaffOverview({ lab, attempts, canEdit }: { lab: Lab; attempts: Attempt
         </div>
         <div>
           <dt className="text-ink-soft">Due and late rule</dt>
-          <dd className="m-0">{lateRuleText(lab)}</dd>
+          <dd className="m-0">{lateRuleText({ ...lab, closesAt: closeOf(lab) })}</dd>
         </div>
         <div>
           <dt className="text-ink-soft">Attempts</dt>
@@ -160,7 +160,7 @@ function StaffOverview({ lab, attempts, canEdit }: { lab: Lab; attempts: Attempt
         </div>
         <div>
           <dt className="text-ink-soft">Expected values shown to students</dt>
-          <dd className="m-0">{SHOW_EXPECTED[lab.showExpected]}</dd>
+          <dd className="m-0">{expectedWhenText(lab, utcDate)} Staff always see them.</dd>
         </div>
         <div>
           <dt className="text-ink-soft">Questions</dt>

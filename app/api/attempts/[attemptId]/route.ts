@@ -1,8 +1,8 @@
 import { json, route } from "@/lib/api";
 import { isStaff } from "@/lib/auth/access";
-import { attemptAccess, viewAttempt } from "@/lib/labs/service";
+import { attemptAccess, attemptsUsed, viewAttempt } from "@/lib/labs/service";
 
 export const GET = route<{ attemptId: string }>(async (_req, { attemptId }) => {
   const { attempt, lab, access } = await attemptAccess(attemptId);
-  return json({ attempt: viewAttempt(attempt, lab, isStaff(access.role)) });
+  return json({ attempt: viewAttempt(attempt, lab, isStaff(access.role), await attemptsUsed(attempt)) });
 });

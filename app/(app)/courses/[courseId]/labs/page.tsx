@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { forPage, isStaff, refused, requireCourseRole } from "@/lib/auth/access";
 import { templates } from "@/lib/grader";
+import { closeOf } from "@/lib/labs/policy";
 import { labsForCourse } from "@/lib/labs/service";
 import { Refusal } from "@/components/shell/refusal";
 import { labState, STATE_LABEL } from "@/lib/labs/schedule";
@@ -61,6 +62,7 @@ export default async function LabsPage({ params, searchParams }: { params: Promi
                 <th scope="col" className="px-4 py-2">Lab</th>
                 <th scope="col" className="px-4 py-2">Opens</th>
                 <th scope="col" className="px-4 py-2">Due</th>
+                <th scope="col" className="px-4 py-2">Closes</th>
                 <th scope="col" className="px-4 py-2">State</th>
                 {staff ? (
                   <th scope="col" className="px-4 py-2">
@@ -71,7 +73,8 @@ export default async function LabsPage({ params, searchParams }: { params: Promi
             </thead>
             <tbody>
               {labs.map((lab) => {
-                const state = labState(lab, now);
+                const closes = closeOf(lab);
+                const state = labState({ ...lab, closesAt: closes }, now);
                 return (
                   <tr key={lab.id} className="border-t border-ink/10 align-top" data-lab={lab.id}>
                     <td className="px-4 py-2">
@@ -80,6 +83,7 @@ export default async function LabsPage({ params, searchParams }: { params: Promi
                     </td>
                     <td className="px-4 py-2 whitespace-nowrap">{when(lab.opensAt)}</td>
                     <td className="px-4 py-2 whitespace-nowrap">{when(lab.dueAt)}</td>
+                    <td className="px-4 py-2 whitespace-nowrap" data-testid="lab-closes">{closes ? when(closes) : "Never"}</td>
                     <td className="px-4 py-2">
                       {staff && lab.status === "draft" ? (
                         <span className="rounded-full border border-ink/30 px-2 py-0.5 text-xs font-semibold">Draft</span>

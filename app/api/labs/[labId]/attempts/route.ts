@@ -2,7 +2,7 @@ import { db } from "@/db";
 import { findAttempt } from "@/db/queries/attempts";
 import { json, jsonBody, route } from "@/lib/api";
 import { isStaff } from "@/lib/auth/access";
-import { attemptsFor, heldAttempt, labAccess, submitAttempt, viewAttempt } from "@/lib/labs/service";
+import { attemptsFor, attemptsUsed, heldAttempt, labAccess, submitAttempt, viewAttempt } from "@/lib/labs/service";
 import { attemptInputSchema } from "@/lib/validation/labs";
 import { uuidSchema } from "@/lib/validation/common";
 import { AppError } from "@/lib/errors";
@@ -29,5 +29,5 @@ export const POST = route<Params>(async (req, { labId }) => {
   const input = await jsonBody(req, attemptInputSchema);
   const { attemptId, created } = await submitAttempt(lab, access, input);
   const attempt = (await findAttempt(db, attemptId))!;
-  return json({ attempt: viewAttempt(attempt, lab, isStaff(access.role)) }, created ? 201 : 200);
+  return json({ attempt: viewAttempt(attempt, lab, isStaff(access.role), await attemptsUsed(attempt)) }, created ? 201 : 200);
 });

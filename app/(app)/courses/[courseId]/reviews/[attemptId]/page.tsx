@@ -3,7 +3,7 @@ import { notFound } from "next/navigation";
 import { asJson } from "@/lib/api-client";
 import { forPage, refused } from "@/lib/auth/access";
 import { staffAttemptAccess } from "@/lib/labs/review";
-import { attemptsFor, presentAttempt } from "@/lib/labs/service";
+import { attemptsFor, attemptsUsed, presentAttempt } from "@/lib/labs/service";
 import { Refusal } from "@/components/shell/refusal";
 import { FeedbackView } from "@/components/labs/feedback/feedback-view";
 import { typeset } from "@/components/labs/feedback/typeset";
@@ -19,7 +19,7 @@ export default async function ReviewAttemptPage({ params }: { params: Promise<{ 
   if (refused(found)) return <Refusal message={found.refused} backHref={`/courses/${courseId}`} />;
   const { attempt, lab, access } = found;
   if (lab.courseId !== courseId) notFound();
-  const presented = presentAttempt(attempt, lab, true);
+  const presented = presentAttempt(attempt, lab, true, await attemptsUsed(attempt));
   const studentName = (await attemptsFor(lab, access, new Date(), attempt.userId))[0]?.studentName ?? null;
   return (
     <FeedbackView
