@@ -221,6 +221,24 @@ function showCategory(v: string): string {
   return v.replace(/^u/, "µ");
 }
 
+/**
+ * Why a typed answer to a quantity of `template` cannot be graded, or null when it can (a blank is
+ * "no answer" and can). An unreadable value, a value of the wrong kind and a category that is not one of
+ * the choices are never graded: the submission is refused and the student fixes it.
+ */
+export function readingProblem(template: TemplateKey, quantity: string, reading: Reading): string | null {
+  const spec = templates[template]?.quantities.find((s) => s.key === quantity);
+  if (!spec || reading === null || reading === undefined || typeof reading === "number") return null;
+  const typed = String(reading).trim();
+  if (typed === "") return null;
+  if (spec.kind === "category") {
+    const choices = spec.choices ?? [];
+    return choices.map(normaliseCategory).includes(normaliseCategory(typed)) ? null : `Choose one of: ${choices.map(showCategory).join(", ")}.`;
+  }
+  const r = parseQuantity(typed, spec.unit);
+  return r.ok || r.reason === "empty" ? null : r.message;
+}
+
 function gradeCategory(t: Template, spec: QuantitySpec, p: Params, q: Question, expected: string, reading: Reading, ev: Evaluator, tag: string): QuestionResult {
   const solution = ev.solution(tag, p, q.quantity);
   const method = "exact match";
@@ -338,6 +356,13 @@ function gradeNumber(t: Template, spec: QuantitySpec, p: Params, q: Question, ex
   const relHalf = expected !== 0 ? half / Math.abs(expected) : c.rel;
   const candidates = t.mistakes(p, q.quantity);
   if (spec.unit !== "" && spec.unit !== "%") candidates.push(...prefixSlips(expected));
+  // a capital M (mega, 10⁶) typed for a lowercase m (milli, 10⁻³): a factor of 10⁹, worth naming
+  if (typeof reading === "string" && /\dM|\sM/.test(reading.trim()) && spec.unit !== "ohm")
+    candidates.push({
+      key: "prefix-slip",
+      value: expected * 1e9,
+      detail: "Your number is 10⁹ times too large: you wrote a capital M, which is mega (10⁶); milli (10⁻³) is a lowercase m. SI prefixes are case-sensitive.",
+    });
   for (const m of candidates) {
     if (typeof m.value !== "number" || !Number.isFinite(m.value)) continue;
     const cHalf = Math.max(exact ?? relHalf * Math.abs(m.value), floor);

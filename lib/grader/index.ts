@@ -28,6 +28,7 @@ export {
 } from "./variant";
 export {
   gradeAttempt,
+  readingProblem,
   questionSchema,
   gradePolicySchema,
   type Question,

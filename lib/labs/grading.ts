@@ -7,6 +7,7 @@ import {
   formatQuantity,
   gradeAttempt,
   parseQuantity,
+  readingProblem,
   templates,
   type GradePolicy,
   type GradeResult,
@@ -88,6 +89,22 @@ export function parseMeasured(lab: Lab, measured: Record<string, string | null>)
     throw new AppError("bad_request", `Check the measured value of ${Object.keys(fields).map((f) => f.slice(9)).join(", ")}.`, fields);
   }
   return out;
+}
+
+/**
+ * Refuses answers that cannot be graded (unreadable, of the wrong kind, not one of the choices) with a
+ * 400 naming each as `readings.{questionId}`, before any attempt is used.
+ */
+export function checkReadings(lab: Lab, readings: Record<string, string | null>): void {
+  const fields: Record<string, string[]> = {};
+  for (const q of lab.questions) {
+    const problem = readingProblem(lab.templateKey, q.quantity, readings[q.id]);
+    if (problem) fields[`readings.${q.id}`] = [problem];
+  }
+  const ids = Object.keys(fields).map((f) => f.slice("readings.".length));
+  if (ids.length) {
+    throw new AppError("bad_request", `Check ${ids.length === 1 ? "this answer" : "these answers"} before submitting: ${ids.join(", ")}. Nothing was graded and no attempt was used.`, fields);
+  }
 }
 
 /** An uploaded trace's stored analysis (lib/trace's TraceAnalysis, as JSON) as grading reads it: only its average. */

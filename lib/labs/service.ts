@@ -20,7 +20,7 @@ import { assertRole, EVERYONE, isStaff, requireCourseRole, type CourseAccess } f
 import { AppError, notFound } from "@/lib/errors";
 import { queueGradeMail } from "@/lib/mail/grade";
 import { drawVariant, type Params } from "@/lib/grader";
-import { attemptRecord, gradeForLab, parseMeasured, toLab, withIds, type Lab, type StoredTrace } from "./grading";
+import { attemptRecord, checkReadings, gradeForLab, parseMeasured, toLab, withIds, type Lab, type StoredTrace } from "./grading";
 import { closeOf, expectedVisible, isClosed, isOpen } from "./policy";
 import { reviewIsOpen } from "./overrides";
 import { presentResults, type StoredResult } from "./present";
@@ -76,6 +76,7 @@ export async function submitAttempt(lab: Lab, access: CourseAccess, input: Submi
   if (unknown.length) {
     throw new AppError("bad_request", `These readings answer no question of this lab: ${unknown.join(", ")}.`, Object.fromEntries(unknown.map((k) => [`readings.${k}`, ["This lab has no such question."]])));
   }
+  checkReadings(lab, input.readings);
   const measured = parseMeasured(lab, input.measured);
   const userId = access.user.id;
 

@@ -153,7 +153,29 @@ describe("handouts", () => {
 });
 
 describe("submitting attempts", () => {
-  it("grades correct, close, mistaken, wrong-unit and missing answers at once", async () => {
+  it("never grades an unreadable or wrong-kind answer: a 400 naming readings.{questionId}, and no attempt used", async () => {
+    const id = await publishedLab();
+    const e = await expectedFor(as.student, id);
+    const q = Object.fromEntries(e.questions.map((x) => [x.quantity, x.id]));
+    for (const [text, pattern] of [
+      [`${e.burden.toPrecision(4)} A`, /current.*voltage/], // a current where a voltage is asked
+      ["3,267 mV", /two ways/], // ambiguous comma
+      ["twelve", /Could not read/],
+    ] as const) {
+      const r = await as.student.post(`/api/labs/${id}/attempts`, { idempotencyKey: key(), readings: { [q.indicatedCurrent]: "1 mA", [q.burdenVoltage]: text } });
+      expect(r.status, text).toBe(400);
+      expect(Object.keys(r.body.error.fields)).toEqual([`readings.${q.burdenVoltage}`]);
+      expect(r.body.error.fields[`readings.${q.burdenVoltage}`][0]).toMatch(pattern);
+    }
+    const list = await as.student.json(`/api/labs/${id}/attempts`);
+    expect(list.body.attempts).toHaveLength(0);
+    // the same answers, readable, make the first attempt
+    const ok = await as.student.post(`/api/labs/${id}/attempts`, { idempotencyKey: key(), readings: { [q.indicatedCurrent]: "1 mA", [q.burdenVoltage]: "3 mv" } });
+    expect(ok.status).toBe(201);
+    expect(ok.body.attempt.number).toBe(1);
+  });
+
+  it("grades correct, close, mistaken and missing answers at once", async () => {
     const id = await publishedLab();
     const e = await expectedFor(as.student, id);
     const q = Object.fromEntries(e.questions.map((x) => [x.quantity, x.id]));
@@ -162,7 +184,7 @@ describe("submitting attempts", () => {
       readings: {
         [q.indicatedCurrent]: `${(e.indicated * 1000).toPrecision(4)} mA`,
         [q.trueCurrent]: `${(e.indicated * 1e6).toPrecision(4)} uA`, // the burden ignored: Vs/(RL+Rsh) for the true current
-        [q.burdenVoltage]: `${e.burden.toPrecision(4)} A`,
+        [q.burdenVoltage]: "",
       },
     });
     expect(r.status).toBe(201);
@@ -171,7 +193,7 @@ describe("submitting attempts", () => {
     expect(byQ.indicatedCurrent.readAs).toMatch(/mA$/);
     expect(byQ.trueCurrent.verdict).toBe("mistake");
     expect(byQ.trueCurrent.mistake.key).toBe("ignored-burden");
-    expect(byQ.burdenVoltage.verdict).toBe("unit");
+    expect(byQ.burdenVoltage.verdict).toBe("missing");
     expect(r.body.attempt.score).toBe(4);
     expect(r.body.attempt.maxScore).toBe(10);
     expect(r.body.attempt.graderVersion).toMatch(/^\d+\.\d+\.\d+$/);

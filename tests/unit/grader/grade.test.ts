@@ -11,12 +11,32 @@ import {
   gradePolicySchema,
   graderVersion,
   questionSchema,
+  readingProblem,
   templates,
   variantSpecSchema,
 } from "../../../lib/grader";
 
 const sb = { supplyVoltage: 3.3, loadResistance: 1000, shuntResistance: 10 };
 const q1 = (quantity: string, kind: "prediction" | "bench" = "prediction", points = 1) => ({ quantity, kind, points });
+
+describe("answers that are never graded, and the capital-M slip", () => {
+  it("an unreadable, ambiguous or wrong-kind answer, or a category not offered, is a problem to fix before grading", () => {
+    expect(readingProblem("shunt-burden", "indicatedCurrent", "3,267 uA")).toMatch(/two ways/);
+    expect(readingProblem("shunt-burden", "indicatedCurrent", "3.3 V")).toMatch(/voltage/);
+    expect(readingProblem("shunt-burden", "indicatedCurrent", "abc")).toMatch(/Could not read/);
+    expect(readingProblem("range-resolution", "bestRange", "banana")).toMatch(/Choose one of/);
+    // blanks are "no answer", and readable answers are graded
+    expect(readingProblem("shunt-burden", "indicatedCurrent", "")).toBeNull();
+    expect(readingProblem("shunt-burden", "indicatedCurrent", "3 ma")).toBeNull();
+  });
+  it("3.267 MA for 3.267 mA is a prefix slip that names the capital M (a factor of 10⁹ = 10⁶ / 10⁻³)", () => {
+    // 3.3 V / 1010 Ω = 3.267 mA (Ohm's law, by hand)
+    const r = gradeAttempt({ template: "shunt-burden", params: sb, questions: [q1("indicatedCurrent")], readings: ["3.267 MA"] }).results[0];
+    expect(r.verdict).toBe("mistake");
+    expect(r.mistake).toBe("prefix-slip");
+    expect(r.feedback).toMatch(/capital M/);
+  });
+});
 
 describe("verdicts and points", () => {
   const one = (reading: string | number | null, policy = {}) =>

@@ -93,6 +93,82 @@ describe("parseQuantity", () => {
   });
 });
 
+describe("reading what students type (issue 8, one rule per case; rules in lib/grader/units.ts)", () => {
+  const refused = (text: string, unit: string) => {
+    const r = parseQuantity(text, unit);
+    if (r.ok) throw new Error(`${text} was read as ${r.value}`);
+    return r;
+  };
+
+  it("rule 1: a comma followed by exactly three digits is refused, showing both readings", () => {
+    const a = refused("3,267 µA", "A");
+    expect(a.reason).toBe("syntax");
+    expect(a.message).toContain("3.267 uA");
+    expect(a.message).toContain("3267 uA");
+    const b = refused("1,000 mA", "A");
+    expect(b.message).toContain("1.000 mA");
+    expect(b.message).toContain("1000 mA");
+  });
+  it("rule 1: a comma followed by one, two, four or more digits is a decimal comma", () => {
+    expect(value("9,1 mA", "A")).toBe(Number("9.1e-3"));
+    expect(value("9,10 mA", "A")).toBe(Number("9.10e-3"));
+    expect(value("1,2345 V", "V")).toBe(1.2345);
+  });
+  it("rule 1: commas that can only group thousands (two of them, or before a point) are read", () => {
+    expect(value("1,000,000 uA", "A")).toBe(1);
+    expect(value("1,000.5 mA", "A")).toBe(Number("1000.5e-3"));
+  });
+  it("rule 2: digits grouped by spaces in threes, as the SI brochure writes them (BIPM, The International System of Units, 9th ed. 2019, §5.4.4)", () => {
+    expect(value("1 000 mA", "A")).toBe(1);
+    expect(value("12 345.6 uA", "A")).toBe(Number("12345.6e-6"));
+  });
+  it("rule 3: hand-written powers of ten", () => {
+    expect(value("3.27 x 10^-3 A", "A")).toBe(Number("3.27e-3"));
+    expect(value("3.27×10^-3 A", "A")).toBe(Number("3.27e-3"));
+    expect(value("3.27·10⁻³ A", "A")).toBe(Number("3.27e-3"));
+    expect(value("3.27*10^(-3) A", "A")).toBe(Number("3.27e-3"));
+  });
+  it("rule 4: a full stop ending the sentence after the unit", () => {
+    expect(value("3.267 mA.", "A")).toBe(Number("3.267e-3"));
+    expect(parseQuantity("3.", "A")).toMatchObject({ ok: false, hint: "no-unit" }); // still a bare number
+  });
+  it("rule 5: lowercase unit letters are read where one unit of the asked kind fits; the prefix keeps its case", () => {
+    expect(value("3 ma", "A")).toBe(Number("3e-3"));
+    expect(value("5 mw", "W")).toBe(Number("5e-3"));
+    expect(value("3 mv", "V")).toBe(Number("3e-3"));
+    expect(value("220 mah", "C")).toBeCloseTo(792, 9); // 0.220 A × 3600 s
+    expect(value("1.2 kHZ", "Hz")).toBe(1200);
+    // M stays mega: SI prefixes are case-sensitive (BIPM SI brochure, 9th ed., §3)
+    expect(value("3 MA", "A")).toBe(3e6);
+    expect(value("3 mA", "A")).toBe(Number("3e-3"));
+    // a current asked for a voltage is still a current
+    expect(refused("3 ma", "V").reason).toBe("dimension");
+  });
+  it("rule 6: resistor codes with the ohm sign after a space, kilohm, megohm, meg and 10R", () => {
+    expect(value("4k7 Ω", "ohm")).toBe(4700);
+    expect(value("4.7 kilohm", "ohm")).toBe(4700);
+    expect(value("2.2 megohm", "ohm")).toBe(2.2e6);
+    expect(value("1 meg", "ohm")).toBe(1e6);
+    expect(value("10R", "ohm")).toBe(10);
+  });
+  it("rule 7: a time written in parts adds up", () => {
+    expect(value("1 h 30 min", "s")).toBe(5400);
+    expect(value("1 min 30 s", "s")).toBe(90);
+  });
+  it("rule 8: a value of another kind is refused with a hint where the symbol is easily confused", () => {
+    const c = refused("27 C", "K");
+    expect(c.reason).toBe("dimension");
+    expect(c.message).toMatch(/charge/);
+    expect(c.message).toMatch(/°C/);
+    const s = refused("2 mS", "s");
+    expect(s.reason).toBe("dimension");
+    expect(s.message).toMatch(/millisiemens|milli siemens/);
+    expect(s.message).toMatch(/ms/);
+    const h = refused("1 H", "s");
+    expect(h.message).toMatch(/henry/);
+  });
+});
+
 describe("formatQuantity", () => {
   it("uses an SI prefix and 3–4 significant figures", () => {
     expect(formatQuantity(9.1e-6, "A")).toBe("9.10 µA");

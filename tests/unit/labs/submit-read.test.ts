@@ -74,6 +74,10 @@ describe("client-side checks", () => {
     expect(Object.keys(p)).toEqual(["q1", "q2"]);
     expect(p.q2).toBe("Choose one of: nA, uA, mA.");
   });
+  it("shows the problem of an ambiguous comma before submitting, and how a lowercase unit is read", () => {
+    expect(readingProblems([current], { q1: "3,267 µA" }).q1).toMatch(/3\.267 uA .* or 3267 uA/);
+    expect(echoText(echoReading("3 ma", "A"))).toBe("Read as 3.00 mA");
+  });
   it("refuses a measured value of zero", () => {
     const comps = [{ key: "loadResistance", label: "Load resistance", unit: "ohm", displayUnit: "kΩ", shown: "1.00 kΩ" }];
     expect(measuredProblems(comps, { loadResistance: "0 ohm" }).loadResistance).toMatch(/greater than zero/);
