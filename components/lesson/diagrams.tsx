@@ -266,28 +266,32 @@ const specs: Record<DiagramTemplate, Spec> = {
     ),
   },
   "filter-noise": {
-    title: "Shunt noise and an RC low-pass filter before the converter",
-    desc: "The shunt resistor R_sh is shown with its thermal noise voltage v_n in series. Its voltage passes through an RC low-pass filter, a series resistor R_f and a capacitor C_f to ground, before the converter. The filter sets the time constant τ = R_f·C_f, the cut-off frequency and the noise bandwidth.",
+    title: "Shunt noise, an amplifier, then an RC low-pass filter before the converter",
+    desc: "The shunt resistor R_sh is shown with its thermal noise voltage v_n in series. Its voltage goes first into an amplifier (drawn as a unity-gain buffer; a gain stage works the same way), whose low output impedance drives an RC low-pass filter, a series resistor R_f and a capacitor C_f to ground, before the converter. Because the amplifier stands between them, the shunt does not add to R_f, so the time constant is τ = R_f·C_f; the filter sets the cut-off frequency and the noise bandwidth.",
     body: (
       <g>
         <Resistor x1={30} y1={60} x2={30} y2={140} color={COPPER} />
         <Label x={44} y={104} anchor="start" size={11}>R_sh</Label>
-        <circle cx={80} cy={40} r={13} fill="white" stroke={INK} strokeWidth={2} />
-        <Label x={80} y={45} size={13}>~</Label>
-        <Label x={80} y={20} size={11}>v_n = √(4kTRB)</Label>
-        <Wire d="M30,60 L30,40 L67,40" />
-        <Wire d="M93,40 L140,40" />
-        <Resistor x1={140} y1={40} x2={220} y2={40} />
-        <Label x={180} y={28} size={11}>R_f</Label>
-        <Wire d="M220,40 L250,40 L250,92" />
-        <Dot x={250} y={40} />
-        <Capacitor x={250} y={95} />
-        <Wire d="M250,98 L250,140" />
-        <Label x={266} y={100} anchor="start" size={11}>C_f</Label>
-        <Wire d="M30,140 L30,160 L250,160 L250,140" />
+        <circle cx={70} cy={40} r={13} fill="white" stroke={INK} strokeWidth={2} />
+        <Label x={70} y={45} size={13}>~</Label>
+        <Label x={60} y={20} size={11}>v_n = √(4kTRB)</Label>
+        <Wire d="M30,60 L30,40 L57,40" />
+        <Wire d="M83,40 L100,40" />
+        <Amp x={100} y={50} label="amplifier" />
+        <Wire d="M144,50 L165,50" />
+        <Dot x={152} y={50} />
+        <Wire d="M152,50 L152,84 L92,84 L92,60 L100,60" thin />
+        <Resistor x1={165} y1={50} x2={235} y2={50} />
+        <Label x={200} y={38} size={11}>R_f</Label>
+        <Wire d="M235,50 L255,50 L255,92" />
+        <Dot x={255} y={50} />
+        <Capacitor x={255} y={95} />
+        <Wire d="M255,98 L255,160" />
+        <Label x={271} y={100} anchor="start" size={11}>C_f</Label>
+        <Wire d="M30,140 L30,160 L255,160" />
         <Ground x={140} y={160} />
-        <Wire d="M250,40 L290,40" />
-        <Box x={290} y={20} w={60} h={40} lines={["ADC"]} />
+        <Wire d="M255,50 L290,50" />
+        <Box x={290} y={30} w={60} h={40} lines={["ADC"]} />
         <Label x={180} y={196} size={11}>τ = R_f·C_f,  f_c = 1/(2πτ),  B_n = (π/2)·f_c</Label>
       </g>
     ),

@@ -150,6 +150,25 @@ function propagate(ev: Evaluator, tag: string, p: Params, q: string, tolerances:
   return sum;
 }
 
+/**
+ * Half-width of the band from an instrument accurate to ±`percent` % of each reading: Σ|∂q/∂r|·|r|·percent/100
+ * over the readings the quantity is worked out from (worst case, first order), or percent/100·|q| when the
+ * quantity itself is read.
+ */
+export function instrumentHalfWidth(t: Template, p: Params, quantity: string, expected: number, percent: number): { half: number; readings: string[] } {
+  if (!(percent > 0)) return { half: 0, readings: [] };
+  const read = t.instrumentReadings?.(p, quantity);
+  if (!read) return { half: (percent / 100) * Math.abs(expected), readings: [] };
+  let sum = 0;
+  for (const [name, r] of Object.entries(read.values)) {
+    if (r === 0) continue;
+    const h = Math.abs(r) * 1e-6;
+    const d = (read.formula({ ...read.values, [name]: r + h }) - read.formula({ ...read.values, [name]: r - h })) / (2 * h);
+    if (Number.isFinite(d)) sum += Math.abs(d) * Math.abs(r) * (percent / 100);
+  }
+  return { half: sum, readings: Object.keys(read.values) };
+}
+
 function paramLabel(t: Template, key: string): string {
   return t.parameters.find((p) => p.key === key)?.label.toLowerCase() ?? key;
 }
@@ -305,12 +324,13 @@ function gradeNumber(t: Template, spec: QuantitySpec, p: Params, q: Question, ex
 
   if (q.kind === "bench") {
     const propagated = spec.discrete ? 0 : propagate(c.ev, c.tag, p, q.quantity, c.tolerances, c.measured);
-    const instrumentHalf = (c.instrument / 100) * Math.abs(expected);
+    const instrument = instrumentHalfWidth(t, p, q.quantity, expected, c.instrument);
+    const instrumentHalf = instrument.half;
     const worst = propagated + instrumentHalf;
     const parts: string[] = [];
     for (const key in c.tolerances)
       if (c.tolerances[key] > 0 && !(c.measured && key in c.measured) && typeof p[key] === "number") parts.push(`${paramLabel(t, key)} ±${c.tolerances[key]} %`);
-    if (c.instrument > 0) parts.push(`instrument ±${c.instrument} %`);
+    if (c.instrument > 0) parts.push(instrument.readings.length ? `instrument ±${c.instrument} % on each reading (${instrument.readings.join(", ")})` : `instrument ±${c.instrument} %`);
     const what = parts.length ? parts.join(", ") : "no component or instrument tolerances";
     const measuredText = c.measured ? " Expected value recomputed from your measured component values." : "";
     if (worst > half) {

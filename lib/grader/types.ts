@@ -103,4 +103,17 @@ export interface Template {
   answerNote?(params: Params, quantity: string, answer: number): string | undefined;
   /** a fixed half-width that replaces the relative tolerance (one ADC code), or undefined */
   exactBand?(params: Params, quantity: string): number | undefined;
+  /**
+   * For a bench quantity worked out from instrument readings (a difference, a ratio): the values read on
+   * the bench and the formula from them, so the instrument accuracy is applied to each reading and
+   * propagated. Without it, the quantity itself is the reading.
+   */
+  instrumentReadings?(params: Params, quantity: string): InstrumentReadings | undefined;
+}
+
+export interface InstrumentReadings {
+  /** the values read, by name (as the solution names them, e.g. "I_meas") */
+  values: Record<string, number>;
+  /** the quantity from the readings */
+  formula(readings: Record<string, number>): number;
 }

@@ -172,7 +172,7 @@ export const questions: LessonQuestion[] = [
     quantity: "thermalNoiseCurrent",
     unit: "pA",
     prompt:
-      "A {p.shuntResistance|MΩ} shunt at {p.temperature|K} is followed by a {p.filterResistance|kΩ} / {p.filterCapacitance|nF} low-pass filter. What rms noise current does the shunt's thermal noise amount to?",
+      "A {p.shuntResistance|MΩ} shunt at {p.temperature|K} is read by an amplifier whose output passes through a {p.filterResistance|kΩ} / {p.filterCapacitance|nF} low-pass filter, as in the drawing (the amplifier keeps the shunt out of the filter's time constant). What rms noise current does the shunt's thermal noise amount to in the filter's noise bandwidth?",
   },
   {
     id: "unc-amp-expanded",

@@ -238,9 +238,11 @@ describe("submitting attempts", () => {
 
   it("applies the late penalty per day down to the floor", async () => {
     // due 2.5 days ago at 30 % a day: 3 days late → 90 %, limited by the 50 % floor to a 50 % penalty
+    // (the default close would be ceil(50 / 30) = 2 days after the due date: this lab closes later)
     const id = await publishedLab({
       opensAt: new Date(Date.now() - 10 * DAY).toISOString(),
       dueAt: new Date(Date.now() - 2.5 * DAY).toISOString(),
+      closesAt: new Date(Date.now() + DAY).toISOString(),
       latePenaltyPercentPerDay: 30,
       lateFloorPercent: 50,
     });
@@ -397,11 +399,11 @@ describe("no expected value, band or solution while points can still be earned",
 
   for (const showExpected of ["after_due", "after_attempt"] as const) {
     it(`"${showExpected}": after the due date while late attempts still earn points, still hidden; once the lab closes, shown`, async () => {
-      // due a day ago, 10 % a day down to a 50 % floor: accepts late attempts for 5 days after the due date
+      // due half a day ago, 10 % a day down to a 50 % floor: accepts late attempts for 5 days after the due date
       const id = await publishedLab({
         showExpected,
         opensAt: new Date(Date.now() - 10 * DAY).toISOString(),
-        dueAt: new Date(Date.now() - DAY).toISOString(),
+        dueAt: new Date(Date.now() - DAY / 2).toISOString(),
       });
       const lab = await as.student.json(`/api/labs/${id}`);
       const due = new Date(lab.body.lab.dueAt).getTime();

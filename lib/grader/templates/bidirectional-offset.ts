@@ -71,6 +71,12 @@ export const bidirectionalOffset: Template = {
       out.push({ key: "sign-flip", value: -v.maxNegativeCurrent, detail: "The limit in the negative direction is a negative current: the output falls to 0 V." });
     return out;
   },
+  instrumentReadings(p, q) {
+    if (q !== "signedCurrent") return undefined;
+    // what is read is the output voltage; the offset and the sensitivity are given on the handout
+    const v = values(p);
+    return { values: { V_out: v.vout }, formula: (r) => (r.V_out - v.voff) / v.s };
+  },
   bandFloor(p, q, rel) {
     // near zero current, accept a tenth of the relative tolerance of the offset's worth of current
     const v = values(p);

@@ -69,6 +69,15 @@ export const shuntBurden: Template = {
     }
     return [];
   },
+  instrumentReadings(p, q) {
+    if (q !== "loadingErrorPercent") return undefined;
+    // the loading error comes from two current readings: with the meter's shunt in series and without it
+    const v = values(p);
+    return {
+      values: { I_meas: v.indicatedCurrent, I_true: v.trueCurrent },
+      formula: (r) => (100 * (r.I_meas - r.I_true)) / r.I_true,
+    };
+  },
   mistakes(p, q) {
     const v = values(p);
     switch (q) {

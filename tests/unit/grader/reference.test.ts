@@ -1,7 +1,7 @@
 // Check values from lib/grader/PHYSICS.md, each with its source as lib/grader/PHYSICS.md tags it. Expected values are typed in from
 // the document, not taken from the code.
 import { describe, expect, it } from "vitest";
-import { nearestStandard, templates, uncertaintyBudget, rangeTable, BOLTZMANN, ELEMENTARY_CHARGE } from "../../../lib/grader";
+import { gradeAttempt, nearestStandard, templates, uncertaintyBudget, rangeTable, BOLTZMANN, ELEMENTARY_CHARGE } from "../../../lib/grader";
 import { near } from "./helpers";
 
 const sb = (supplyVoltage: number, loadResistance: number, shuntResistance: number) =>
@@ -343,5 +343,62 @@ describe("§9 GUM uncertainty", () => {
     const cands = templates.uncertainty.mistakes(p9b, "expandedUncertainty");
     const linear = cands.filter((c) => c.key === "linear-sum").map((c) => c.value as number);
     expect(linear.some((x) => Math.abs(x / 1.7e-3 - 1) < 5e-4)).toBe(true);
+  });
+});
+
+describe("bench bands: instrument accuracy on the quantities actually read (worked by hand)", () => {
+  // Worst-case first-order propagation, Σ|∂q/∂r_i|·Δr_i, as in JCGM 100:2008 (GUM) §5.1.2 with worst-case
+  // (linear) instead of quadrature summation; the arithmetic below is done by hand.
+  const policy = { relativeTolerance: 0.0001, instrumentAccuracyPercent: 0.5 };
+
+  it("loading error from two current readings, each ±0.5 %: about ±1 percentage point, not ±0.005", () => {
+    // V_s = 3.3 V, R_L = 1 kΩ, R_sh = 10 Ω (no component tolerances given)
+    // I_true = 3.3 mA, I_meas = 3.3/1010 = 3.267327 mA, ε = 100·(I_meas − I_true)/I_true = −0.990099 %
+    // ∂ε/∂I_meas · ΔI_meas = (100/I_true)·0.005·I_meas = 0.5·(I_meas/I_true) = 0.5·0.990099 = 0.495050
+    // ∂ε/∂I_true · ΔI_true = (100·I_meas/I_true²)·0.005·I_true = 0.495050  → half-width 0.990099 points
+    const r = gradeAttempt({
+      template: "shunt-burden",
+      params: { supplyVoltage: 3.3, loadResistance: 1000, shuntResistance: 10 },
+      questions: [{ quantity: "loadingErrorPercent", kind: "bench", points: 1 }],
+      readings: ["-0.99 %"],
+      policy,
+    }).results[0];
+    expect(r.band![1] - r.band![0]).toBeCloseTo(2 * 0.990099, 5);
+    expect(r.feedback).toMatch(/I_meas, I_true/);
+    // a student whose two readings were each 0.4 % off in opposite directions: ε = 100·(1.004·I_meas/(0.996·I_true) − 1) = −0.1948 %
+    const off = gradeAttempt({
+      template: "shunt-burden",
+      params: { supplyVoltage: 3.3, loadResistance: 1000, shuntResistance: 10 },
+      questions: [{ quantity: "loadingErrorPercent", kind: "bench", points: 1 }],
+      readings: ["-0.195 %"],
+      policy,
+    }).results[0];
+    expect(off.verdict).toBe("correct");
+  });
+
+  it("signed current from the output voltage read ±0.5 %: ΔI = 0.005·V_out/S", () => {
+    // V_off = 1.65 V (given), S = 10 V/A (given), V_out = 2.1 V read: I = (2.1 − 1.65)/10 = 45 mA
+    // ΔI = 0.005 · 2.1 V / 10 V/A = 1.05 mA (the old band, 0.5 % of 45 mA, was 0.225 mA)
+    const r = gradeAttempt({
+      template: "bidirectional-offset",
+      params: { offsetVoltage: 1.65, sensitivity: 10, outputVoltage: 2.1, fullScaleVoltage: 3.3 },
+      questions: [{ quantity: "signedCurrent", kind: "bench", points: 1 }],
+      readings: ["45 mA"],
+      policy,
+    }).results[0];
+    expect((r.band![1] - r.band![0]) / 2).toBeCloseTo(1.05e-3, 9);
+    expect(r.band![0]).toBeCloseTo(0.045 - 1.05e-3, 9);
+  });
+
+  it("a quantity read directly keeps ±0.5 % of itself: burden voltage 32.67 mV → ±0.163 mV", () => {
+    // V_B = 3.267327 mA · 10 Ω = 32.67327 mV; 0.5 % of it = 0.163366 mV
+    const r = gradeAttempt({
+      template: "shunt-burden",
+      params: { supplyVoltage: 3.3, loadResistance: 1000, shuntResistance: 10 },
+      questions: [{ quantity: "burdenVoltage", kind: "bench", points: 1 }],
+      readings: ["32.67 mV"],
+      policy,
+    }).results[0];
+    expect((r.band![1] - r.band![0]) / 2).toBeCloseTo(0.163366e-3, 8);
   });
 });
