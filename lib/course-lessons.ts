@@ -2,6 +2,7 @@
 import "server-only";
 import { db } from "@/db";
 import { listCourseLessons, replaceCourseLessons } from "@/db/queries/course-lessons";
+import { listCoursesForUser } from "@/db/queries/courses";
 import { AppError } from "@/lib/errors";
 import { listLessons, type LessonSummary } from "@/lib/lessons";
 import type { z } from "zod";
@@ -50,4 +51,35 @@ export async function savePlan(courseId: string, plan: z.output<typeof lessonPla
     courseId,
     plan.lessons.map((l, i) => ({ slug: l.slug, position: i + 1, visible: l.visible, opensAt: l.opensAt ?? null })),
   );
+}
+
+export interface LessonCourse {
+  id: string;
+  code: string;
+  title: string;
+}
+
+/** Every lesson `user` may read now (the rule of `lessonAccess`, for all lessons at once). */
+export async function readableLessonSlugs(user: { id: string; isAdmin: boolean }, now = new Date()): Promise<Set<string>> {
+  const all = listLessons().map((l) => l.slug);
+  const memberships = await listCoursesForUser(db, user.id);
+  if (user.isAdmin || memberships.some((m) => m.role === "ta" || m.role === "instructor")) return new Set(all);
+  const out = new Set<string>();
+  for (const m of memberships) for (const l of await coursePlan(m.id, now)) if (l.open) out.add(l.slug);
+  return out;
+}
+
+/**
+ * Whether `user` may read lesson `slug` now, and through which of their courses. The site admin and the
+ * staff of any course read every lesson; a student reads a lesson one of their courses shows and has
+ * opened. `courses` lists the courses that grant it (for the page's course navigation).
+ */
+export async function lessonAccess(user: { id: string; isAdmin: boolean }, slug: string, now = new Date()): Promise<{ readable: boolean; courses: LessonCourse[] }> {
+  const memberships = await listCoursesForUser(db, user.id);
+  const courses: LessonCourse[] = [];
+  for (const m of memberships) {
+    const staff = m.role === "ta" || m.role === "instructor";
+    if (staff || (await coursePlan(m.id, now)).some((l) => l.slug === slug && l.open)) courses.push({ id: m.id, code: m.code, title: m.title });
+  }
+  return { readable: user.isAdmin || courses.length > 0, courses };
 }

@@ -1,35 +1,42 @@
-// A lesson page: static (one page per MDX file, no other slugs), math typeset at build time by
-// rehype-katex, calculators hydrated as client components. Sign-in is enforced by the proxy.
+// A lesson page: one per MDX file, math typeset at build time by rehype-katex (no KaTeX code reaches the
+// browser), calculators hydrated as client components. Rendered per request: the server checks that one
+// of the reader's courses shows the lesson and has opened it (staff and the site admin read every lesson);
+// anyone else gets the not-found page. The proxy only redirects early.
 import type { Metadata } from "next";
 import Link from "next/link";
-import { notFound } from "next/navigation";
-import { getLesson, lessonContents, listLessons, neighbours } from "@/lib/lessons";
+import { notFound, redirect } from "next/navigation";
+import { getLesson, lessonContents, neighbours } from "@/lib/lessons";
+import { currentUser } from "@/lib/auth/access";
+import { lessonAccess } from "@/lib/course-lessons";
 import { lessonComponents } from "@/components/lesson/mdx";
 import { CourseLessonNav } from "@/components/lesson/CourseLessonNav";
+import { AppHeader } from "@/components/shell/app-header";
 import { Suspense } from "react";
 
-export const dynamicParams = false;
-
-export function generateStaticParams() {
-  return listLessons().map((l) => ({ slug: l.slug }));
-}
-
-type Props = { params: Promise<{ slug: string }> };
+type Props = { params: Promise<{ slug: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> };
 
 export async function generateMetadata({ params }: Props): Promise<Metadata> {
   const lesson = getLesson((await params).slug);
   return lesson ? { title: lesson.title, description: lesson.summary } : {};
 }
 
-export default async function LessonPage({ params }: Props) {
+export default async function LessonPage({ params, searchParams }: Props) {
   const { slug } = await params;
   const lesson = getLesson(slug);
   if (!lesson) notFound();
+  const user = await currentUser();
+  if (!user) redirect(`/signin?next=${encodeURIComponent(`/lessons/${slug}`)}`);
+  const access = await lessonAccess(user, slug);
+  if (!access.readable) notFound();
+  const wanted = (await searchParams).course;
+  const course = access.courses.find((c) => c.id === wanted) ?? access.courses[0] ?? null;
   const { default: Content } = await import(`@/content/lessons/${slug}.mdx`);
   const toc = lessonContents(slug);
   const { previous, next } = neighbours(slug);
 
   return (
+    <>
+    <AppHeader user={user} course={course} current="lessons" />
     <div className="mx-auto max-w-6xl px-4 py-8 print:max-w-none print:p-0">
       <nav aria-label="Breadcrumb" className="no-print mb-4 text-sm">
         <Link href="/lessons">All lessons</Link> <span aria-hidden="true">/</span> <span>Lesson {lesson.order}</span>
@@ -84,5 +91,6 @@ export default async function LessonPage({ params }: Props) {
         </aside>
       </div>
     </div>
+    </>
   );
 }
