@@ -58,6 +58,31 @@ describe("a course's lesson plan", () => {
     expect(staff.body.lessons.find((l: { slug: string }) => l.slug === "noise-floor").visible).toBe(false);
   });
 
+  it("a student gets the not-found page for a hidden lesson and one not yet open; staff read both (checked on the server)", async () => {
+    // the plan of the test above: burden-voltage and bench-safety open, duty-cycled-loads opens in 5 days,
+    // noise-floor hidden, every other lesson left out of the plan (hidden)
+    for (const slug of ["noise-floor", "duty-cycled-loads", "resolution"]) {
+      const r = await as.student.fetch(`/lessons/${slug}`);
+      expect(r.status, slug).toBe(404);
+      expect(await r.text()).toContain("Not found");
+    }
+    const open = await as.student.fetch(`/lessons/burden-voltage?course=${f.courseId}`);
+    expect(open.status).toBe(200);
+    const html = await open.text();
+    // the app header with the course's navigation
+    expect(html).toContain('aria-label="Course"');
+    expect(html).toContain(`href="/courses/${f.courseId}/labs"`);
+    expect(html).toContain(`href="/courses/${f.courseId}/lessons"`);
+    for (const slug of ["noise-floor", "duty-cycled-loads"]) expect((await as.ta.fetch(`/lessons/${slug}`)).status, slug).toBe(200);
+    // someone in no course reads no lesson
+    expect((await as.outsider.fetch("/lessons/burden-voltage")).status).toBe(404);
+    // the index lists only what the student may read
+    const index = await (await as.student.fetch("/lessons")).text();
+    expect(index).toContain('href="/lessons/burden-voltage"');
+    expect(index).not.toContain('href="/lessons/noise-floor"');
+    expect(index).not.toContain('href="/lessons/duty-cycled-loads"');
+  });
+
   it("answers an unknown lesson or a repeated one with 400 and keeps the saved plan", async () => {
     const before = (await as.student.json(path())).body.lessons;
     const unknown = await put(as.instructor, { lessons: [{ slug: "no-such-lesson", visible: true }] });
