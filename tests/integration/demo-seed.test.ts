@@ -8,6 +8,9 @@ import { seedStorageFromEnv } from "@/db/seed/storage";
 import { listGradeEvents } from "@/db/queries/grade-events";
 import { listReviews } from "@/db/queries/reviews";
 import { MISTAKE_KEYS } from "@/lib/grader";
+import { findLab } from "@/db/queries/labs";
+import { toLab } from "@/lib/labs/grading";
+import { canStillEarn, expectedVisible } from "@/lib/labs/policy";
 
 describe("the demo seed", () => {
   it("creates the course, its people and labs in every state, and a second run changes nothing", async () => {
@@ -72,5 +75,24 @@ describe("the demo seed", () => {
     const before = await sql<{ n: number }>`select count(*)::int n from grade_events`.execute(db);
     await seedDemo(db, { storage: seedStorageFromEnv(process.env) });
     expect((await sql<{ n: number }>`select count(*)::int n from grade_events`.execute(db)).rows[0].n).toBe(before.rows[0].n);
+  });
+
+  it("lets no student copy expected values for points: every attempt a student can still improve on hides them", async () => {
+    await seedDemo(db, { storage: seedStorageFromEnv(process.env) });
+    const now = new Date();
+    const rows = await sql<{ lab_id: string; user_id: string; n: number }>`
+      select a.lab_id, a.user_id, count(*)::int n from attempts a join labs l on l.id = a.lab_id where l.status = 'published' group by a.lab_id, a.user_id`.execute(db);
+    let hidden = 0;
+    let shown = 0;
+    for (const r of rows.rows) {
+      const lab = toLab((await findLab(db, r.lab_id))!);
+      const visible = expectedVisible(lab, r.n, now);
+      if (canStillEarn(lab, r.n, now)) expect(visible).toBe(false);
+      if (visible) shown++;
+      else hidden++;
+    }
+    // the demo shows both: finished labs with their answers, open labs without
+    expect(shown).toBeGreaterThan(0);
+    expect(hidden).toBeGreaterThan(0);
   });
 });
