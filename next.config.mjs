@@ -9,6 +9,26 @@ const nextConfig = {
   poweredByHeader: false,
   // `forbidden()` from next/navigation: a page a member's role does not allow answers 403.
   experimental: { authInterrupts: true },
+  // Pages get their headers (with a per-request script nonce) from proxy.ts. The proxy does not run for
+  // the API (so request bodies reach the route handlers as streams, unbuffered) or for built files;
+  // these get fixed headers here.
+  async headers() {
+    const common = [
+      { key: "X-Content-Type-Options", value: "nosniff" },
+      { key: "Referrer-Policy", value: "same-origin" },
+    ];
+    return [
+      {
+        source: "/api/:path*",
+        headers: [
+          ...common,
+          { key: "Content-Security-Policy", value: "default-src 'none'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'" },
+          { key: "X-Frame-Options", value: "DENY" },
+        ],
+      },
+      { source: "/_next/:path*", headers: common },
+    ];
+  },
 };
 
 const withMDX = createMDX({

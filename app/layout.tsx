@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import localFont from "next/font/local";
+import { connection } from "next/server";
 import "katex/dist/katex.min.css";
 import "./globals.css";
 
@@ -23,7 +24,9 @@ export const metadata: Metadata = {
   manifest: "/manifest.webmanifest",
 };
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  // Every page is rendered per request: its scripts carry that request's nonce (see proxy.ts).
+  await connection();
   return (
     <html lang="en" className={figtree.variable}>
       <body className="min-h-screen font-sans">{children}</body>

@@ -7,9 +7,75 @@ import { invalid, parseOr400 } from "@/lib/validation/zod-errors";
 
 type Ctx<P> = { params: Promise<P> };
 
+const STATE_CHANGING = new Set(["POST", "PUT", "PATCH", "DELETE"]);
+
+/** Largest JSON body a route reads (a lab with long instructions is well under it). */
+export const MAX_JSON_BYTES = 256 * 1024;
+
+function originOf(url: string | undefined | null): string | null {
+  if (!url) return null;
+  try {
+    return new URL(url).origin;
+  } catch {
+    return null;
+  }
+}
+
+/**
+ * Cross-site request refusal for state-changing methods: the browser's `Origin` must be this site's
+ * (the public address in NEXTAUTH_URL, or the address the request was made to). Browsers send `Origin`
+ * with every POST, PUT, PATCH and DELETE; other clients must send it too.
+ */
+export function assertSameOrigin(req: Request): void {
+  const origin = req.headers.get("origin");
+  const host = req.headers.get("x-forwarded-host") ?? req.headers.get("host");
+  const proto = req.headers.get("x-forwarded-proto") ?? new URL(req.url).protocol.replace(":", "");
+  const allowed = [originOf(process.env.NEXTAUTH_URL), originOf(process.env.APP_URL), host ? originOf(`${proto}://${host}`) : null];
+  if (!origin || origin === "null" || !allowed.includes(origin)) {
+    throw new AppError("forbidden", "This change must come from a page of this site (the Origin header is missing or another site's).", {
+      origin: ["Send the Origin header of this site."],
+    });
+  }
+}
+
+/**
+ * Reads a request body as bytes, counting as they arrive and stopping at `cap` (413), whether or not a
+ * Content-Length was sent.
+ */
+export async function readCapped(req: Request, cap: number, field = "body"): Promise<Uint8Array> {
+  const tooLarge = () =>
+    new AppError("payload_too_large", `The request body is larger than the ${Math.round(cap / 1024)} KB limit.`, {
+      [field]: [`At most ${Math.round(cap / 1024)} KB.`],
+    });
+  const declared = Number(req.headers.get("content-length") ?? NaN);
+  if (Number.isFinite(declared) && declared > cap) throw tooLarge();
+  if (!req.body) return new Uint8Array();
+  const reader = req.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let total = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    total += value.byteLength;
+    if (total > cap) {
+      await reader.cancel().catch(() => {});
+      throw tooLarge();
+    }
+    chunks.push(value);
+  }
+  const out = new Uint8Array(total);
+  let at = 0;
+  for (const c of chunks) {
+    out.set(c, at);
+    at += c.byteLength;
+  }
+  return out;
+}
+
 export function route<P = Record<string, string>>(handler: (req: Request, params: P) => Promise<Response>) {
   return async (req: Request, ctx: Ctx<P>): Promise<Response> => {
     try {
+      if (STATE_CHANGING.has(req.method)) assertSameOrigin(req);
       return await handler(req, await ctx.params);
     } catch (e) {
       return errorResponse(e);
@@ -18,6 +84,8 @@ export function route<P = Record<string, string>>(handler: (req: Request, params
 }
 
 export function errorResponse(e: unknown): Response {
+  // A body cut at its limit leaves unread bytes on the connection: close it rather than reuse it.
+  if (e instanceof AppError && e.code === "payload_too_large") return NextResponse.json(e.toJSON(), { status: e.status, headers: { connection: "close" } });
   if (e instanceof AppError) return NextResponse.json(e.toJSON(), { status: e.status });
   if (e instanceof z.ZodError) {
     const err = invalid(e);
@@ -27,13 +95,23 @@ export function errorResponse(e: unknown): Response {
   return NextResponse.json({ error: { code: "internal", message: "Something went wrong on the server." } }, { status: 500 });
 }
 
-/** Reads a JSON body and validates it; malformed JSON is a 400 that says so. */
+/**
+ * Reads a JSON body (Content-Type application/json, at most MAX_JSON_BYTES) and validates it; another
+ * type is a 415, a larger body a 413, malformed JSON a 400 that says so.
+ */
 export async function jsonBody<T extends z.ZodType>(req: Request, schema: T): Promise<z.infer<T>> {
+  const type = (req.headers.get("content-type") ?? "").split(";")[0].trim().toLowerCase();
+  if (type !== "application/json") {
+    throw new AppError("unsupported_media_type", "Send the body as JSON with Content-Type: application/json.", {
+      "content-type": ["Must be application/json."],
+    });
+  }
+  const bytes = await readCapped(req, MAX_JSON_BYTES);
   let data: unknown;
   try {
-    data = await req.json();
+    data = JSON.parse(new TextDecoder("utf-8", { fatal: true }).decode(bytes));
   } catch {
-    throw new AppError("bad_request", "The request body must be JSON.");
+    throw new AppError("bad_request", "The request body must be JSON.", { body: ["Not valid JSON."] });
   }
   return parseOr400(schema, data);
 }

@@ -5,6 +5,7 @@ import { signIn } from "next-auth/react";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Field, FormMessage } from "@/components/ui/field";
+import { safeNext } from "@/lib/auth/safe-next";
 import { signInSchema, type SignInInput } from "@/lib/validation/auth";
 
 export const BAD_CREDENTIALS = "That e-mail and password do not match an account. Check both and try again.";
@@ -21,7 +22,7 @@ export function SignInForm({ next }: { next?: string }) {
       return;
     }
     // A full navigation, so no page prefetched while signed out is reused.
-    window.location.assign(next && next.startsWith("/") && !next.startsWith("//") ? next : "/");
+    window.location.assign(safeNext(next));
   });
 
   return (

@@ -1,8 +1,10 @@
 "use client";
-// The settings page's two forms: graded-attempt e-mails on or off, and a new password.
+
+// The settings page's forms: graded-attempt e-mails on or off, a new password, sign out on every device.
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation } from "@tanstack/react-query";
 import { useState } from "react";
+import { signIn, signOut } from "next-auth/react";
 import { useForm } from "react-hook-form";
 import { Field, FormMessage } from "@/components/ui/field";
 import { useHydrated } from "@/components/ui/use-hydrated";
@@ -43,12 +45,16 @@ export function GradeMailForm({ initial }: { initial: boolean }) {
   );
 }
 
-export function ChangePasswordForm() {
+export function ChangePasswordForm({ email }: { email: string }) {
   const hydrated = useHydrated();
   const { register, handleSubmit, formState, reset, setError } = useForm<ChangePasswordInput>({ resolver: zodResolver(changePasswordSchema) });
   const change = useMutation({
     mutationFn: (body: ChangePasswordInput) => api<{ message: string }>("/api/me/password", { method: "POST", body }),
-    onSuccess: () => reset({ currentPassword: "", newPassword: "", confirm: "" }),
+    // the change ends every session signed in before it, this one too: sign this one in again
+    onSuccess: async (_data, body) => {
+      await signIn("credentials", { email, password: body.newPassword, redirect: false });
+      reset({ currentPassword: "", newPassword: "", confirm: "" });
+    },
     onError: (e) => {
       const f = isApiError(e) ? e.fields : undefined;
       if (f?.currentPassword) setError("currentPassword", { type: "server", message: f.currentPassword[0] });
@@ -72,6 +78,27 @@ export function ChangePasswordForm() {
           {formState.isSubmitting ? "Saving…" : "Change password"}
         </button>
       </form>
+    </section>
+  );
+}
+
+export function SignOutEverywhere() {
+  const end = useMutation({
+    mutationFn: () => api<{ signedOutAt: string }>("/api/me/sign-out-everywhere", { method: "POST", body: {} }),
+    onSuccess: () => signOut({ callbackUrl: "/signin" }),
+  });
+  return (
+    <section aria-labelledby="everywhere-heading" className="card mt-6">
+      <h2 id="everywhere-heading" className="text-xl">
+        Sign out on every device
+      </h2>
+      <p className="mt-2 max-w-prose text-sm text-ink-soft">
+        After using a shared lab computer, or if you think someone else has your session: every device where you are signed in, this one too, is signed out.
+      </p>
+      <FormMessage message={end.isError ? failure(end.error) : null} />
+      <button type="button" className="btn-quiet mt-3" disabled={end.isPending} onClick={() => end.mutate()}>
+        {end.isPending ? "Signing out…" : "Sign out on every device"}
+      </button>
     </section>
   );
 }

@@ -57,6 +57,12 @@ export async function sessionsValidAfter(db: Db, id: string): Promise<Date | nul
   return r?.at ?? null;
 }
 
+/** Ends every session of the user signed in until `at` (sign out on every device). */
+export async function revokeSessions(db: Db, userId: string, at = new Date()): Promise<Date> {
+  await db.updateTable("users").set({ sessions_valid_after: at }).where("id", "=", userId).execute();
+  return at;
+}
+
 /** The graded-e-mail preference and other settings a user changes on their settings page. */
 export async function findPreferences(db: Db, id: string) {
   return db.selectFrom("users").select(["grade_mail as gradeMail"]).where("id", "=", id).executeTakeFirst();

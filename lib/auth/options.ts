@@ -4,11 +4,14 @@ import CredentialsProvider from "next-auth/providers/credentials";
 import { db } from "@/db";
 import { findCredentials, sessionsValidAfter } from "@/db/queries/users";
 import { uuidSchema } from "@/lib/validation/common";
+import { isHttps } from "@/lib/security/headers";
 import { signInSchema } from "@/lib/validation/auth";
 import { checkPassword } from "./password";
 
 export const authOptions: NextAuthOptions = {
   session: { strategy: "jwt", maxAge: 14 * 24 * 3600 },
+  // `Secure` cookies (and the __Secure- prefix) whenever the public address is https.
+  useSecureCookies: isHttps(process.env.NEXTAUTH_URL),
   pages: { signIn: "/signin", error: "/signin" },
   providers: [
     CredentialsProvider({

@@ -33,5 +33,6 @@ export async function changePassword(db: Kysely<Database>, user: { id: string; e
   if (!found || found.id !== user.id || !(await checkPassword(found.passwordHash, current))) {
     throw new AppError("bad_request", "Your current password is not right.", { currentPassword: ["That is not your current password."] });
   }
-  await setPassword(db, user.id, await hashPassword(next));
+  // every session signed in before, on every device, ends (the form signs this one in again)
+  await setPassword(db, user.id, await hashPassword(next), { signOutBefore: new Date() });
 }

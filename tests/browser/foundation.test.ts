@@ -14,7 +14,7 @@ describe("signing in", () => {
   it("a demo student signs in and sees their course with their role", async () => {
     const { context, page } = await newPage(browser);
     await signIn(page, demo.student);
-    await expect(page.getByRole("heading", { name: "My courses" }).isVisible()).resolves.toBe(true);
+    await page.getByRole("heading", { name: "My courses" }).waitFor();
     const course = page.getByRole("link", { name: "Measuring Small Currents" });
     await course.click();
     await page.waitForURL(/\/courses\/[0-9a-f-]{36}$/);

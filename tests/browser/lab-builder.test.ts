@@ -5,7 +5,7 @@
 // A teaching assistant is refused the builder.
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { demo, launch, newPage, signIn } from "./harness";
+import { baseURL, demo, launch, newPage, signIn } from "./harness";
 
 let browser: Browser;
 let courseId = "";
@@ -168,6 +168,7 @@ describe("lab builder (flow 2)", () => {
 
       // One attempt, so that the next test's edit recomputes a grade.
       const res = await page.request.post(`/api/labs/${labId}/attempts`, {
+        headers: { origin: baseURL },
         data: { idempotencyKey: `builder-test-${labId}`, readings: { q1: "1 mA", q2: "10 mV" } },
       });
       expect(res.status()).toBe(201);

@@ -8,7 +8,7 @@ import type { Browser, BrowserContext, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { formatQuantity, templates, type Params } from "@/lib/grader";
 import { squareWaveCsv } from "@/lib/trace";
-import { demo, launch, newPage, signIn } from "./harness";
+import { baseURL, demo, launch, newPage, signIn } from "./harness";
 
 let browser: Browser;
 // One signed-in context per person for the whole file: sign-in hashes a password, which is slow on a busy machine.
@@ -19,7 +19,7 @@ let attemptId: string;
 const TITLE = `Browser lab: a sleeping node ${Date.now().toString(36)}`;
 
 async function apiJson(context: BrowserContext, method: "GET" | "POST" | "PATCH", url: string, data?: unknown) {
-  const res = await context.request.fetch(url, { method, data, headers: data ? { "content-type": "application/json" } : undefined });
+  const res = await context.request.fetch(url, { method, data, headers: data ? { "content-type": "application/json", origin: baseURL } : undefined });
   return { status: res.status(), body: await res.json().catch(() => null) };
 }
 

@@ -13,6 +13,13 @@ export class Client {
     }
   }
 
+  /** A second client holding a copy of this one's cookies (a copied session token). */
+  copy(): Client {
+    const c = new Client();
+    for (const [k, v] of this.cookies) c.cookies.set(k, v);
+    return c;
+  }
+
   private cookieHeader(): string {
     return [...this.cookies].map(([k, v]) => `${k}=${v}`).join("; ");
   }
@@ -20,6 +27,9 @@ export class Client {
   async fetch(path: string, init: RequestInit = {}): Promise<Response> {
     const headers = new Headers(init.headers);
     if (this.cookies.size) headers.set("cookie", this.cookieHeader());
+    // as a browser does for every POST, PUT, PATCH and DELETE (the API refuses them without it)
+    const method = (init.method ?? "GET").toUpperCase();
+    if (method !== "GET" && method !== "HEAD" && !headers.has("origin")) headers.set("origin", new URL(baseURL).origin);
     const res = await fetch(baseURL + path, { ...init, headers, redirect: "manual" });
     this.remember(res);
     return res;

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { db } from "@/db";
 import { findPreferences } from "@/db/queries/users";
-import { ChangePasswordForm, GradeMailForm } from "@/components/mail/settings-forms";
+import { ChangePasswordForm, GradeMailForm, SignOutEverywhere } from "@/components/mail/settings-forms";
 import { forPage, requireUser } from "@/lib/auth/access";
 
 export const metadata: Metadata = { title: "Settings" };
@@ -18,7 +18,8 @@ export default async function SettingsPage() {
         Signed in as <span className="font-mono text-xs">{user.email}</span>.
       </p>
       <GradeMailForm initial={prefs?.gradeMail ?? true} />
-      <ChangePasswordForm />
+      <ChangePasswordForm email={user.email} />
+      <SignOutEverywhere />
     </>
   );
 }

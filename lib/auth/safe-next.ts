@@ -1,0 +1,19 @@
+// Where to go after signing in: only ever a path on this site. `?next=` comes from the address bar, so
+// `//evil.example`, `/\evil.example` (browsers read a backslash as a slash), `https://…`, control
+// characters and anything that resolves to another origin fall back to the home page.
+const BASE = "http://shuntwise.invalid";
+
+export function safeNext(next: string | null | undefined, fallback = "/"): string {
+  if (typeof next !== "string" || !next.startsWith("/") || next.length > 2000) return fallback;
+  // eslint-disable-next-line no-control-regex
+  if (/[\\\u0000-\u001f\u007f]/.test(next)) return fallback;
+  if (next.startsWith("//")) return fallback;
+  let url: URL;
+  try {
+    url = new URL(next, BASE);
+  } catch {
+    return fallback;
+  }
+  if (url.origin !== BASE) return fallback;
+  return url.pathname + url.search + url.hash;
+}
