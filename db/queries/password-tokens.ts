@@ -38,7 +38,6 @@ export async function retireTokens(db: Db, userId: string, now: Date) {
   await db.updateTable("password_tokens").set({ used_at: now }).where("user_id", "=", userId).where("used_at", "is", null).execute();
 }
 
-export async function setPasswordHash(db: Db, userId: string, passwordHash: string) {
-  await db.updateTable("users").set({ password_hash: passwordHash }).where("id", "=", userId).execute();
-}
+// Setting a password (reset or first one) also ends the sessions signed in before: one function for both.
+export { setPasswordHash } from "./users";
 
