@@ -96,10 +96,10 @@ export function errorResponse(e: unknown): Response {
 }
 
 /**
- * Reads a JSON body (Content-Type application/json, at most MAX_JSON_BYTES) and validates it; another
- * type is a 415, a larger body a 413, malformed JSON a 400 that says so.
+ * Reads a JSON body: Content-Type application/json (else 415), at most MAX_JSON_BYTES counted as it
+ * streams (else 413), well-formed (else 400 that says so).
  */
-export async function jsonBody<T extends z.ZodType>(req: Request, schema: T): Promise<z.infer<T>> {
+export async function readJson(req: Request): Promise<unknown> {
   const type = (req.headers.get("content-type") ?? "").split(";")[0].trim().toLowerCase();
   if (type !== "application/json") {
     throw new AppError("unsupported_media_type", "Send the body as JSON with Content-Type: application/json.", {
@@ -107,12 +107,16 @@ export async function jsonBody<T extends z.ZodType>(req: Request, schema: T): Pr
     });
   }
   const bytes = await readCapped(req, MAX_JSON_BYTES);
-  let data: unknown;
   try {
-    data = JSON.parse(new TextDecoder("utf-8", { fatal: true }).decode(bytes));
+    return JSON.parse(new TextDecoder("utf-8", { fatal: true }).decode(bytes));
   } catch {
     throw new AppError("bad_request", "The request body must be JSON.", { body: ["Not valid JSON."] });
   }
+}
+
+/** Reads a JSON body (see readJson) and validates it against the mutation's schema. */
+export async function jsonBody<T extends z.ZodType>(req: Request, schema: T): Promise<z.infer<T>> {
+  const data = await readJson(req);
   return parseOr400(schema, data);
 }
 

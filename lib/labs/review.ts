@@ -2,6 +2,7 @@
 // points or a re-run of the grader, the answer to a review request, and an attempt's grade history.
 // Every function checks who is asking; every grade change runs in one transaction on the locked attempt.
 import "server-only";
+import { readJson } from "@/lib/api";
 import { db } from "@/db";
 import { findAttempt } from "@/db/queries/attempts";
 import { listGradeEvents, type GradeEventRow } from "@/db/queries/grade-events";
@@ -43,10 +44,7 @@ async function tracesOf(uploadIds: string[]): Promise<StoredTrace[]> {
 
 /** The JSON body, read after the caller is authorized (so a refusal never depends on the body). */
 export function bodyOf(req: Request): () => Promise<unknown> {
-  return () =>
-    req.json().catch(() => {
-      throw new AppError("bad_request", "The request body must be JSON.");
-    });
+  return () => readJson(req);
 }
 
 /** `{ questionId, points, reason }` sets one question's points; `{ rerun: true, reason }` re-runs the grader. */
