@@ -38,6 +38,3 @@ export async function retireTokens(db: Db, userId: string, now: Date) {
   await db.updateTable("password_tokens").set({ used_at: now }).where("user_id", "=", userId).where("used_at", "is", null).execute();
 }
 
-// Setting a password (reset or first one) also ends the sessions signed in before: one function for both.
-export { setPasswordHash } from "./users";
-
