@@ -218,7 +218,15 @@ export interface PasswordTokensTable {
   created_at: Generated<Date>;
 }
 
+/** The throttles' counters (rate-limiter-flexible's layout; lib/security/throttle.ts). */
+export interface RateLimitsTable {
+  key: string;
+  points: Generated<number>;
+  expire: string | null;
+}
+
 export interface Database {
+  rate_limits: RateLimitsTable;
   users: UsersTable;
   courses: CoursesTable;
   memberships: MembershipsTable;

@@ -86,6 +86,9 @@ export function route<P = Record<string, string>>(handler: (req: Request, params
 export function errorResponse(e: unknown): Response {
   // A body cut at its limit leaves unread bytes on the connection: close it rather than reuse it.
   if (e instanceof AppError && e.code === "payload_too_large") return NextResponse.json(e.toJSON(), { status: e.status, headers: { connection: "close" } });
+  if (e instanceof AppError && "retryAfterSeconds" in e) {
+    return NextResponse.json(e.toJSON(), { status: e.status, headers: { "retry-after": String(e.retryAfterSeconds) } });
+  }
   if (e instanceof AppError) return NextResponse.json(e.toJSON(), { status: e.status });
   if (e instanceof z.ZodError) {
     const err = invalid(e);

@@ -157,7 +157,8 @@ async function main(): Promise<Counts> {
     if (port !== cfg[key]) console.log(`Port ${cfg[key]} is taken; using ${port} instead.`);
     cfg[key] = port;
   }
-  const env = appEnv(cfg, e2eUrl);
+  // the whole suite signs in from 127.0.0.1: per-address throttles scaled up (per-account ones unchanged)
+  const env = { ...appEnv(cfg, e2eUrl), SHUNTWISE_PER_ADDRESS_FACTOR: process.env.SHUNTWISE_PER_ADDRESS_FACTOR ?? "100" };
   standIns = await startStandIns(cfg);
   for (const url of [testUrl, e2eUrl]) {
     const db = createDb(url, 2);

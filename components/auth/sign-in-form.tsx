@@ -8,6 +8,7 @@ import { Field, FormMessage } from "@/components/ui/field";
 import { safeNext } from "@/lib/auth/safe-next";
 import { signInSchema, type SignInInput } from "@/lib/validation/auth";
 
+export const TOO_MANY = "Too many sign-in attempts in a short time. Wait a few minutes and try again, or reset your password.";
 export const BAD_CREDENTIALS = "That e-mail and password do not match an account. Check both and try again.";
 
 export function SignInForm({ next }: { next?: string }) {
@@ -17,6 +18,10 @@ export function SignInForm({ next }: { next?: string }) {
   const onSubmit = handleSubmit(async (values) => {
     setMessage(null);
     const res = await signIn("credentials", { ...values, redirect: false });
+    if (res?.error === "TooManyRequests") {
+      setMessage(TOO_MANY);
+      return;
+    }
     if (!res || res.error) {
       setMessage(BAD_CREDENTIALS);
       return;

@@ -31,16 +31,17 @@ export const authOptions: NextAuthOptions = {
     async jwt({ token, user }) {
       // `at`: when this sign-in happened. next-auth renews `iat` whenever it re-issues the cookie, so the
       // sign-in time travels separately; sessions signed in before a password reset are refused below.
-      const at = user ? Math.floor(Date.now() / 1000) : ((token.at as number | undefined) ?? token.iat);
+      // milliseconds, so that a sign-in just after a revocation (in the same second) still counts
+      const at = user ? Date.now() : ((token.at as number | undefined) ?? (token.iat as number | undefined));
       if (user) token.sub = user.id;
       // Nothing else goes into the token: names, roles and the admin flag are read fresh on each request.
       return { sub: token.sub, at, iat: token.iat, exp: token.exp, jti: token.jti };
     },
     async session({ session, token }) {
-      const at = (token.at as number | undefined) ?? (token.iat as number | undefined) ?? 0;
+      const raw = (token.at as number | undefined) ?? (token.iat as number | undefined) ?? 0;
+      const at = raw < 1e11 ? raw * 1000 : raw; // tokens from before `at` was in milliseconds carry seconds
       const validAfter = token.sub && uuidSchema.safeParse(token.sub).success ? await sessionsValidAfter(db, token.sub) : null;
-      // whole seconds, like the token's times: a session from before the reset's second is void
-      if (validAfter && at < Math.floor(validAfter.getTime() / 1000)) return { expires: session.expires } as typeof session;
+      if (validAfter && at < validAfter.getTime()) return { expires: session.expires } as typeof session;
       return { expires: session.expires, user: { id: token.sub } } as typeof session;
     },
   },

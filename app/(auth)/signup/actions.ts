@@ -1,6 +1,8 @@
 "use server";
 
+import { headers } from "next/headers";
 import { signUpStudent } from "@/lib/courses";
+import { clientAddress, throttle } from "@/lib/security/throttle";
 import { AppError, type FieldErrors } from "@/lib/errors";
 import { signUpSchema } from "@/lib/validation/auth";
 import { fieldErrors } from "@/lib/validation/zod-errors";
@@ -11,6 +13,8 @@ export async function signUpAction(input: unknown): Promise<SignUpState> {
   const parsed = signUpSchema.safeParse(input);
   if (!parsed.success) return { ok: false, message: "Check the highlighted fields.", fields: fieldErrors(parsed.error) };
   try {
+    // join codes cannot be guessed by trying many: every try counts against the caller's address
+    await throttle([["signUpAddress", clientAddress(await headers())]]);
     const { course } = await signUpStudent(parsed.data);
     return { ok: true, courseId: course.id };
   } catch (e) {
