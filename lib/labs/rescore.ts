@@ -118,6 +118,7 @@ export async function overrideQuestion(trx: Trx, attemptId: string, input: { que
     scoreAfter: score,
     reason: input.reason,
     graderVersion: a.graderVersion,
+    at: now,
   });
   return { eventId, score, rawScore, scoreBefore: a.score };
 }
@@ -137,5 +138,6 @@ export async function answerReviewRequest(trx: Trx, attemptId: string, message: 
     scoreAfter: a.score,
     reason: message,
     graderVersion: a.graderVersion,
+    at: now,
   });
 }
