@@ -1,6 +1,6 @@
 // Labs and the per-student circuit values drawn for them.
 import type { Insertable, Kysely, Transaction, Updateable } from "kysely";
-import type { Database, LabStatus, LabsTable } from "../types";
+import type { Database, LabStatus, LabsTable, ShowExpected } from "../types";
 
 type Db = Kysely<Database> | Transaction<Database>;
 
@@ -55,7 +55,7 @@ export interface LabWrite {
   closesAt?: Date | null;
   latePenaltyPercentPerDay: number;
   lateFloorPercent: number;
-  showExpected: "after_attempt" | "after_due" | "never";
+  showExpected: ShowExpected;
   instructions: string;
   safetyNotes: string;
 }

@@ -10,7 +10,7 @@ import { findLab, insertLab } from "../queries/labs";
 import { insertAttempt } from "../queries/attempts";
 import { insertGradeEvent } from "../queries/grade-events";
 import { insertUpload } from "../queries/uploads";
-import type { Database } from "../types";
+import type { Database, ShowExpected } from "../types";
 
 const DAY = 24 * 3600 * 1000;
 const SAFETY = {
@@ -27,7 +27,7 @@ interface DemoLab {
   state: "graded" | "open" | "upcoming" | "draft";
   spec: VariantSpec["parameters"];
   questions: { quantity: string; kind: "prediction" | "bench"; points: number }[];
-  showExpected: "after_attempt" | "after_due" | "never";
+  showExpected: ShowExpected;
   instructions: string;
   safety: string;
   traces?: boolean;

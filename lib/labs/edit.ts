@@ -11,31 +11,13 @@ import { gradePolicySchema } from "@/lib/grader";
 import type { z } from "zod";
 import { labInputSchema, type labPatchSchema, type LabData } from "@/lib/validation/labs";
 import { parseOr400 } from "@/lib/validation/zod-errors";
+import { gradingKey } from "./changes";
 import { startRegrade } from "./regrade";
 import { type Lab, withIds } from "./grading";
 
-/** JSON with object keys sorted, so equal values give equal text whatever order their keys came in. */
-function stableJson(v: unknown): string {
-  if (Array.isArray(v)) return `[${v.map(stableJson).join(",")}]`;
-  if (v && typeof v === "object" && !(v instanceof Date)) {
-    return `{${Object.keys(v)
-      .filter((k) => (v as Record<string, unknown>)[k] !== undefined)
-      .sort()
-      .map((k) => `${JSON.stringify(k)}:${stableJson((v as Record<string, unknown>)[k])}`)
-      .join(",")}}`;
-  }
-  return JSON.stringify(v);
-}
-
 /** Everything a grade depends on, normalised: a PATCH that leaves it unchanged recomputes nothing. */
-function gradingKey(l: LabData): string {
-  return stableJson({
-    templateKey: l.templateKey,
-    spec: l.spec,
-    questions: withIds(l.questions),
-    policy: gradePolicySchema.parse(l.policy ?? {}),
-    late: [l.latePenaltyPercentPerDay, l.lateFloorPercent],
-  });
+function gradingKeyOf(l: LabData): string {
+  return gradingKey(l, { questions: withIds, policy: (p) => gradePolicySchema.parse(p ?? {}) });
 }
 
 export function labAsInput(lab: Lab) {
@@ -74,7 +56,7 @@ export async function editLab(lab: Lab, patch: LabPatch): Promise<{ regrade: { i
   if (status === "draft" && lab.status === "published" && attempts > 0) {
     throw new AppError("conflict", "A lab with attempts cannot go back to draft.", { status: ["A lab with attempts cannot go back to draft."] });
   }
-  const gradingChanged = gradingKey(merged) !== gradingKey(parseOr400(labInputSchema, labAsInput(lab)));
+  const gradingChanged = gradingKeyOf(merged) !== gradingKeyOf(parseOr400(labInputSchema, labAsInput(lab)));
   const recompute = gradingChanged && lab.status === "published" && attempts > 0;
 
   const changed: Record<string, unknown> = {};

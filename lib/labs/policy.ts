@@ -1,5 +1,6 @@
 // Lab rules applied around the grader: dates, attempts, late penalty and which attempt counts.
 // Pure functions, so the rules are tested without a database.
+import type { ShowExpected } from "@/db/types";
 
 export interface LabRules {
   opensAt: Date | null;
@@ -8,7 +9,7 @@ export interface LabRules {
   latePenaltyPercentPerDay: number;
   lateFloorPercent: number;
   counting: "best" | "last";
-  showExpected: "after_attempt" | "after_due" | "never";
+  showExpected: ShowExpected;
   /** The explicit close (late attempts accepted until then); null: the default close, see `closeOf`. */
   closesAt: Date | null;
 }
