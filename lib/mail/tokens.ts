@@ -1,4 +1,6 @@
-// Password tokens: a signed, single-use link to choose a password, valid for 30 minutes. The token is
+// Password tokens: a signed, single-use link to choose a password. A reset link is valid for 30 minutes;
+// an invitation (a first password for an account the staff made) for seven days, since a student may read
+// it days before the first lab session. The token is
 // the row id and an HMAC of it under the app's secret, so a guessed or altered link is refused before
 // the database is asked; the row makes it single-use and carries the expiry.
 import crypto from "node:crypto";
@@ -8,6 +10,8 @@ import { findUsableToken, insertPasswordToken, retireTokens, spendToken } from "
 import { queueMail } from "./queue";
 
 export const TOKEN_MINUTES = 30;
+/** How long a link of each purpose stays usable, in minutes. */
+export const TOKEN_LIFETIME_MINUTES: Record<PasswordTokenPurpose, number> = { reset: TOKEN_MINUTES, set: 7 * 24 * 60 };
 
 function secret(): string {
   const s = process.env.NEXTAUTH_SECRET;
@@ -29,7 +33,7 @@ export function verifyToken(token: string): string | null {
 }
 
 export async function issuePasswordToken(trx: Kysely<Database> | Transaction<Database>, userId: string, purpose: PasswordTokenPurpose, now = new Date()) {
-  const id = await insertPasswordToken(trx, userId, purpose, new Date(now.getTime() + TOKEN_MINUTES * 60_000));
+  const id = await insertPasswordToken(trx, userId, purpose, new Date(now.getTime() + TOKEN_LIFETIME_MINUTES[purpose] * 60_000));
   return { id, token: `${id}.${sign(id)}` };
 }
 
@@ -45,7 +49,7 @@ export async function queuePasswordMail(
     key: `password:${id}`,
     kind: purpose === "reset" ? "password_reset" : "password_set",
     to: user.email,
-    data: { purpose, name: user.name, tokenPath: `/reset-password/${token}`, minutes: TOKEN_MINUTES },
+    data: { purpose, name: user.name, tokenPath: `/reset-password/${token}`, minutes: TOKEN_LIFETIME_MINUTES[purpose] },
   });
   return { id, token };
 }

@@ -31,6 +31,15 @@ describe("password tokens", () => {
     expect(await db.transaction().execute((trx) => consumeToken(trx, token, at(29.5)))).not.toBeNull();
   });
 
+  it("an invitation to choose a first password stays usable for seven days", async () => {
+    const u = await user();
+    const issued = new Date("2026-12-02T08:00:00Z");
+    const { token } = await issuePasswordToken(db, u.id, "set", issued);
+    const at = (days: number) => new Date(issued.getTime() + days * 24 * 3600_000);
+    expect(await checkToken(db, token, at(6.9))).not.toBeNull();
+    expect(await checkToken(db, token, at(7.1))).toBeNull();
+  });
+
   it("refuse an altered or unsigned token", async () => {
     const u = await user();
     const { id, token } = await issuePasswordToken(db, u.id, "reset");

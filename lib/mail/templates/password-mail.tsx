@@ -1,5 +1,5 @@
 // The password message: a one-time link to choose a password (reset, or a first password for an
-// account made by the staff). It expires in 30 minutes and works once.
+// account made by the staff). It works once and expires after the minutes it carries (lib/mail/tokens.ts).
 import { Body, Button, Container, Head, Heading, Html, Preview, Section, Text } from "@react-email/components";
 import { styles } from "./styles";
 
@@ -8,6 +8,11 @@ export interface PasswordMailData {
   name: string;
   tokenPath: string;
   minutes: number;
+}
+
+function lifetime(minutes: number): string {
+  if (minutes % (24 * 60) === 0) return `${minutes / (24 * 60)} days`;
+  return `${minutes} minutes`;
 }
 
 export function passwordSubject(d: PasswordMailData): string {
@@ -37,7 +42,7 @@ export function PasswordMail({ data, url }: { data: PasswordMailData; url: strin
           </Section>
           <Text style={styles.small}>Or paste this address into your browser: {url}</Text>
           <Text style={styles.small}>
-            The link works once and expires in {data.minutes} minutes. Choosing a new password signs you out everywhere else. If you did
+            The link works once and expires in {lifetime(data.minutes)}. Choosing a new password signs you out everywhere else. If you did
             not ask for this, ignore this message: your password stays as it is.
           </Text>
         </Container>
