@@ -136,3 +136,28 @@ describe("sessions", () => {
     expect(await new Client().signIn(email, "a-new-bench-password")).toBe(true);
   });
 });
+
+describe("uploads", () => {
+  // a multipart-looking body of `mb` megabytes, streamed without a Content-Length
+  const stream = (mb: number) =>
+    Readable.toWeb(
+      Readable.from(
+        (function* () {
+          yield Buffer.from("--b\r\ncontent-disposition: form-data; name=\"file\"; filename=\"big.png\"\r\n\r\n");
+          for (let i = 0; i < mb * 16; i++) yield Buffer.alloc(64 * 1024, 1);
+        })(),
+      ),
+    ) as ReadableStream;
+  const multipart = { "content-type": "multipart/form-data; boundary=b" };
+
+  it("refuse an anonymous caller before reading the body (401)", async () => {
+    const r = await new Client().json("/api/uploads", { method: "POST", headers: multipart, body: stream(1), duplex: "half" } as RequestInit);
+    expect(r.status).toBe(401);
+  });
+
+  it("cut a streamed body without Content-Length at the limit (413 naming file)", async () => {
+    const r = await instructor.json("/api/uploads", { method: "POST", headers: multipart, body: stream(11), duplex: "half" } as RequestInit);
+    expect(r.status).toBe(413);
+    expect(r.body.error.fields).toHaveProperty("file");
+  });
+});

@@ -1,19 +1,28 @@
-import { json, route } from "@/lib/api";
-import { requireCourseRole } from "@/lib/auth/access";
+import { json, readCapped, route } from "@/lib/api";
+import { requireCourseRole, requireUser } from "@/lib/auth/access";
 import { AppError } from "@/lib/errors";
 import { mb, acceptUpload } from "@/lib/uploads";
 import { labAccess, variantFor } from "@/lib/labs/service";
 import { maxUploadBytes } from "@/lib/storage";
 
 // multipart/form-data with `file` and `labId` (or `courseId`). 201 with the upload's id.
+// Who is calling is checked before a byte of the body is read; the body is counted as it streams and
+// cut at the limit (413) whether or not it declares a Content-Length.
 export const POST = route(async (req) => {
-  const declared = Number(req.headers.get("content-length") ?? 0);
-  if (declared > maxUploadBytes() + 64 * 1024) {
-    throw new AppError("payload_too_large", `The file is larger than the ${mb(maxUploadBytes())} limit.`, { file: [`Files may be at most ${mb(maxUploadBytes())}.`] });
+  await requireUser();
+  const cap = maxUploadBytes() + 64 * 1024; // the file plus the form's own lines
+  let body: Uint8Array;
+  try {
+    body = await readCapped(req, cap, "file");
+  } catch (e) {
+    if (e instanceof AppError && e.code === "payload_too_large") {
+      throw new AppError("payload_too_large", `The file is larger than the ${mb(maxUploadBytes())} limit.`, { file: [`Files may be at most ${mb(maxUploadBytes())}.`] });
+    }
+    throw e;
   }
   let form: FormData;
   try {
-    form = await req.formData();
+    form = await new Response(body as BodyInit, { headers: { "content-type": req.headers.get("content-type") ?? "" } }).formData();
   } catch {
     throw new AppError("bad_request", "Send the file as multipart/form-data with a field named file.", { file: ["No file was sent."] });
   }
@@ -35,7 +44,7 @@ export const POST = route(async (req) => {
   } else {
     throw new AppError("bad_request", "Say which lab the file belongs to (labId).", { labId: ["Give the lab's id."] });
   }
-  const bytes = new Uint8Array(await file.arrayBuffer());
-  const upload = await acceptUpload({ ownerId: owner, courseId: course, labId: lab, fileName: file.name || "upload", bytes, params });
+  const fileBytes = new Uint8Array(await file.arrayBuffer());
+  const upload = await acceptUpload({ ownerId: owner, courseId: course, labId: lab, fileName: file.name || "upload", bytes: fileBytes, params });
   return json({ upload }, 201);
 });
