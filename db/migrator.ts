@@ -22,7 +22,9 @@ class FolderMigrationProvider implements MigrationProvider {
 
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
 export function migrator(db: Kysely<any>): Migrator {
-  return new Migrator({ db, provider: new FolderMigrationProvider(migrationsFolder) });
+  // Unordered: work merged from parallel branches can bring a migration whose name sorts before one a
+  // developer's database already ran; it is then run next instead of refusing the whole database.
+  return new Migrator({ db, provider: new FolderMigrationProvider(migrationsFolder), allowUnorderedMigrations: true });
 }
 
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
