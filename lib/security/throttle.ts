@@ -81,6 +81,27 @@ export async function throttle(counters: [LimitName, string | null | undefined][
   }
 }
 
+/** Throws TooManyRequests when any counter is already used up, without counting a try. */
+export async function refuseIfUsedUp(counters: [LimitName, string | null | undefined][]): Promise<void> {
+  let wait = 0;
+  for (const [name, key] of counters) {
+    if (!key) continue;
+    const res = await limiter(name).get(key.toLowerCase());
+    if (res && res.consumedPoints >= LIMITS[name].points) wait = Math.max(wait, res.msBeforeNext);
+  }
+  if (wait > 0) throw new TooManyRequests(Math.ceil(wait / 1000), WHAT.signIn);
+}
+
+/** Counts one failed try against every counter (a refusal is already handled by refuseIfUsedUp). */
+export async function countFailure(counters: [LimitName, string | null | undefined][]): Promise<void> {
+  await Promise.allSettled(counters.filter(([, key]) => key).map(([name, key]) => limiter(name).consume(key!.toLowerCase())));
+}
+
+/** Forgets a counter (a successful sign-in clears its account's failures). */
+export async function forgive(name: LimitName, key: string | null | undefined): Promise<void> {
+  if (key) await limiter(name).delete(key.toLowerCase());
+}
+
 /**
  * The caller's address: the last entry of X-Forwarded-For (the one the nearest proxy, or Next.js
  * itself, wrote; earlier entries come from the client and can be forged).

@@ -4,7 +4,7 @@
 // is due next.
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { demo, launch, newPage, signIn } from "./harness";
+import { baseURL, demo, launch, newPage, signIn } from "./harness";
 
 let browser: Browser;
 beforeAll(async () => {
@@ -60,6 +60,7 @@ describe("a new course from creation to a student's course home", () => {
     const courseUrl = i.page.url();
     const courseId = courseUrl.split("/").pop()!;
     const lab = await i.context.request.post(`/api/courses/${courseId}/labs`, {
+      headers: { origin: baseURL },
       data: {
         title: "Burden on the bench",
         templateKey: "shunt-burden",
@@ -76,7 +77,7 @@ describe("a new course from creation to a student's course home", () => {
     });
     expect(lab.status()).toBe(201);
     const labId = (await lab.json()).lab.id;
-    expect((await i.context.request.patch(`/api/labs/${labId}`, { data: { status: "published" } })).status()).toBe(200);
+    expect((await i.context.request.patch(`/api/labs/${labId}`, { headers: { origin: baseURL }, data: { status: "published" } })).status()).toBe(200);
 
     await i.page.getByRole("link", { name: "Roster" }).click();
     await i.page.waitForURL(/\/roster$/);

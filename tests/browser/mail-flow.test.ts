@@ -6,7 +6,7 @@ import path from "node:path";
 import type { Browser, BrowserContext, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { fixedLabBody } from "../support/mail";
-import { demo, launch, newPage, signIn } from "./harness";
+import { baseURL, demo, launch, newPage, signIn } from "./harness";
 
 let browser: Browser;
 let staff: { context: BrowserContext; page: Page };
@@ -17,7 +17,7 @@ const TITLE = `Mail lab ${Date.now().toString(36)}`;
 const shots = path.join(import.meta.dirname, "..", ".artifacts");
 
 async function apiJson(context: BrowserContext, method: "GET" | "POST" | "PATCH", url: string, data?: unknown) {
-  const res = await context.request.fetch(url, { method, data, headers: data ? { "content-type": "application/json" } : undefined });
+  const res = await context.request.fetch(url, { method, data, headers: data ? { "content-type": "application/json", origin: baseURL } : undefined });
   return { status: res.status(), body: await res.json().catch(() => null) };
 }
 

@@ -41,6 +41,16 @@ describe("sign-in throttle", () => {
   });
 });
 
+describe("sign-in throttle and successful sign-ins", () => {
+  it("counts failures only: a person who signs in correctly again and again is never refused, and success clears earlier failures", async () => {
+    const f = await courseWithPeople();
+    for (let i = 0; i < 9; i++) expect((await signInTry(f.people.ta.email, `wrong password ${i}`)).status).not.toBe(429);
+    for (let i = 0; i < 12; i++) expect(await new Client().signIn(f.people.ta.email, "fixture-password-1")).toBe(true);
+    // the nine failures were cleared by the first success: nine more wrong tries are still answered
+    for (let i = 0; i < 9; i++) expect((await signInTry(f.people.ta.email, `again wrong ${i}`)).status).not.toBe(429);
+  });
+});
+
 describe("password reset throttle", () => {
   it("answers the same three times, then 429 with Retry-After, for a known and an unknown address alike", async () => {
     const f = await courseWithPeople();
