@@ -37,8 +37,11 @@ describe("password reset and settings in the browser", () => {
     const { page } = await newPage(browser);
     await page.goto("/signin");
     await page.getByRole("link", { name: "Forgot your password?" }).click();
+    // the form registers its fields when it hydrates (the button is enabled then): type after that
+    const send = page.getByRole("button", { name: "Send me a link" });
+    await expect.poll(() => send.isEnabled()).toBe(true);
     await page.getByLabel("E-mail").fill(email);
-    await page.getByRole("button", { name: "Send me a link" }).click();
+    await send.click();
     await expect.poll(() => page.getByRole("status").textContent()).toContain("If an account uses that address");
 
     const admin = await newPage(browser);
