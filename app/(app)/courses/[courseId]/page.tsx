@@ -32,7 +32,6 @@ export default async function CoursePage({ params }: { params: Promise<{ courseI
         <Link className="btn-quiet" href={`/courses/${course.id}/labs`}>Bench labs</Link>
         {staff ? <Link className="btn-quiet" href={`/courses/${course.id}/gradebook`}>Gradebook</Link> : null}
         {staff ? <Link className="btn-quiet" href={`/courses/${course.id}/roster`}>Roster</Link> : null}
-        {staff ? <Link className="btn-quiet" href={`/courses/${course.id}/gradebook`}>Gradebook</Link> : null}
         {staff ? (
           <Link className="btn-quiet" href={`/courses/${course.id}/reviews`} data-testid="review-queue-link">
             Review queue{openReviews ? ` (${openReviews} open)` : ""}
