@@ -1,5 +1,4 @@
 // Headers, cross-site refusal, body limits and revocable sessions, over HTTP against the test server.
-import { Readable } from "node:stream";
 import { beforeAll, describe, expect, it } from "vitest";
 import { Client, baseURL } from "../support/http";
 import { clientFor, courseWithPeople, PASSWORD } from "./fixtures";
@@ -74,19 +73,14 @@ describe("state-changing JSON routes", () => {
 
   it("cut a body over 256 KB at the limit, with or without Content-Length (413)", async () => {
     const big = JSON.stringify({ email: "x@test.example", role: "student", section: "s".repeat(300 * 1024) });
-    const declared = await instructor.json(path(), { method: "POST", headers: { "content-type": "application/json" }, body: big });
+    const json = { "content-type": "application/json" };
+    const declared = await instructor.streamPost(path(), { ...json, "content-length": String(Buffer.byteLength(big)) }, [Buffer.from(big)]);
     expect(declared.status).toBe(413);
     expect(declared.body.error.code).toBe("payload_too_large");
     // chunked: no Content-Length, the server must count the bytes as they come
-    const stream = Readable.toWeb(Readable.from((function* () {
+    const chunked = await instructor.streamPost(path(), json, (function* () {
       for (let i = 0; i < 40; i++) yield Buffer.from("x".repeat(16 * 1024));
-    })())) as ReadableStream;
-    const chunked = await instructor.json(path(), {
-      method: "POST",
-      headers: { "content-type": "application/json" },
-      body: stream,
-      duplex: "half",
-    } as RequestInit);
+    })());
     expect(chunked.status).toBe(413);
   });
 
@@ -139,24 +133,19 @@ describe("sessions", () => {
 
 describe("uploads", () => {
   // a multipart-looking body of `mb` megabytes, streamed without a Content-Length
-  const stream = (mb: number) =>
-    Readable.toWeb(
-      Readable.from(
-        (function* () {
-          yield Buffer.from("--b\r\ncontent-disposition: form-data; name=\"file\"; filename=\"big.png\"\r\n\r\n");
-          for (let i = 0; i < mb * 16; i++) yield Buffer.alloc(64 * 1024, 1);
-        })(),
-      ),
-    ) as ReadableStream;
+  const chunks = function* (mb: number) {
+    yield Buffer.from("--b\r\ncontent-disposition: form-data; name=\"file\"; filename=\"big.png\"\r\n\r\n");
+    for (let i = 0; i < mb * 16; i++) yield Buffer.alloc(64 * 1024, 1);
+  };
   const multipart = { "content-type": "multipart/form-data; boundary=b" };
 
   it("refuse an anonymous caller before reading the body (401)", async () => {
-    const r = await new Client().json("/api/uploads", { method: "POST", headers: multipart, body: stream(1), duplex: "half" } as RequestInit);
+    const r = await new Client().streamPost("/api/uploads", multipart, chunks(1));
     expect(r.status).toBe(401);
   });
 
   it("cut a streamed body without Content-Length at the limit (413 naming file)", async () => {
-    const r = await instructor.json("/api/uploads", { method: "POST", headers: multipart, body: stream(11), duplex: "half" } as RequestInit);
+    const r = await instructor.streamPost("/api/uploads", multipart, chunks(11));
     expect(r.status).toBe(413);
     expect(r.body.error.fields).toHaveProperty("file");
   });

@@ -1,3 +1,5 @@
+import { request as httpRequest } from "node:http";
+
 // A small HTTP client for the test server that signs in through next-auth's real credentials flow
 // and keeps the session cookie.
 export const baseURL = process.env.SHUNTWISE_TEST_URL ?? "http://127.0.0.1:3100";
@@ -45,6 +47,49 @@ export class Client {
       body = null;
     }
     return { status: res.status, body, text };
+  }
+
+  /**
+   * POSTs chunks as a streamed body, without a Content-Length unless `headers` gives one. A server that
+   * answers before the body ends (413) and closes the connection is read as its answer: the write error
+   * the client then meets (EPIPE, reset) is what any client sees and is not the result.
+   */
+  streamPost(path: string, headers: Record<string, string>, chunks: Iterable<Buffer>): Promise<{ status: number; body: any }> {
+    return new Promise((resolve, reject) => {
+      const all: Record<string, string> = { origin: new URL(baseURL).origin, ...headers };
+      if (!("content-length" in all)) all["transfer-encoding"] = "chunked";
+      if (this.cookies.size) all.cookie = this.cookieHeader();
+      let answered = false;
+      const req = httpRequest(baseURL + path, { method: "POST", headers: all }, (res) => {
+        answered = true;
+        let text = "";
+        res.setEncoding("utf8");
+        res.on("data", (d) => (text += d));
+        res.on("end", () => {
+          let body: unknown = null;
+          try {
+            body = JSON.parse(text);
+          } catch {
+            body = null;
+          }
+          resolve({ status: res.statusCode ?? 0, body });
+        });
+        res.on("error", reject);
+      });
+      req.on("error", (e) => {
+        if (!answered) reject(e);
+      });
+      const it = chunks[Symbol.iterator]();
+      const pump = () => {
+        for (;;) {
+          if (answered || req.destroyed) return;
+          const n = it.next();
+          if (n.done) return void req.end();
+          if (!req.write(n.value)) return void req.once("drain", pump);
+        }
+      };
+      pump();
+    });
   }
 
   post(path: string, data: unknown) {
