@@ -86,4 +86,12 @@ export const leakageGuard: Template = {
     if (q === "guardedLeakage") out.push({ key: "wrong-guard-node", value: v.leakage, detail: node });
     return out;
   },
+  instrumentReadings(p, q) {
+    // an error against the source's set current comes from one reading, I_read = I + leakage + bias (the
+    // set current I is given): the meter's accuracy applies to I_read, not to the small percentage
+    if (q !== "unguardedErrorPercent" && q !== "guardedErrorPercent") return undefined;
+    const v = values(p);
+    const read = v.i + (q === "unguardedErrorPercent" ? v.leakage : v.guarded) + v.ib;
+    return { values: { I_read: read }, formula: (r) => (100 * (r.I_read - v.i)) / v.i };
+  },
 };

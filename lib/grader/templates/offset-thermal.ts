@@ -96,6 +96,12 @@ export const offsetThermal: Template = {
     if (q === "reversedCurrent") out.push({ key: "unhalved-difference", value: (v.forwardVoltage - v.reverseVoltage) / v.r, detail: "You divided the whole difference by R; the difference holds the signal twice." });
     return out;
   },
+  instrumentReadings(p, q) {
+    // the reversal's current comes from the two readings V_+ and V_- (R is given)
+    if (q !== "reversedCurrent") return undefined;
+    const v = values(p);
+    return { values: { V_plus: v.forwardVoltage, V_minus: v.reverseVoltage }, formula: (r) => (r.V_plus - r.V_minus) / (2 * v.r) };
+  },
   bandFloor(p, q, rel) {
     const v = values(p);
     // signed values that can sit near zero: a tenth of the tolerance applied to the signal I·R
