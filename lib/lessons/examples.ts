@@ -207,19 +207,25 @@ export const examples = [
     id: "bidir-charge",
     kind: "template",
     template: "bidirectional-offset",
-    params: { offsetVoltage: 1.65, sensitivity: 1e6, outputVoltage: 3000 * LSB12, fullScaleVoltage: 3.3 },
+    // the 220 mAh cell charging at about 0.45 C, read on the mA range (1 V/A): code 2172
+    params: { offsetVoltage: 1.65, sensitivity: 1, outputVoltage: 2172 * LSB12, fullScaleVoltage: 3.3 },
     checks: [
-      { quantity: "signedCurrent", expected: 767.0e-9, source: "PHYSICS.md §5 5a [FORMULA]" }, // [FORMULA]
-      { quantity: "maxPositiveCurrent", expected: 1.65e-6, source: "PHYSICS.md §5 (±1.65 µA) [FORMULA]" }, // [FORMULA]
-      { quantity: "maxNegativeCurrent", expected: -1.65e-6, source: "PHYSICS.md §5 (±1.65 µA) [FORMULA]" }, // [FORMULA]
+      { quantity: "signedCurrent", expected: 99.90e-3, source: "PHYSICS.md §5 5f [FORMULA]" }, // [FORMULA]
+      { quantity: "maxPositiveCurrent", expected: 1.65, source: "PHYSICS.md §5 5f (±1.650 A) [FORMULA]" }, // [FORMULA]
+      { quantity: "maxNegativeCurrent", expected: -1.65, source: "PHYSICS.md §5 5f (±1.650 A) [FORMULA]" }, // [FORMULA]
     ],
   },
   {
-    id: "bidir-discharge",
+    id: "bidir-sleep",
     kind: "template",
     template: "bidirectional-offset",
+    // the node asleep, drawing from the cell, read on the nA range (10⁶ V/A): code 1000
     params: { offsetVoltage: 1.65, sensitivity: 1e6, outputVoltage: 1000 * LSB12, fullScaleVoltage: 3.3 },
-    checks: [{ quantity: "signedCurrent", expected: -844.3e-9, source: "PHYSICS.md §5 5b [FORMULA]" }], // [FORMULA]
+    checks: [
+      { quantity: "signedCurrent", expected: -844.3e-9, source: "PHYSICS.md §5 5b [FORMULA]" }, // [FORMULA]
+      { quantity: "maxPositiveCurrent", expected: 1.65e-6, source: "PHYSICS.md §5 (±1.65 µA) [FORMULA]" }, // [FORMULA]
+      { quantity: "maxNegativeCurrent", expected: -1.65e-6, source: "PHYSICS.md §5 (±1.65 µA) [FORMULA]" }, // [FORMULA]
+    ],
   },
   {
     id: "bidir-mid",

@@ -135,6 +135,16 @@ export const questions: LessonQuestion[] = [
       "In bipolar mode the zero-current output is {p.offsetVoltage|V}; the µA range gives 1 mV per µA. The output reads {p.outputVoltage|V}. What current flows, with its sign?",
   },
   {
+    id: "bidir-charge-code",
+    lesson: "bidirectional-currents",
+    template: "bidirectional-offset",
+    params: { offsetVoltage: 1.65, sensitivity: 1, outputVoltage: 2172 * LSB12, fullScaleVoltage: 3.3 },
+    quantity: "signedCurrent",
+    unit: "mA",
+    prompt:
+      "The cell is charging. On the mA range (1 mV per mA) with the zero at {p.offsetVoltage|V}, the output reads {p.outputVoltage|V|5}. What current flows, with its sign (into the cell is positive)?",
+  },
+  {
     id: "bidir-code-1000",
     lesson: "bidirectional-currents",
     template: "bidirectional-offset",

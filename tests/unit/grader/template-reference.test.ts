@@ -145,11 +145,11 @@ describe("bidirectional-offset", () => {
     expect(r.verdict).toBe("correct");
     expect(grade("bidirectional-offset", p, { quantity: "signedCurrent", kind: "bench" }, "844 nA", meter).verdict).toBe("mistake");
   });
-  it("a charging cell on the mA range: code 2358 is +249.8 mA, limits ±1.650 A", () => {
-    // PHYSICS.md §5 5f [FORMULA]: 2358 × 3.3/4096 = 1.8998 V; (1.8998 − 1.65) V / 1 V/A = 249.8 mA;
+  it("a charging cell on the mA range: code 2172 is +99.90 mA, limits ±1.650 A", () => {
+    // PHYSICS.md §5 5f [FORMULA]: 2172 × 3.3/4096 = 7167.6/4096 = 1.74990 V; (1.74990 − 1.65) V / 1 V/A = 99.90 mA;
     // (3.3 − 1.65)/1 = +1.650 A and −1.65/1 = −1.650 A
-    const q = { offsetVoltage: 1.65, sensitivity: 1, outputVoltage: (2358 * 3.3) / 4096, fullScaleVoltage: 3.3 };
-    near(grade("bidirectional-offset", q, { quantity: "signedCurrent", kind: "prediction" }, "249.8 mA").expected, 249.8e-3);
+    const q = { offsetVoltage: 1.65, sensitivity: 1, outputVoltage: (2172 * 3.3) / 4096, fullScaleVoltage: 3.3 };
+    near(grade("bidirectional-offset", q, { quantity: "signedCurrent", kind: "prediction" }, "99.9 mA").expected, 99.90e-3);
     near(grade("bidirectional-offset", q, { quantity: "maxPositiveCurrent", kind: "prediction" }, "1.65 A").expected, 1.65);
     near(grade("bidirectional-offset", q, { quantity: "maxNegativeCurrent", kind: "prediction" }, "-1.65 A").expected, -1.65);
   });

@@ -62,6 +62,7 @@ describe("check-yourself questions", () => {
     ["filter-settle", "46.05 ms", "PHYSICS.md §6 6b [FORMULA]"],
     ["bidir-discharge", "-1.000 mA", "PHYSICS.md §5 5d [FORMULA]"],
     ["bidir-code-1000", "-844.3 nA", "PHYSICS.md §5 5b [FORMULA]"],
+    ["bidir-charge-code", "99.90 mA", "PHYSICS.md §5 5f [FORMULA]"],
     ["duty-average", "15.50 uA", "PHYSICS.md §8 8c [FORMULA]"],
     ["duty-life", "871.4 h", "PHYSICS.md §8 8b [FORMULA]"],
     ["unc-amp-expanded", "7.767 mA", "PHYSICS.md §9 9d [FORMULA]"],
