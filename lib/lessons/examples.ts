@@ -14,12 +14,17 @@ export type ExampleCheck = {
   source: string;
 };
 
+/**
+ * `cite`: phrases that the "Sources" section of every lesson showing the example must contain, naming where
+ * the example comes from (a standard, a law, "worked here from the formula", "common practice, no source").
+ */
 export type Example =
-  | { id: string; kind: "template"; template: string; params: ExampleParams; checks: ExampleCheck[] }
-  | { id: string; kind: "teaching"; fn: TeachingFn; params: Record<string, number>; checks: ExampleCheck[] }
+  | { id: string; kind: "template"; cite: readonly string[]; template: string; params: ExampleParams; checks: ExampleCheck[] }
+  | { id: string; kind: "teaching"; cite: readonly string[]; fn: TeachingFn; params: Record<string, number>; checks: ExampleCheck[] }
   | {
       id: string;
       kind: "standard";
+      cite: readonly string[];
       params: { value: number; series: "E6" | "E12" | "E24" | "E48" | "E96" | "E192"; mode: "nearest" | "floor" | "ceil" };
       checks: ExampleCheck[];
     };
@@ -32,6 +37,7 @@ export const examples = [
   {
     id: "burden-node",
     kind: "template",
+    cite: ["Ohm's law", "Kirchhoff's voltage law"],
     template: "shunt-burden",
     params: { supplyVoltage: 3.3, loadResistance: 1000, shuntResistance: 10 },
     checks: [
@@ -44,6 +50,7 @@ export const examples = [
   {
     id: "burden-low-rail",
     kind: "template",
+    cite: ["Ohm's law", "Kirchhoff's voltage law"],
     template: "shunt-burden",
     params: { supplyVoltage: 1.8, loadResistance: 100, shuntResistance: 10 },
     checks: [
@@ -56,11 +63,12 @@ export const examples = [
   {
     id: "burden-motor",
     kind: "template",
+    cite: ["Ohm's law", "Kirchhoff's voltage law"],
     template: "shunt-burden",
     params: { supplyVoltage: 3.0, loadResistance: 8, shuntResistance: 1.8 },
     checks: [
-      { quantity: "trueCurrent", expected: 0.375, source: "PHYSICS.md §2 2d [FORMULA; lab-tip article ≈375 mA]" }, // [FORMULA]
-      { quantity: "indicatedCurrent", expected: 0.3061, source: "PHYSICS.md §2 2d [FORMULA; lab-tip article ≈306 mA]" }, // [FORMULA]
+      { quantity: "trueCurrent", expected: 0.375, source: "PHYSICS.md §2 2d [FORMULA]" }, // [FORMULA]
+      { quantity: "indicatedCurrent", expected: 0.3061, source: "PHYSICS.md §2 2d [FORMULA]" }, // [FORMULA]
       { quantity: "loadingErrorPercent", expected: -18.37, source: "PHYSICS.md §2 2d [FORMULA]" }, // [FORMULA]
       { quantity: "burdenVoltage", expected: 0.551, source: "PHYSICS.md §2 2d [FORMULA]" }, // [FORMULA]
     ],
@@ -70,6 +78,7 @@ export const examples = [
   {
     id: "shunt-amp-e24",
     kind: "template",
+    cite: ["Ohm's law", "IEC 60063:2015"],
     template: "shunt-selection",
     params: { maxCurrent: 3.3, maxBurden: 0.1, series: "E24" },
     checks: [
@@ -82,6 +91,7 @@ export const examples = [
   {
     id: "shunt-amp-e96",
     kind: "template",
+    cite: ["Ohm's law", "IEC 60063:2015"],
     template: "shunt-selection",
     params: { maxCurrent: 3.3, maxBurden: 0.1, series: "E96" },
     checks: [{ quantity: "standardShunt", expected: 30.1e-3, source: "PHYSICS.md §1 1g [FORMULA]" }], // [FORMULA]
@@ -89,6 +99,7 @@ export const examples = [
   {
     id: "shunt-amp-e12",
     kind: "template",
+    cite: ["Ohm's law", "IEC 60063:2015"],
     template: "shunt-selection",
     params: { maxCurrent: 3.3, maxBurden: 0.1, series: "E12" },
     checks: [{ quantity: "standardShunt", expected: 27e-3, source: "PHYSICS.md §1 1g [FORMULA]" }], // [FORMULA]
@@ -96,6 +107,7 @@ export const examples = [
   {
     id: "shunt-micro-e24",
     kind: "template",
+    cite: ["Ohm's law", "IEC 60063:2015"],
     template: "shunt-selection",
     params: { maxCurrent: 3.3e-6, maxBurden: 10e-3, series: "E24" },
     checks: [
@@ -107,6 +119,7 @@ export const examples = [
   {
     id: "shunt-micro-e96",
     kind: "template",
+    cite: ["Ohm's law", "IEC 60063:2015"],
     template: "shunt-selection",
     params: { maxCurrent: 3.3e-6, maxBurden: 10e-3, series: "E96" },
     checks: [
@@ -117,6 +130,7 @@ export const examples = [
   {
     id: "shunt-nA-range",
     kind: "template",
+    cite: ["Ohm's law", "IEC 60063:2015"],
     template: "shunt-selection",
     params: { maxCurrent: 3.3e-6, maxBurden: 35e-3, series: "E12" },
     checks: [
@@ -128,6 +142,7 @@ export const examples = [
   {
     id: "shunt-mA-range",
     kind: "template",
+    cite: ["Ohm's law", "IEC 60063:2015"],
     template: "shunt-selection",
     params: { maxCurrent: 3.3, maxBurden: 35e-3, series: "E12" },
     checks: [
@@ -138,26 +153,23 @@ export const examples = [
   {
     id: "e24-log-nearest",
     kind: "standard",
+    cite: ["IEC 60063:2015"],
     params: { value: 2848, series: "E24", mode: "nearest" },
     checks: [{ quantity: "value", expected: 3000, source: "PHYSICS.md §1 1e [FORMULA: IEC 60063 list]" }], // [FORMULA]
   },
   {
     id: "e24-319",
     kind: "standard",
+    cite: ["IEC 60063:2015"],
     params: { value: 319, series: "E24", mode: "nearest" },
-    checks: [{ quantity: "value", expected: 330, source: "PHYSICS.md §1 1b [PUB: PyPI eseries docs]" }], // [PUB]
-  },
-  {
-    id: "e96-ceil-184",
-    kind: "standard",
-    params: { value: 184, series: "E96", mode: "ceil" },
-    checks: [{ quantity: "value", expected: 187, source: "PHYSICS.md §1 1c [PUB: PyPI eseries docs]" }], // [PUB]
+    checks: [{ quantity: "value", expected: 330, source: "PHYSICS.md §1 1b [FORMULA: IEC 60063:2015 E24 list]" }], // [FORMULA]
   },
 
   // ---- Lessons 4-6: ranges, auto-ranging, resolution ----
   {
     id: "range-sleep",
     kind: "template",
+    cite: ["Ohm's law", "IEEE Std 1241-2010"],
     template: "range-resolution",
     params: { current: 500e-9, fullScaleVoltage: 3.3, adcBits: 12, adcReference: 3.3 },
     checks: [
@@ -170,6 +182,7 @@ export const examples = [
   {
     id: "range-radio",
     kind: "template",
+    cite: ["Ohm's law", "IEEE Std 1241-2010"],
     template: "range-resolution",
     params: { current: 2e-3, fullScaleVoltage: 3.3, adcBits: 12, adcReference: 3.3 },
     checks: [
@@ -181,6 +194,7 @@ export const examples = [
   {
     id: "range-edge",
     kind: "template",
+    cite: ["Ohm's law", "IEEE Std 1241-2010"],
     template: "range-resolution",
     params: { current: 3.3e-6, fullScaleVoltage: 3.3, adcBits: 12, adcReference: 3.3 },
     checks: [
@@ -192,6 +206,7 @@ export const examples = [
   {
     id: "range-gap",
     kind: "template",
+    cite: ["Ohm's law", "IEEE Std 1241-2010"],
     template: "range-resolution",
     params: { current: 3.4e-3, fullScaleVoltage: 3.3, adcBits: 12, adcReference: 3.3 },
     checks: [
@@ -206,6 +221,7 @@ export const examples = [
   {
     id: "bidir-charge",
     kind: "template",
+    cite: ["worked here from the formula", "IEEE Std 1241-2010"],
     template: "bidirectional-offset",
     // the 220 mAh cell charging at about 0.45 C, read on the mA range (1 V/A): code 2172
     params: { offsetVoltage: 1.65, sensitivity: 1, outputVoltage: 2172 * LSB12, fullScaleVoltage: 3.3 },
@@ -218,6 +234,7 @@ export const examples = [
   {
     id: "bidir-sleep",
     kind: "template",
+    cite: ["worked here from the formula", "IEEE Std 1241-2010"],
     template: "bidirectional-offset",
     // the node asleep, drawing from the cell, read on the nA range (10⁶ V/A): code 1000
     params: { offsetVoltage: 1.65, sensitivity: 1e6, outputVoltage: 1000 * LSB12, fullScaleVoltage: 3.3 },
@@ -230,6 +247,7 @@ export const examples = [
   {
     id: "bidir-mid",
     kind: "template",
+    cite: ["worked here from the formula", "IEEE Std 1241-2010"],
     template: "bidirectional-offset",
     params: { offsetVoltage: 1.65, sensitivity: 1e6, outputVoltage: 2048 * LSB12, fullScaleVoltage: 3.3 },
     checks: [{ quantity: "signedCurrent", expected: 0, source: "PHYSICS.md §5 5c [FORMULA]" }], // [FORMULA]
@@ -239,6 +257,7 @@ export const examples = [
   {
     id: "filter-node",
     kind: "template",
+    cite: ["Analog and Digital Filter Design"],
     template: "filter-noise",
     params: { filterResistance: 10e3, filterCapacitance: 100e-9, shuntResistance: 10e3, temperature: 300 },
     checks: [
@@ -250,22 +269,12 @@ export const examples = [
       { quantity: "thermalNoiseCurrent", expected: 20.35e-12, source: "PHYSICS.md §7 7e [FORMULA]" }, // [FORMULA]
     ],
   },
-  {
-    id: "filter-slow",
-    kind: "template",
-    template: "filter-noise",
-    params: { filterResistance: 1e3, filterCapacitance: 10e-6, shuntResistance: 10e3, temperature: 300 },
-    checks: [
-      { quantity: "timeConstant", expected: 10.0e-3, source: "PHYSICS.md §6 6b [FORMULA]" }, // [FORMULA]
-      { quantity: "cutoffFrequency", expected: 15.92, source: "PHYSICS.md §6 6b [FORMULA]" }, // [FORMULA]
-      { quantity: "settlingTime1pct", expected: 46.05e-3, source: "PHYSICS.md §6 6b [FORMULA]" }, // [FORMULA]
-    ],
-  },
 
   // ---- Lesson 9: duty-cycled loads ----
   {
     id: "duty-node",
     kind: "template",
+    cite: ["worked here from the definition of the average"],
     template: "duty-cycle",
     params: { sleepCurrent: 2e-6, activeCurrent: 20e-3, activeTime: 10e-3, period: 1, batteryCapacity: 220 * mAh, usableFraction: 0.8 },
     checks: [
@@ -277,6 +286,7 @@ export const examples = [
   {
     id: "duty-slow",
     kind: "template",
+    cite: ["worked here from the definition of the average"],
     template: "duty-cycle",
     params: { sleepCurrent: 3e-6, activeCurrent: 25e-3, activeTime: 5e-3, period: 10, batteryCapacity: 220 * mAh, usableFraction: 0.8 },
     checks: [
@@ -284,22 +294,12 @@ export const examples = [
       { quantity: "batteryLife", expected: 1.136e4 * 3600, source: "PHYSICS.md §8 8c (1.136e4 h) [FORMULA]" }, // [FORMULA]
     ],
   },
-  {
-    id: "duty-published",
-    kind: "template",
-    template: "duty-cycle",
-    // 10 mA for 1 % of the time: any period works; 1 s keeps it readable.
-    params: { sleepCurrent: 20e-6, activeCurrent: 10e-3, activeTime: 0.01, period: 1, batteryCapacity: 1000 * mAh, usableFraction: 1 },
-    checks: [
-      { quantity: "averageCurrent", expected: 0.1198e-3, source: "PHYSICS.md §8 8d [PUB: electronicsdesign.au battery-life page]" }, // [PUB]
-      { quantity: "batteryLife", expected: 8347 * 3600, source: "PHYSICS.md §8 8d [PUB]" }, // [PUB]
-    ],
-  },
 
   // ---- Lesson 11: uncertainty ----
   {
     id: "unc-bench",
     kind: "template",
+    cite: ["JCGM 100:2008"],
     template: "uncertainty",
     params: {
       reading: 1.0,
@@ -320,6 +320,7 @@ export const examples = [
   {
     id: "unc-amp",
     kind: "template",
+    cite: ["JCGM 100:2008"],
     template: "uncertainty",
     params: {
       reading: 50.0e-3,
@@ -340,6 +341,7 @@ export const examples = [
   {
     id: "unc-chain",
     kind: "template",
+    cite: ["JCGM 100:2008"],
     template: "uncertainty",
     // the amp-range reading again, now through the course meter's own chain: ×50 into a 12-bit, 3.3 V converter
     params: {
@@ -367,22 +369,19 @@ export const examples = [
       { quantity: "referenceContribution", expected: 288.7e-6, source: "PHYSICS.md §9 9g [FORMULA: GUM 4.3.7]" }, // [FORMULA]
       { quantity: "quantisationContribution", expected: 46.52e-6, source: "PHYSICS.md §9 9g [FORMULA: GUM F.2.2.1, q/√12]" }, // [FORMULA]
       { quantity: "relativeStandardUncertaintyPercent", expected: 0.788, source: "PHYSICS.md §9 9g [FORMULA]" }, // [FORMULA]
+      { quantity: "combinedStandardUncertainty", expected: 3.940e-3, source: "PHYSICS.md §9 9g [FORMULA: GUM 5.1.2]" }, // [FORMULA]
+      { quantity: "sensitivityReading", expected: 10, source: "PHYSICS.md §9 9g (c_V = 1/R) [FORMULA: GUM 5.1.3]" }, // [FORMULA]
+      { quantity: "sensitivityShunt", expected: -5, source: "PHYSICS.md §9 9g (c_R = −I/R) [FORMULA: GUM 5.1.3]" }, // [FORMULA]
       { quantity: "expandedUncertainty", expected: 7.880e-3, source: "PHYSICS.md §9 9g [FORMULA: GUM 6.2, k = 2]" }, // [FORMULA]
       { quantity: "dominantContribution", expected: "shunt tolerance", source: "PHYSICS.md §9 9g [FORMULA]" },
     ],
-  },
-  {
-    id: "unc-quantisation-12bit",
-    kind: "template",
-    template: "uncertainty",
-    params: { reading: 1, readingAccuracyPercent: 0, readingCounts: 0, countSize: 1e-3, shuntResistance: 1, shuntTolerancePercent: 0, coverageFactor: 2, adcBits: 12, adcReference: 3.3, amplifierGain: 1 },
-    checks: [{ quantity: "quantisationContribution", expected: 232.6e-6, source: "PHYSICS.md §4 4a [PUB: quantisation-noise formula page, 12-bit/3.3 V: 0.233 mV]" }], // [PUB]
   },
 
   // ---- Lesson 12: leakage and guarding ----
   {
     id: "leak-node",
     kind: "template",
+    cite: ["Ohm's law"],
     template: "leakage-guard",
     params: { sourceVoltage: 10, insulationResistance: 1e11, measuredCurrent: 1e-9, biasCurrent: 5e-12, guardVoltage: 2e-3 },
     checks: [
@@ -397,19 +396,21 @@ export const examples = [
   {
     id: "leak-hv",
     kind: "template",
+    cite: ["Ohm's law"],
     template: "leakage-guard",
     params: { sourceVoltage: 5000, insulationResistance: 5e12, measuredCurrent: 100e-9, biasCurrent: 5e-12, guardVoltage: 1 },
-    checks: [{ quantity: "leakageCurrent", expected: 1e-9, source: "PHYSICS.md §14 14a [PUB: insulation tester's user manual, 5 kV field ≈ 1 nA ≈ 5 TΩ]" }], // [PUB]
+    checks: [{ quantity: "leakageCurrent", expected: 1e-9, source: "PHYSICS.md §14 14a [FORMULA: Ohm's law]" }], // [FORMULA]
   },
 
   // ---- Lesson 13: offsets and thermoelectric voltages ----
   {
     id: "thermal-solder",
     kind: "template",
+    cite: ["worked here from the formula", "from memory"],
     template: "offset-thermal",
     params: { shuntResistance: 1e-3, current: 0.1, offsetVoltage: 10e-6, seebeckMicrovoltsPerKelvin: 5, junctionTemperatureDifference: 1 },
     checks: [
-      { quantity: "thermalEmf", expected: 5e-6, source: "PHYSICS.md §15 [PUB: copper to tin-lead solder ≈ 5 µV/°C, thermoelectric table in a bench multimeter's measurement tutorial]" }, // [PUB]
+      { quantity: "thermalEmf", expected: 5e-6, source: "PHYSICS.md §15 15c [MEM: copper to tin-lead solder ≈ 5 µV/K; FORMULA: V = S·ΔT]" }, // [MEM; FORMULA]
       { quantity: "apparentCurrent", expected: 15e-3, source: "PHYSICS.md §15 15c [FORMULA: Ohm's law]" }, // [FORMULA]
       { quantity: "offsetErrorPercent", expected: 15, source: "PHYSICS.md §15 15c [FORMULA]" }, // [FORMULA]
       { quantity: "forwardVoltage", expected: 115e-6, source: "PHYSICS.md §15 15c [FORMULA]" }, // [FORMULA]
@@ -420,15 +421,17 @@ export const examples = [
   {
     id: "thermal-copper",
     kind: "template",
+    cite: ["worked here from the formula", "from memory"],
     template: "offset-thermal",
     params: { shuntResistance: 1e-3, current: 0.1, offsetVoltage: 0, seebeckMicrovoltsPerKelvin: 0.2, junctionTemperatureDifference: 5 },
-    checks: [{ quantity: "thermalEmf", expected: 1e-6, source: "PHYSICS.md §15 15a [PUB: bench multimeter manual, copper to copper ≤ 0.2 µV/°C]" }], // [PUB]
+    checks: [{ quantity: "thermalEmf", expected: 1e-6, source: "PHYSICS.md §15 15a [MEM: copper to copper ≤ 0.2 µV/K; FORMULA: V = S·ΔT]" }], // [MEM; FORMULA]
   },
 
   // ---- Lesson 14: sampling short bursts ----
   {
     id: "burst-node",
     kind: "template",
+    cite: ["worked here from the formula"],
     template: "sampling-burst",
     params: { sampleRate: 1000, burstWidth: 5e-3, requiredSamples: 20, wakePeriod: 1.02, logRate: 1, activeCurrent: 20e-3, sleepCurrent: 2e-6 },
     checks: [
@@ -440,17 +443,19 @@ export const examples = [
     ],
   },
   {
-    id: "alias-published",
+    id: "alias-3200",
     kind: "template",
+    cite: ["worked here from the formula"],
     template: "sampling-burst",
     params: { sampleRate: 100e3, burstWidth: 0.1e-3, requiredSamples: 5, wakePeriod: 1 / 3200, logRate: 1000, activeCurrent: 20e-3, sleepCurrent: 2e-6 },
-    checks: [{ quantity: "apparentWakeFrequency", expected: 200, source: "PHYSICS.md §16 16a [PUB: signal-processing question-and-answer page, \"Alias frequency formula\": 3200 Hz sampled at 1000 Hz looks like 200 Hz]" }], // [PUB]
+    checks: [{ quantity: "apparentWakeFrequency", expected: 200, source: "PHYSICS.md §16 16a [FORMULA: f_a = |f − n·f_s|]" }], // [FORMULA]
   },
 
   // ---- Teaching helpers that lib/grader has no template for (lib/lessons/teaching.ts) ----
   {
     id: "autorange-thresholds",
     kind: "teaching",
+    cite: ["common practice, no single source", "IEEE Std 1241-2010"],
     fn: "autorange",
     params: { upFraction: 0.9, downFraction: 0.8, fullScaleVoltage: 3.3, sensitivityLow: 1e6, sensitivityHigh: 1e3 },
     checks: [
@@ -463,6 +468,7 @@ export const examples = [
   {
     id: "pulse-fast-filter",
     kind: "teaching",
+    cite: ["worked here from the formula"],
     fn: "pulsePeak",
     params: { pulseCurrent: 20e-3, pulseWidth: 1e-3, timeConstant: 1e-3 },
     checks: [
@@ -474,6 +480,7 @@ export const examples = [
   {
     id: "pulse-slow-filter",
     kind: "teaching",
+    cite: ["worked here from the formula"],
     fn: "pulsePeak",
     params: { pulseCurrent: 20e-3, pulseWidth: 1e-3, timeConstant: 10e-3 },
     checks: [
@@ -485,6 +492,7 @@ export const examples = [
   {
     id: "shot-1uA",
     kind: "teaching",
+    cite: ["worked here from the formula", "Annalen der Physik"],
     fn: "shotNoise",
     params: { current: 1e-6, bandwidth: 1 },
     checks: [{ quantity: "noiseCurrent", expected: 0.5661e-12, source: "PHYSICS.md §7 7f [FORMULA: exact q]" }], // [FORMULA]
@@ -492,6 +500,7 @@ export const examples = [
   {
     id: "shot-1nA",
     kind: "teaching",
+    cite: ["worked here from the formula", "Annalen der Physik"],
     fn: "shotNoise",
     params: { current: 1e-9, bandwidth: 1 },
     checks: [{ quantity: "noiseCurrent", expected: 17.9e-15, source: "PHYSICS.md §7 7f [FORMULA: exact q]" }], // [FORMULA]
@@ -499,6 +508,7 @@ export const examples = [
   {
     id: "unweighted-mean",
     kind: "teaching",
+    cite: ["worked here from the definition of the average"],
     fn: "unweightedMean",
     params: { a: 20e-3, b: 2e-6 },
     checks: [{ quantity: "mean", expected: 10.0e-3, source: "PHYSICS.md §12.5 (wrong method) [FORMULA]" }], // [FORMULA]
