@@ -15,7 +15,13 @@ export interface CourseLesson extends LessonSummary {
   open: boolean;
 }
 
-/** Every lesson with the course's settings; lessons the plan does not mention come last, hidden. */
+/**
+ * Every lesson with the course's settings. A lesson the plan has no row for was added to the catalogue
+ * after the plan was saved (saving stores every lesson, those left out as hidden rows, see `savePlan`).
+ * It comes last, in catalogue order, visible and open at once, as the default plan shows every lesson:
+ * an instructor who planned the syllabus expects the course's new material to reach the students, and
+ * hides or dates it in the plan like any other lesson (the plan editor lists it).
+ */
 export async function coursePlan(courseId: string, now = new Date()): Promise<CourseLesson[]> {
   const all = listLessons();
   const rows = await listCourseLessons(db, courseId);
@@ -31,7 +37,7 @@ export async function coursePlan(courseId: string, now = new Date()): Promise<Co
     planned.push({ ...l, position: r.position, visible: r.visible, opensAt, open: r.visible && (!opensAt || opensAt <= now) });
     bySlug.delete(r.slug);
   }
-  for (const l of bySlug.values()) planned.push({ ...l, position: planned.length + 1, visible: false, opensAt: null, open: false });
+  for (const l of bySlug.values()) planned.push({ ...l, position: planned.length + 1, visible: true, opensAt: null, open: true });
   return planned;
 }
 
@@ -46,10 +52,14 @@ export async function savePlan(courseId: string, plan: z.output<typeof lessonPla
   if (unknown.length) {
     throw new AppError("bad_request", `No lesson is called ${unknown.map(([, s]) => `"${s}"`).join(", ")}.`, Object.fromEntries(unknown.map(([i]) => [`lessons.${i}.slug`, ["No such lesson."]])));
   }
+  // lessons the plan leaves out are stored as hidden rows after the others, so that only lessons added to
+  // the catalogue later have no row (and appear, see `coursePlan`)
+  const given = new Set(plan.lessons.map((l) => l.slug));
+  const left = [...known].filter((slug) => !given.has(slug)).map((slug) => ({ slug, visible: false, opensAt: null }));
   await replaceCourseLessons(
     db,
     courseId,
-    plan.lessons.map((l, i) => ({ slug: l.slug, position: i + 1, visible: l.visible, opensAt: l.opensAt ?? null })),
+    [...plan.lessons, ...left].map((l, i) => ({ slug: l.slug, position: i + 1, visible: l.visible, opensAt: l.opensAt ?? null })),
   );
 }
 

@@ -181,6 +181,8 @@ async function main(): Promise<Counts> {
       DATABASE_URL: testUrl,
       E2E_DATABASE_URL: e2eUrl,
       SHUNTWISE_TEST_URL: url,
+      // the build under test, for a test that starts a second server on it with another environment
+      SHUNTWISE_TEST_DIST_DIR: DIST,
     },
     extra,
   );

@@ -17,7 +17,7 @@ async function WhatNext({ courseId, userId, staff, now }: { courseId: string; us
     const { reviews, closing, nextLater, regrades, drafts } = await staffHome(courseId, now);
     const lines = [
       `${reviews.length} open review request${reviews.length === 1 ? "" : "s"}`,
-      ...[...closing, ...(nextLater ? [nextLater] : [])].map((l) => `${l.title} due ${when(l.dueAt)}: ${l.submitted} submitted, ${l.missing} missing`),
+      ...[...closing, ...(nextLater ? [nextLater] : [])].map((l) => `${l.title} closes ${when(l.closesAt)}: ${l.submitted} submitted, ${l.missing} missing`),
       ...regrades.map((r) => `recomputing ${r.title}: ${r.done} of ${r.total}`),
       ...(drafts.length ? [`${drafts.length} draft lab${drafts.length === 1 ? "" : "s"} to finish`] : []),
     ];

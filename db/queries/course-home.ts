@@ -57,14 +57,21 @@ export async function openReviewRequests(db: Db, courseId: string) {
     .execute();
 }
 
-/** Published labs due between the two instants, with how many of the course's students submitted. */
-export async function labsDueBetween(db: Db, courseId: string, from: Date, to: Date) {
+/**
+ * Published labs that have a due date or an explicit close and have not explicitly closed before `from`,
+ * with how many of the course's students submitted. The caller works out each lab's close (the explicit
+ * one, else the default from the late policy: lib/labs/policy.ts closeOf).
+ */
+export async function labsWithDates(db: Db, courseId: string, from: Date) {
   const rows = await db
     .selectFrom("labs as l")
     .select((eb) => [
       "l.id",
       "l.title",
       "l.due_at as dueAt",
+      "l.closes_at as closesAt",
+      "l.late_penalty_percent_per_day as latePenaltyPercentPerDay",
+      "l.late_floor_percent as lateFloorPercent",
       eb
         .selectFrom("attempts as a")
         .innerJoin("memberships as m", (j) => j.onRef("m.user_id", "=", "a.user_id").on("m.role", "=", "student"))
@@ -81,14 +88,22 @@ export async function labsDueBetween(db: Db, courseId: string, from: Date, to: D
     ])
     .where("l.course_id", "=", courseId)
     .where("l.status", "=", "published")
-    .where("l.due_at", ">=", from)
-    .where("l.due_at", "<", to)
+    .where((eb) => eb.or([eb("l.closes_at", ">=", from), eb.and([eb("l.closes_at", "is", null), eb("l.due_at", "is not", null)])]))
     .orderBy("l.due_at")
     .execute();
   return rows.map((r) => {
     const submitted = Number(r.submitted ?? 0);
     const students = Number(r.students ?? 0);
-    return { id: r.id, title: r.title, dueAt: r.dueAt as Date, submitted, missing: Math.max(0, students - submitted) };
+    return {
+      id: r.id,
+      title: r.title,
+      dueAt: r.dueAt as Date | null,
+      closesAt: r.closesAt as Date | null,
+      latePenaltyPercentPerDay: r.latePenaltyPercentPerDay,
+      lateFloorPercent: r.lateFloorPercent,
+      submitted,
+      missing: Math.max(0, students - submitted),
+    };
   });
 }
 

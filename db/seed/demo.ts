@@ -5,7 +5,7 @@ import { hash } from "@node-rs/argon2";
 import type { Database, Role } from "../types";
 import { seedLabs, type SeedStorage } from "./labs";
 import { seedMail } from "./mail";
-import { seedReviews } from "./reviews";
+import { seedLabReviews, seedReviews } from "./reviews";
 import { readLessonFiles } from "../../lib/lessons/files";
 
 export const DEMO_PASSWORD = "bench-demo-2026";
@@ -114,6 +114,8 @@ export async function seedDemo(db: Kysely<Database>, opts: { storage?: SeedStora
 
     // Review requests: a few waiting, one answered with a changed score.
     await seedReviews(trx, courseId, { studentOne: ids[`student.one@${DEMO_DOMAIN}`], studentTwo: ids[`student.two@${DEMO_DOMAIN}`], ta: ids[`ta.one@${DEMO_DOMAIN}`] });
+    // and on the labs running now (labs 10 to 13), open and answered
+    await seedLabReviews(trx, courseId, ids[`ta.one@${DEMO_DOMAIN}`]);
 
     // The lesson plan: the whole syllabus, the last three lessons opening over the coming weeks. A plan
     // seeded before newer lessons existed gets them appended (visible, open), and keeps its own rows.

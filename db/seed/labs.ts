@@ -31,6 +31,14 @@ interface DemoLab {
   instructions: string;
   safety: string;
   traces?: boolean;
+  /** review requests seeded on the lab's attempts (see db/seed/reviews.ts seedLabReviews) */
+  reviews?: DemoReviews;
+}
+
+/** Students' review requests on one demo lab: some still open, some answered (with a changed score when `regrade` is given). */
+export interface DemoReviews {
+  open: string[];
+  answered: { message: string; answer: string; regrade?: string }[];
 }
 
 const LABS: DemoLab[] = [
@@ -225,6 +233,17 @@ const LABS: DemoLab[] = [
     instructions:
       "Measure the test current with the feedback ammeter twice: first with the neighbouring trace at your voltage and no guard, then with the guard ring connected to the amplifier's non-inverting input.\n\n- Predict the leakage through the board's insulation.\n- Report the error of each reading against the current the source sets, in percent.\n- Do not forget the amplifier's bias current.",
     safety: `${SAFETY.esd} ${SAFETY.bench}`,
+    reviews: {
+      open: [
+        "Question 2: my unguarded reading already had the bias current in it, so I counted it once. I think my error is right if it is not counted twice.",
+      ],
+      answered: [
+        {
+          message: "Question 3: the guard on my board sat at 2 mV, not at the voltage on my handout. Should my prediction have used what I measured?",
+          answer: "Predict with the guard voltage on your handout; that is what the question asks. Your 2 mV is a good bench observation: write it beside your reading. The grade stands.",
+        },
+      ],
+    },
   },
   {
     title: "Lab 11 · Microvolts: thermoelectric offsets and current reversal",
@@ -247,6 +266,16 @@ const LABS: DemoLab[] = [
     instructions:
       "Warm one solder junction of the sense leads with the heating block until the thermometer shows your temperature difference. Read the shunt voltage with the current forward, reverse the current, and read again.\n\n- Predict the current the offsets alone would read as.\n- Work out the current from half the difference of the two readings.",
     safety: `${SAFETY.solder} ${SAFETY.shunt}`,
+    reviews: {
+      open: ["Question 4: I reversed the current at the supply, not at the shunt. Does that change which half-difference I should report?"],
+      answered: [
+        {
+          message: "My first forward reading was taken before the junction had settled; the reading a minute later is in my bench log. Could that method be looked at?",
+          answer: "Your bench log shows the heating block had not settled for the first reading, and your working from the later one is right. I gave half of that question's points back for the method.",
+          regrade: "Bench log shows the junction had not settled; the method from the later reading is right. Half the points back.",
+        },
+      ],
+    },
   },
   {
     title: "Lab 12 · How often to sample a waking node",
@@ -271,6 +300,15 @@ const LABS: DemoLab[] = [
     instructions:
       "Log the node's current with the fast logger at your sample rate and, at the same time, with the once-a-second logger for five minutes.\n\n- Count the samples in a burst and find the rate that gives twenty.\n- From the slow log, measure how often the wakes appear to repeat.\n- Bound the error of the average from one sample interval per wake.",
     safety: SAFETY.cell,
+    reviews: {
+      open: ["Question 3: on the slow log the wakes drift the opposite way from my prediction. Is the size of the apparent frequency what counts?"],
+      answered: [
+        {
+          message: "Question 1: I counted one sample fewer in a burst on the logger than the handout's numbers give. Which count should I report?",
+          answer: "Report what your sample rate and burst width give. On the bench the first sample can land just after the burst starts, so one fewer is normal; that is why question 4 asks for the worst case. The grade stands.",
+        },
+      ],
+    },
   },
   {
     title: "Lab 13 · The whole chain: a budget from shunt to converter code",
@@ -302,6 +340,15 @@ const LABS: DemoLab[] = [
     instructions:
       "The course meter reads your shunt through its amplifier and converter. Write the budget table for one reading: every bound as a standard uncertainty, each times its sensitivity coefficient, combined in quadrature, and name the contribution that dominates.",
     safety: "",
+    reviews: {
+      open: ["Question 4: on my values two contributions are almost equal. I named the temperature coefficient; could the gain error be accepted as well?"],
+      answered: [
+        {
+          message: "Question 2: I used the whole converter step instead of dividing it by the square root of twelve. Is the rest of my budget still marked?",
+          answer: "Each question is marked on its own, so the rest of your budget kept its points; the combined uncertainty used your larger quantisation term, so it moved too. You have attempts left: resubmit with the step divided by √12.",
+        },
+      ],
+    },
   },
 ];
 
@@ -348,6 +395,11 @@ function chooseOutcome(r: () => number): Outcome {
   if (x < 0.87) return { kind: "unit" };
   if (x < 0.92) return { kind: "missing" };
   return { kind: "mistake", key: "prefix-slip" };
+}
+
+/** The demo labs that come with seeded review requests, by title. */
+export function demoLabReviews(): { title: string; reviews: DemoReviews }[] {
+  return LABS.flatMap((l) => (l.reviews ? [{ title: l.title, reviews: l.reviews }] : []));
 }
 
 export interface SeedStorage {

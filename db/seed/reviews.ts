@@ -4,6 +4,7 @@
 import type { Kysely, Transaction } from "kysely";
 import type { Database } from "../types";
 import { answerReviewRequest, overrideQuestion } from "../../lib/labs/rescore";
+import { demoLabReviews } from "./labs";
 
 const HOUR = 3600_000;
 
@@ -63,4 +64,57 @@ export async function seedReviews(db: Kysely<Database>, courseId: string, people
     ...firsts.filter((a) => a.userId !== people.studentOne && a.userId !== people.studentTwo).slice(0, 2),
   ].filter((a): a is (typeof firsts)[number] => Boolean(a));
   for (const [k, a] of open.entries()) await ask(a.id, OPEN_MESSAGES[k % OPEN_MESSAGES.length], later(a.submittedAt, 6 + k));
+}
+
+/**
+ * Review requests on the demo labs that carry their own (db/seed/labs.ts `reviews`: the nanoamp,
+ * microvolt, sampling and whole-chain labs), so the teaching assistants' queue shows requests on the
+ * labs running now: each lab gets its open requests and its answered ones (a teaching assistant's answer,
+ * after a changed score where the lab says so). Per lab and once: a lab with any request already is left
+ * as it is, so a database seeded before these labs had requests gets them, and a second run changes nothing.
+ */
+export async function seedLabReviews(db: Kysely<Database>, courseId: string, ta: string, now = new Date()) {
+  const trx = db as Transaction<Database>;
+  for (const { title, reviews } of demoLabReviews()) {
+    const lab = await db.selectFrom("labs").select("id").where("course_id", "=", courseId).where("title", "=", title).executeTakeFirst();
+    if (!lab) continue;
+    const asked = await db.selectFrom("attempts").select("id").where("lab_id", "=", lab.id).where("review_requested_at", "is not", null).executeTakeFirst();
+    if (asked) continue;
+    // students' first attempts submitted more than a day ago, earliest first (so every request and answer lies in the past)
+    const firsts = await db
+      .selectFrom("attempts")
+      .select(["id", "result", "submitted_at as submittedAt"])
+      .where("lab_id", "=", lab.id)
+      .where("number", "=", 1)
+      .where("submitted_at", "<", new Date(now.getTime() - 24 * HOUR))
+      .orderBy("submitted_at")
+      .orderBy("id")
+      .execute();
+    const below = (a: (typeof firsts)[number]) => (a.result as { results: { points: number; maxPoints: number }[] }).results.some((r) => r.points < r.maxPoints);
+    const used = new Set<string>();
+    const later = (d: Date, hours: number) => new Date(new Date(d).getTime() + hours * HOUR);
+    for (const item of reviews.answered) {
+      // a regrade needs a question the grader gave less than its points
+      const a = firsts.find((x) => !used.has(x.id) && (!item.regrade || below(x)));
+      if (!a) continue;
+      used.add(a.id);
+      const requestedAt = later(a.submittedAt, 3);
+      await db.updateTable("attempts").set({ review_requested_at: requestedAt, review_message: item.message }).where("id", "=", a.id).execute();
+      if (item.regrade) {
+        const results = (a.result as { results: { id?: string; points: number; maxPoints: number }[] }).results;
+        const i = results.findIndex((r) => r.points < r.maxPoints);
+        const q = results[i];
+        let points = Math.min(q.maxPoints, Math.floor((q.points + q.maxPoints / 2) * 2) / 2);
+        if (points <= q.points) points = q.maxPoints;
+        await overrideQuestion(trx, a.id, { questionId: q.id ?? `q${i + 1}`, points, reason: item.regrade }, ta, later(requestedAt, 4));
+      }
+      await answerReviewRequest(trx, a.id, item.answer, ta, later(requestedAt, 4.5));
+    }
+    for (const [k, message] of reviews.open.entries()) {
+      const a = firsts.find((x) => !used.has(x.id));
+      if (!a) break;
+      used.add(a.id);
+      await db.updateTable("attempts").set({ review_requested_at: later(a.submittedAt, 2 + k), review_message: message }).where("id", "=", a.id).execute();
+    }
+  }
 }

@@ -1,9 +1,10 @@
 // Loads what the home pages show. Callers authorize first (the course role decides which one is called).
 import "server-only";
 import { db } from "@/db";
-import { draftLabs, labsDueBetween, openReviewRequests, regradesInProgress, studentAttemptScores, studentReviewRequests } from "@/db/queries/course-home";
+import { draftLabs, labsWithDates, openReviewRequests, regradesInProgress, studentAttemptScores, studentReviewRequests } from "@/db/queries/course-home";
 import { lessonsForStudents } from "@/lib/course-lessons";
 import type { Lab } from "@/lib/labs/grading";
+import { closeOf } from "@/lib/labs/policy";
 import { studentSummary, type HomeLab } from "./summary";
 
 const WEEK = 7 * 24 * 3600 * 1000;
@@ -47,14 +48,16 @@ export async function studentHome(courseId: string, userId: string, publishedLab
 }
 
 export async function staffHome(courseId: string, now = new Date()) {
-  const [reviews, dueAhead, regrades, drafts] = await Promise.all([
-    openReviewRequests(db, courseId),
-    labsDueBetween(db, courseId, now, new Date(now.getTime() + 53 * WEEK)),
-    regradesInProgress(db, courseId),
-    draftLabs(db, courseId),
-  ]);
-  const closing = dueAhead.filter((l) => l.dueAt.getTime() < now.getTime() + WEEK);
-  // with nothing due this week, the next lab due later (so the page still says what comes next)
-  const nextLater = closing.length === 0 ? (dueAhead[0] ?? null) : null;
+  const [reviews, dated, regrades, drafts] = await Promise.all([openReviewRequests(db, courseId), labsWithDates(db, courseId, now), regradesInProgress(db, courseId), draftLabs(db, courseId)]);
+  // "closing" is when a lab stops taking attempts: its explicit close, else the due date plus the days
+  // the late penalty takes to reach its floor. A lab due this week that takes late work for longer is
+  // not closing yet; one past its due date that closes this week is (its missing students can still submit).
+  const ahead = dated
+    .map(({ latePenaltyPercentPerDay, lateFloorPercent, ...l }) => ({ ...l, closesAt: closeOf({ ...l, latePenaltyPercentPerDay, lateFloorPercent }) }))
+    .filter((l): l is typeof l & { closesAt: Date } => l.closesAt !== null && l.closesAt.getTime() >= now.getTime())
+    .sort((a, b) => a.closesAt.getTime() - b.closesAt.getTime());
+  const closing = ahead.filter((l) => l.closesAt.getTime() < now.getTime() + WEEK);
+  // with nothing closing this week, the next lab to close later (so the page still says what comes next)
+  const nextLater = closing.length === 0 ? (ahead[0] ?? null) : null;
   return { reviews, closing, nextLater, regrades, drafts };
 }

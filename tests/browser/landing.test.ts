@@ -29,14 +29,14 @@ describe("where each demo login lands", () => {
     await done();
   });
 
-  it("the instructor sees review requests and labs due per course, and the course home lists what to do", async () => {
+  it("the instructor sees review requests and labs closing per course, and the course home lists what to do", async () => {
     const { page, done } = await landing(demo.instructor, "landing-instructor");
     const card = page.getByRole("listitem").filter({ hasText: "Measuring Small Currents" });
     await card.getByText(/open review requests?/).waitFor();
-    await card.getByText(/due .*submitted, \d+ missing/).first().waitFor();
+    await card.getByText(/closes .*submitted, \d+ missing/).first().waitFor();
     await card.getByRole("link", { name: "Measuring Small Currents" }).click();
     await page.getByRole("region", { name: /Open review requests/ }).waitFor();
-    await page.getByRole("region", { name: "Labs due this week" }).waitFor();
+    await page.getByRole("region", { name: "Labs closing this week" }).waitFor();
     await page.getByRole("region", { name: "Drafts to finish" }).getByRole("link").first().waitFor();
     expect(await page.getByRole("region", { name: "Join code" }).textContent()).toContain("LARK-214");
     await page.screenshot({ path: "tests/.artifacts/course-home-instructor.png", fullPage: true });

@@ -124,4 +124,26 @@ describe("review and regrade in the browser", () => {
     expect(violations.map((v) => v.id)).toEqual([]);
     await page.screenshot({ path: "tests/.artifacts/review-student.png", fullPage: true });
   });
+
+  it("the student asks again after the answer, with a new message, and the request is open again in the TA's queue", async () => {
+    const page = student.page;
+    await page.goto(`/attempts/${attemptId}`);
+    const again = page.getByRole("form", { name: "Ask for a review again" });
+    await again.waitFor({ timeout: 20_000 });
+    await again.getByLabel("What is still open after the answer?").fill("Question 2 again: I used the resistor value printed on my handout.");
+    await again.getByRole("button", { name: "Ask again" }).click();
+    const review = page.getByTestId("review");
+    await expect.poll(async () => (await review.textContent()) ?? "", { timeout: 20_000 }).toContain("The course staff will look at it");
+    expect(await review.textContent()).toContain("Question 2 again: I used the resistor value printed on my handout.");
+    // the earlier answer stays, marked as earlier; no second form while the request waits
+    expect(await page.getByTestId("review-answer").textContent()).toContain("The staff's earlier answer");
+    expect(await page.getByRole("form", { name: /Ask for a review/ }).count()).toBe(0);
+    const own = await apiJson(student.context, "GET", `/api/attempts/${attemptId}`);
+    expect(own.body.attempt.reviewOpen).toBe(true);
+    await page.screenshot({ path: "tests/.artifacts/review-again-student.png", fullPage: true });
+
+    const queue = await apiJson(ta.context, "GET", `/api/courses/${courseId}/reviews?status=open`);
+    const mine = (queue.body.reviews as { attemptId: string; message: string; status: string }[]).find((r) => r.attemptId === attemptId);
+    expect(mine).toMatchObject({ status: "open", message: "Question 2 again: I used the resistor value printed on my handout." });
+  });
 });

@@ -2,6 +2,7 @@
 // from when; students see the visible ones only.
 import { beforeAll, describe, expect, it } from "vitest";
 import { Client } from "../support/http";
+import { e2eDb } from "../support/db";
 import { clientFor, courseWithPeople } from "./fixtures";
 
 let f: Awaited<ReturnType<typeof courseWithPeople>>;
@@ -91,5 +92,39 @@ describe("a course's lesson plan", () => {
     const twice = await put(as.instructor, { lessons: [{ slug: "bench-safety", visible: true }, { slug: "bench-safety", visible: false }] });
     expect(twice.status).toBe(400);
     expect((await as.student.json(path())).body.lessons).toEqual(before);
+  });
+
+  it("a course whose plan was saved before later lessons joined the catalogue shows them at the end, open; lessons left out on saving stay hidden", async () => {
+    const g = await courseWithPeople();
+    const instructor = await clientFor(g.people.instructor.email);
+    const student = await clientFor(g.people.student.email);
+    const url = `/api/courses/${g.courseId}/lessons`;
+    const catalogue = ((await student.json(url)).body.lessons as { slug: string; order: number }[]).map((l) => l.slug);
+    expect(catalogue).toHaveLength(14);
+    // the instructor's own plan: lessons 1 to 11 in reverse order, lesson 5 hidden
+    const own = catalogue.slice(0, 11).reverse();
+    const saved = await instructor.json(url, {
+      method: "PUT",
+      headers: { "content-type": "application/json" },
+      body: JSON.stringify({ lessons: own.map((slug) => ({ slug, visible: slug !== catalogue[4] })) }),
+    });
+    expect(saved.status).toBe(200);
+    // left out of the plan: stored as hidden, so they do not appear
+    expect(((await student.json(url)).body.lessons as { slug: string }[]).map((l) => l.slug)).toEqual(own.filter((s) => s !== catalogue[4]));
+    // a plan saved before lessons 12 to 14 existed has no rows for them
+    const db = e2eDb();
+    try {
+      await db.deleteFrom("course_lessons").where("course_id", "=", g.courseId).where("slug", "in", catalogue.slice(11)).execute();
+    } finally {
+      await db.destroy();
+    }
+    const seen = (await student.json(url)).body.lessons as { slug: string; open: boolean; visible: boolean }[];
+    expect(seen.map((l) => l.slug)).toEqual([...own.filter((s) => s !== catalogue[4]), ...catalogue.slice(11)]);
+    expect(seen.slice(-3).every((l) => l.open && l.visible)).toBe(true);
+    expect((await student.fetch(`/lessons/${catalogue[13]}`)).status).toBe(200);
+    // the instructor's plan lists them too, so they can be hidden or dated like the others
+    const staff = (await instructor.json(url)).body.lessons as { slug: string; visible: boolean }[];
+    expect(staff.map((l) => l.slug)).toEqual([...own, ...catalogue.slice(11)]);
+    expect(staff.filter((l) => !l.visible).map((l) => l.slug)).toEqual([catalogue[4]]);
   });
 });

@@ -63,7 +63,9 @@ describe("the demo seed", () => {
     expect(open.map((r) => r.student.name)).toContain("Noor Halvorsen");
     const times = open.map((r) => new Date(r.requestedAt).getTime());
     expect(times).toEqual([...times].sort((a, b) => a - b));
-    const answered = await listReviews(db, course.id, { status: "answered" });
+    // on the graded labs (due date passed), one answered with a changed score
+    const graded = new Set((await db.selectFrom("labs").select("id").where("course_id", "=", course.id).where("due_at", "<", new Date()).execute()).map((l) => l.id));
+    const answered = (await listReviews(db, course.id, { status: "answered" })).filter((r) => graded.has(r.labId));
     expect(answered).toHaveLength(1);
     const events = await listGradeEvents(db, answered[0].attemptId);
     expect(events.map((e) => e.kind)).toEqual(["graded", "override", "review_answer"]);
@@ -94,5 +96,56 @@ describe("the demo seed", () => {
     // the demo shows both: finished labs with their answers, open labs without
     expect(shown).toBeGreaterThan(0);
     expect(hidden).toBeGreaterThan(0);
+  });
+
+  it("leaves open and answered review requests on each of labs 10 to 13 in the TA's queue, once", async () => {
+    await seedDemo(db, { storage: seedStorageFromEnv(process.env) });
+    const course = await db.selectFrom("courses").select("id").where("code", "=", "ELM-214").executeTakeFirstOrThrow();
+    const labs = await db.selectFrom("labs").select(["id", "title"]).where("course_id", "=", course.id).where("title", "like", "Lab 1_ ·%").orderBy("title").execute();
+    expect(labs.map((l) => l.title.slice(0, 6))).toEqual(["Lab 10", "Lab 11", "Lab 12", "Lab 13"]);
+    const ta = await db.selectFrom("users").select("name").where("email", "=", "ta.one@larkmoor-tech.example").executeTakeFirstOrThrow();
+    let changed = 0;
+    for (const lab of labs) {
+      // what GET /api/courses/{courseId}/reviews?labId= answers the TA
+      const all = await listReviews(db, course.id, { status: "all", labId: lab.id });
+      const open = all.filter((r) => r.status === "open");
+      const answered = all.filter((r) => r.status === "answered");
+      expect(open.length, lab.title).toBeGreaterThanOrEqual(1);
+      expect(answered.length, lab.title).toBeGreaterThanOrEqual(1);
+      for (const r of answered) {
+        expect(r.answeredBy).toBe(ta.name);
+        expect(new Date(r.answeredAt!).getTime()).toBeGreaterThan(new Date(r.requestedAt).getTime());
+        expect(new Date(r.answeredAt!).getTime()).toBeLessThan(Date.now());
+        const kinds = (await listGradeEvents(db, r.attemptId)).map((e) => e.kind);
+        expect(kinds.at(-1)).toBe("review_answer");
+        if (kinds.includes("override")) changed++;
+      }
+      for (const r of open) expect(r.message?.length ?? 0).toBeGreaterThan(20);
+    }
+    // one of them answered with a changed score
+    expect(changed).toBeGreaterThanOrEqual(1);
+
+    // a second run changes no request, no answer and no history
+    const snapshot = () =>
+      sql<{ id: string; requested: Date | null; message: string | null; answered: Date | null; answer: string | null; score: number }>`
+        select id, review_requested_at requested, review_message message, review_answered_at answered, review_answer answer, score
+        from attempts where review_requested_at is not null order by id`.execute(db);
+    const events = () => sql<{ n: number }>`select count(*)::int n from grade_events`.execute(db);
+    const [before, eventsBefore] = [(await snapshot()).rows, (await events()).rows[0].n];
+    await seedDemo(db, { storage: seedStorageFromEnv(process.env) });
+    expect((await snapshot()).rows).toEqual(before);
+    expect((await events()).rows[0].n).toBe(eventsBefore);
+  });
+
+  it("gives labs 10 to 13 their review requests when the database was seeded before they had any", async () => {
+    await seedDemo(db, { storage: seedStorageFromEnv(process.env) });
+    const course = await db.selectFrom("courses").select("id").where("code", "=", "ELM-214").executeTakeFirstOrThrow();
+    const lab10 = await db.selectFrom("labs").select("id").where("course_id", "=", course.id).where("title", "like", "Lab 10 ·%").executeTakeFirstOrThrow();
+    // as an earlier seed left it: no request on the lab (the history rows stay: the table is append-only)
+    await db.updateTable("attempts").set({ review_requested_at: null, review_message: null, review_answered_at: null, review_answer: null, review_answered_by: null }).where("lab_id", "=", lab10.id).execute();
+    expect(await listReviews(db, course.id, { status: "all", labId: lab10.id })).toEqual([]);
+    await seedDemo(db, { storage: seedStorageFromEnv(process.env) });
+    const again = await listReviews(db, course.id, { status: "all", labId: lab10.id });
+    expect(again.map((r) => r.status).sort()).toEqual(["answered", "open"]);
   });
 });

@@ -101,22 +101,32 @@ function Review({ attempt, isOwner, onRequested }: { attempt: AttemptView; isOwn
         Review
       </h2>
       {attempt.reviewRequestedAt ? (
-        <div role="status">
-          <p className="mt-2 text-sm">
-            {isOwner ? "You asked" : "The student asked"} for a review on {utcDate(attempt.reviewRequestedAt)}.
-            {attempt.reviewOpen ? " The course staff will look at it; a changed grade shows here." : ""}
-          </p>
-          {attempt.reviewMessage ? <blockquote className="mt-2 border-l-4 border-ink/20 pl-3 text-sm whitespace-pre-line">{attempt.reviewMessage}</blockquote> : null}
-          {attempt.reviewAnswer && attempt.reviewAnsweredAt ? (
-            <div className="mt-3 rounded-md border border-trace/30 bg-trace-pale p-3 text-sm" data-testid="review-answer">
-              <p className="font-semibold">
-                {attempt.reviewOpen ? "The staff's earlier answer" : "The staff's answer"} ({utcDate(attempt.reviewAnsweredAt)})
-              </p>
-              <p className="mt-1 whitespace-pre-line">{attempt.reviewAnswer}</p>
-              {attempt.changedByStaff ? <p className="mt-1 text-ink-soft">The staff changed points on this attempt; each change and its reason are in the grade history below.</p> : null}
-            </div>
+        <>
+          <div role="status">
+            <p className="mt-2 text-sm">
+              {isOwner ? "You asked" : "The student asked"} for a review on {utcDate(attempt.reviewRequestedAt)}.
+              {attempt.reviewOpen ? " The course staff will look at it; a changed grade shows here." : ""}
+            </p>
+            {attempt.reviewMessage ? <blockquote className="mt-2 border-l-4 border-ink/20 pl-3 text-sm whitespace-pre-line">{attempt.reviewMessage}</blockquote> : null}
+            {attempt.reviewAnswer && attempt.reviewAnsweredAt ? (
+              <div className="mt-3 rounded-md border border-trace/30 bg-trace-pale p-3 text-sm" data-testid="review-answer">
+                <p className="font-semibold">
+                  {attempt.reviewOpen ? "The staff's earlier answer" : "The staff's answer"} ({utcDate(attempt.reviewAnsweredAt)})
+                </p>
+                <p className="mt-1 whitespace-pre-line">{attempt.reviewAnswer}</p>
+                {attempt.changedByStaff ? <p className="mt-1 text-ink-soft">The staff changed points on this attempt; each change and its reason are in the grade history below.</p> : null}
+              </div>
+            ) : null}
+          </div>
+          {/* Answered: the owner may ask again with a new message, which reopens the request (the earlier
+              answer stays shown). While a request waits for its answer the form stays hidden. */}
+          {isOwner && !attempt.reviewOpen ? (
+            <>
+              <p className="mt-4 text-sm text-ink-soft">If the answer leaves something open, ask again: your new message reopens the request.</p>
+              <ReviewForm attemptId={attempt.id} onRequested={onRequested} again />
+            </>
           ) : null}
-        </div>
+        </>
       ) : isOwner ? (
         <>
           <p className="mt-2 text-sm text-ink-soft">If you think a question was judged wrongly, tell the course staff what to look at.</p>

@@ -17,7 +17,8 @@ function failureText(e: unknown): string {
   return e.serverMessage ?? `The request failed (HTTP ${e.status}).`;
 }
 
-export function ReviewForm({ attemptId, onRequested }: { attemptId: string; onRequested: () => void }) {
+/** `again`: the staff answered an earlier request; sending reopens it with the new message. */
+export function ReviewForm({ attemptId, onRequested, again = false }: { attemptId: string; onRequested: () => void; again?: boolean }) {
   const id = useId();
   const { register, handleSubmit, formState, setError } = useForm<Values, unknown, Sent>({
     resolver: zodResolver(reviewRequestSchema),
@@ -38,10 +39,10 @@ export function ReviewForm({ attemptId, onRequested }: { attemptId: string; onRe
   });
 
   return (
-    <form onSubmit={onSubmit} noValidate aria-label="Ask for a review" className="mt-3">
+    <form onSubmit={onSubmit} noValidate aria-label={again ? "Ask for a review again" : "Ask for a review"} className="mt-3">
       <FormMessage message={send.isError ? failureText(send.error) : null} />
       <label htmlFor={id} className="field-label">
-        What should the staff look at again?
+        {again ? "What is still open after the answer?" : "What should the staff look at again?"}
       </label>
       <textarea
         id={id}
@@ -58,7 +59,7 @@ export function ReviewForm({ attemptId, onRequested }: { attemptId: string; onRe
         {error ? `Your message: ${error}` : ""}
       </p>
       <button type="submit" className="btn-quiet mt-2" disabled={formState.isSubmitting}>
-        {formState.isSubmitting ? "Sending…" : "Ask for a review"}
+        {formState.isSubmitting ? "Sending…" : again ? "Ask again" : "Ask for a review"}
       </button>
     </form>
   );

@@ -125,23 +125,24 @@ async function StaffHome({ courseId, joinCode, joiningOpen, now }: { courseId: s
           </ul>
         )}
       </Panel>
-      <Panel title="Labs due this week" id="closing">
+      <Panel title="Labs closing this week" id="closing">
         {closing.length === 0 ? (
           <p className="text-ink-soft">
-            No published lab is due in the next seven days.
+            No published lab stops taking attempts in the next seven days.
             {nextLater ? (
               <>
-                {" "}Next: <Link href={`/labs/${nextLater.id}`}>{nextLater.title}</Link>, due {when(nextLater.dueAt)}, {nextLater.submitted} submitted, {nextLater.missing} missing so far.
+                {" "}Next: <Link href={`/labs/${nextLater.id}`}>{nextLater.title}</Link>, closes {when(nextLater.closesAt)}, {nextLater.submitted} submitted, {nextLater.missing} missing so far.
               </>
             ) : null}
           </p>
         ) : (
           <table className="min-w-full">
-            <caption className="sr-only">Labs due in the next seven days</caption>
+            <caption className="sr-only">Labs that stop taking attempts in the next seven days</caption>
             <thead className="text-left text-ink-soft">
               <tr>
                 <th scope="col" className="py-1 pr-3 font-medium">Lab</th>
                 <th scope="col" className="py-1 pr-3 font-medium">Due</th>
+                <th scope="col" className="py-1 pr-3 font-medium">Closes</th>
                 <th scope="col" className="py-1 pr-3 text-right font-medium">Submitted</th>
                 <th scope="col" className="py-1 text-right font-medium">Missing</th>
               </tr>
@@ -150,7 +151,8 @@ async function StaffHome({ courseId, joinCode, joiningOpen, now }: { courseId: s
               {closing.map((l) => (
                 <tr key={l.id} className="border-t border-ink/10">
                   <td className="py-1 pr-3"><Link href={`/labs/${l.id}`}>{l.title}</Link></td>
-                  <td className="py-1 pr-3">{when(l.dueAt)}</td>
+                  <td className="py-1 pr-3">{l.dueAt ? when(l.dueAt) : "no due date"}</td>
+                  <td className="py-1 pr-3">{when(l.closesAt)}</td>
                   <td className="py-1 pr-3 text-right font-mono">{l.submitted}</td>
                   <td className="py-1 text-right font-mono">{l.missing}</td>
                 </tr>

@@ -1,0 +1,138 @@
+// Pages that are not there for the caller answer with the not-found page AND status 404 (not a 200 that
+// streams the not-found page after a loading skeleton): every course, lab and attempt page for someone
+// outside the course, another student's attempt, and the development mailbox on a server that does not
+// use the local mail stand-in. Plain fetches, no browser: the status is what a crawler or a script sees.
+import net from "node:net";
+import type { ChildProcess } from "node:child_process";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { hash } from "@node-rs/argon2";
+import { startNext, waitForHttp } from "../../scripts/lib/server";
+import { e2eDb, uniqueEmail } from "../support/db";
+import type { Client } from "../support/http";
+import { clientFor, courseWithPeople, PASSWORD } from "./fixtures";
+
+const DAY = 24 * 3600 * 1000;
+let f: Awaited<ReturnType<typeof courseWithPeople>>;
+let as: Record<"instructor" | "student" | "student2" | "outsider", Client>;
+let labId: string;
+let attemptId: string;
+
+beforeAll(async () => {
+  f = await courseWithPeople();
+  const db = e2eDb();
+  const email = uniqueEmail("student2");
+  try {
+    const u = await db.insertInto("users").values({ email, name: "Second student", password_hash: await hash(PASSWORD) }).returning("id").executeTakeFirstOrThrow();
+    await db.insertInto("memberships").values({ course_id: f.courseId, user_id: u.id, role: "student" }).execute();
+  } finally {
+    await db.destroy();
+  }
+  as = {
+    instructor: await clientFor(f.people.instructor.email),
+    student: await clientFor(f.people.student.email),
+    student2: await clientFor(email),
+    outsider: await clientFor(f.people.outsider.email),
+  };
+  const created = await as.instructor.post(`/api/courses/${f.courseId}/labs`, {
+    title: "Not-found check",
+    templateKey: "shunt-burden",
+    spec: { template: "shunt-burden", parameters: { supplyVoltage: { mode: "fixed", value: 5 }, loadResistance: { mode: "fixed", value: 470 }, shuntResistance: { mode: "fixed", value: 10 } } },
+    questions: [{ quantity: "indicatedCurrent", kind: "prediction", points: 4 }],
+    policy: { relativeTolerance: 0.01 },
+    attemptsAllowed: 3,
+    counting: "best",
+    opensAt: new Date(Date.now() - DAY).toISOString(),
+    dueAt: new Date(Date.now() + 7 * DAY).toISOString(),
+    latePenaltyPercentPerDay: 0,
+    lateFloorPercent: 0,
+    showExpected: "after_attempt",
+    instructions: "Measure it.",
+    safetyNotes: "Set the current limit first.",
+  });
+  expect(created.status).toBe(201);
+  labId = created.body.lab.id;
+  const pub = await as.instructor.json(`/api/labs/${labId}`, { method: "PATCH", headers: { "content-type": "application/json" }, body: JSON.stringify({ status: "published" }) });
+  expect(pub.status).toBe(200);
+  const sub = await as.student.post(`/api/labs/${labId}/attempts`, { idempotencyKey: `nf-${Date.now()}`, readings: { q1: "10.42 mA" } });
+  expect(sub.status).toBe(201);
+  attemptId = sub.body.attempt.id;
+});
+
+async function expectNotFound(c: Client, path: string) {
+  const res = await c.fetch(path);
+  const html = await res.text();
+  expect(res.status, path).toBe(404);
+  expect(html, path).toContain("Not found");
+}
+
+describe("pages that are not there for the caller", () => {
+  it("answer 404 to another student for an attempt, while its owner reads it (200)", async () => {
+    expect((await as.student.fetch(`/attempts/${attemptId}`)).status).toBe(200);
+    await expectNotFound(as.student2, `/attempts/${attemptId}`);
+    await expectNotFound(as.outsider, `/attempts/${attemptId}`);
+    await expectNotFound(as.student, "/attempts/00000000-0000-4000-8000-000000000000");
+  });
+
+  it("answer 404 to someone outside the course on every course and lab page, while the instructor reads them (200)", async () => {
+    const pages = [
+      `/courses/${f.courseId}`,
+      `/courses/${f.courseId}/labs`,
+      `/courses/${f.courseId}/labs/new`,
+      `/courses/${f.courseId}/lessons`,
+      `/courses/${f.courseId}/roster`,
+      `/courses/${f.courseId}/settings`,
+      `/courses/${f.courseId}/reviews`,
+      `/courses/${f.courseId}/reviews/${attemptId}`,
+      `/labs/${labId}`,
+      `/labs/${labId}/edit`,
+      `/labs/${labId}/parts`,
+      `/labs/${labId}/preview`,
+    ];
+    for (const path of pages) {
+      expect((await as.instructor.fetch(path)).status, path).toBe(200);
+      await expectNotFound(as.outsider, path);
+    }
+    await expectNotFound(as.outsider, "/courses/not-a-uuid");
+    await expectNotFound(as.outsider, "/labs/00000000-0000-4000-8000-000000000000");
+  });
+});
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const s = net.createServer();
+    s.once("error", reject);
+    s.listen(0, "127.0.0.1", () => {
+      const { port } = s.address() as net.AddressInfo;
+      s.close(() => resolve(port));
+    });
+  });
+}
+
+describe("the development mailbox on a server without the local mail stand-in", () => {
+  let server: ChildProcess | undefined;
+  let url: string;
+
+  beforeAll(async () => {
+    const port = await freePort();
+    url = `http://127.0.0.1:${port}`;
+    // the same build and database as the server under test, but no stand-in mail folder and no workers
+    const env: NodeJS.ProcessEnv = { ...process.env, NODE_ENV: "production", DATABASE_URL: process.env.E2E_DATABASE_URL, SHUNTWISE_NO_WORKERS: "1", APP_URL: url, NEXTAUTH_URL: url };
+    delete env.SHUNTWISE_MAIL_DIR;
+    server = startNext({ distDir: process.env.SHUNTWISE_TEST_DIST_DIR ?? ".next-test", port, host: "127.0.0.1", env, quiet: true });
+    await waitForHttp(`${url}/api/health`, server);
+  });
+
+  afterAll(async () => {
+    if (!server || server.exitCode !== null) return;
+    const exited = new Promise((r) => server!.once("exit", r));
+    server.kill("SIGTERM");
+    await exited;
+  });
+
+  it("answers 404 for the page and its JSON", async () => {
+    const page = await fetch(`${url}/dev/mailbox`, { redirect: "manual" });
+    expect(page.status).toBe(404);
+    expect(await page.text()).toContain("Not found");
+    expect((await fetch(`${url}/api/dev/mail`)).status).toBe(404);
+  });
+});
