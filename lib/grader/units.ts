@@ -177,7 +177,9 @@ function normalise(text: string): { text: string } | { ambiguous: [string, strin
     if (commas === 1 && !t.includes(".") && /,\d(?!\d)|,\d\d(?!\d)|,\d{4,}/.test(t)) t = t.replace(",", ".");
     else if (number && grouping && (commas > 1 || number.includes("."))) t = number.replace(/,/g, "") + t.slice(number.length);
     else if (commas === 1 && number && grouping) {
-      const rest = t.slice(number.length);
+      // both readings keep the unit as the student typed it (µ, Ω), less a sentence's full stop
+      let rest = text.trim().slice(number.length);
+      if (/[^\d\s.]\.$/.test(rest)) rest = rest.slice(0, -1).trimEnd();
       return { ambiguous: [number.replace(",", ".") + rest, number.replace(",", "") + rest] };
     }
   }
