@@ -2,7 +2,7 @@
 // fields? } }` JSON with a 4xx status, and nothing unexpected leaks beyond a generic 500 message.
 import { NextResponse } from "next/server";
 import { z } from "zod";
-import { AppError } from "@/lib/errors";
+import { AppError, isDatabaseUnavailable, ServiceUnavailable } from "@/lib/errors";
 import { invalid, parseOr400 } from "@/lib/validation/zod-errors";
 
 type Ctx<P> = { params: Promise<P> };
@@ -84,6 +84,8 @@ export function route<P = Record<string, string>>(handler: (req: Request, params
 }
 
 export function errorResponse(e: unknown): Response {
+  // the database restarting or out of reach: 503 with Retry-After, the client may send the same request again
+  if (!(e instanceof AppError) && isDatabaseUnavailable(e)) e = new ServiceUnavailable();
   // A body cut at its limit leaves unread bytes on the connection: close it rather than reuse it.
   if (e instanceof AppError && e.code === "payload_too_large") return NextResponse.json(e.toJSON(), { status: e.status, headers: { connection: "close" } });
   if (e instanceof AppError && "retryAfterSeconds" in e) {

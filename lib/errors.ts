@@ -10,7 +10,8 @@ export type ErrorCode =
   | "payload_too_large"
   | "unsupported_media_type"
   | "too_many_requests"
-  | "internal";
+  | "internal"
+  | "service_unavailable";
 
 const STATUS: Record<ErrorCode, number> = {
   bad_request: 400,
@@ -22,6 +23,7 @@ const STATUS: Record<ErrorCode, number> = {
   unsupported_media_type: 415,
   too_many_requests: 429,
   internal: 500,
+  service_unavailable: 503,
 };
 
 export type FieldErrors = Record<string, string[]>;
@@ -46,3 +48,27 @@ export class AppError extends Error {
 export const unauthorized = (message = "Sign in to continue.") => new AppError("unauthorized", message);
 export const forbidden = (message = "Your role in this course does not allow this.") => new AppError("forbidden", message);
 export const notFound = (what = "That page") => new AppError("not_found", `${what} was not found.`);
+
+/** 503 with Retry-After: the database is restarting or unreachable; the same request can be sent again. */
+export class ServiceUnavailable extends AppError {
+  constructor(public retryAfterSeconds = 5) {
+    super("service_unavailable", `The server cannot reach its database just now. Try again in ${retryAfterSeconds} seconds; sending the same request again is safe.`);
+  }
+}
+
+// PostgreSQL codes that mean "the server is going away or not there yet", not "your query is wrong":
+// 57P01 admin_shutdown, 57P02 crash_shutdown, 57P03 cannot_connect_now, class 08 connection
+// exceptions, 53300 too_many_connections (PostgreSQL manual, Appendix A, error codes).
+const PG_UNAVAILABLE = new Set(["57P01", "57P02", "57P03", "08000", "08001", "08003", "08004", "08006", "53300"]);
+const NET_UNAVAILABLE = new Set(["ECONNREFUSED", "ECONNRESET", "EPIPE", "ETIMEDOUT", "ENOTFOUND", "EAI_AGAIN", "EHOSTUNREACH"]);
+const MESSAGE_UNAVAILABLE = /Connection terminated|terminating connection|timeout exceeded when trying to connect|the database system is (starting up|shutting down|in recovery)|Client has encountered a connection error/i;
+
+/** True when `e` (or an error it wraps) says the database cannot be reached right now. */
+export function isDatabaseUnavailable(e: unknown, depth = 0): boolean {
+  if (!e || typeof e !== "object" || depth > 4) return false;
+  const code = (e as { code?: unknown }).code;
+  if (typeof code === "string" && (PG_UNAVAILABLE.has(code) || NET_UNAVAILABLE.has(code))) return true;
+  if (e instanceof Error && MESSAGE_UNAVAILABLE.test(e.message)) return true;
+  if (e instanceof AggregateError && e.errors.some((x) => isDatabaseUnavailable(x, depth + 1))) return true;
+  return isDatabaseUnavailable((e as { cause?: unknown }).cause, depth + 1);
+}

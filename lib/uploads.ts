@@ -1,12 +1,14 @@
-// Accepting an upload: size cap, type from the bytes (never from the name or the browser's claim),
-// SHA-256, storage, and for a logged trace the analysis. Callers authorize first.
+// Accepting an upload: size cap, per-person storage quota, type from the bytes (never from the name or
+// the browser's claim), SHA-256, storage, and for a logged trace the analysis. Callers authorize first.
+// The object is stored before its row; when the row cannot be written the object is removed again.
+// Uploads that no attempt attaches are swept after a day (sweepUnattachedUploads, a scheduled job).
 import "server-only";
 import crypto from "node:crypto";
 import { fileTypeFromBuffer } from "file-type";
 import { db } from "@/db";
-import { insertUpload, type UploadRow } from "@/db/queries/uploads";
+import { deleteUnattachedUploads, insertUpload, lockOwnerUploads, storedBytes, type UploadRow } from "@/db/queries/uploads";
 import { AppError } from "@/lib/errors";
-import { putObject, maxUploadBytes, signedUrl } from "@/lib/storage";
+import { deleteObjects, maxUploadBytes, putObject, signedUrl, unattachedUploadHours, uploadQuotaBytes } from "@/lib/storage";
 import { analyzeTrace } from "@/lib/trace";
 import type { Params } from "@/lib/grader";
 
@@ -26,6 +28,14 @@ export function mb(bytes: number): string {
   return `${(bytes / 1024 / 1024).toFixed(bytes % (1024 * 1024) ? 1 : 0)} MB`;
 }
 
+/** 413 naming `file` when `size` more bytes would take the owner past the quota. */
+function checkQuota(used: number, size: number): void {
+  const quota = uploadQuotaBytes();
+  if (used + size <= quota) return;
+  const message = `Your stored files use ${mb(used)} of your ${mb(quota)}; this ${mb(size)} file does not fit. Files not attached to an attempt are removed after a day, or ask your instructor.`;
+  throw new AppError("payload_too_large", message, { file: [`Not enough storage left: ${mb(Math.max(0, quota - used))} of ${mb(quota)} free.`] });
+}
+
 export async function acceptUpload(opts: {
   ownerId: string;
   courseId: string;
@@ -39,6 +49,7 @@ export async function acceptUpload(opts: {
   if (opts.bytes.byteLength > cap) {
     throw new AppError("payload_too_large", `The file is ${mb(opts.bytes.byteLength)}; the limit is ${mb(cap)}.`, { file: [`Files may be at most ${mb(cap)}.`] });
   }
+  checkQuota(await storedBytes(db, opts.ownerId), opts.bytes.byteLength);
   const detected = await fileTypeFromBuffer(opts.bytes);
   let kind: "image" | "trace";
   let contentType: string;
@@ -67,18 +78,29 @@ export async function acceptUpload(opts: {
   }
   const storageKey = `${opts.courseId}/${opts.ownerId}/${crypto.randomUUID()}${kind === "trace" ? ".csv" : contentType === "image/png" ? ".png" : ".jpg"}`;
   await putObject(storageKey, opts.bytes, contentType);
-  const id = await insertUpload(db, {
-    ownerId: opts.ownerId,
-    courseId: opts.courseId,
-    labId: opts.labId,
-    kind,
-    contentType,
-    size: opts.bytes.byteLength,
-    sha256,
-    storageKey,
-    originalName: opts.fileName.slice(0, 200),
-    analysis,
-  });
+  let id: string;
+  try {
+    id = await db.transaction().execute(async (trx) => {
+      await lockOwnerUploads(trx, opts.ownerId);
+      checkQuota(await storedBytes(trx, opts.ownerId), opts.bytes.byteLength);
+      return insertUpload(trx, {
+        ownerId: opts.ownerId,
+        courseId: opts.courseId,
+        labId: opts.labId,
+        kind,
+        contentType,
+        size: opts.bytes.byteLength,
+        sha256,
+        storageKey,
+        originalName: opts.fileName.slice(0, 200),
+        analysis,
+      });
+    });
+  } catch (e) {
+    // no row, no object: a stored file nobody can reach would only use space
+    await deleteObjects([storageKey]).catch((err) => console.error("could not remove the stored file of a failed upload", storageKey, err));
+    throw e;
+  }
   return { id, kind, contentType, size: opts.bytes.byteLength, sha256, analysis };
 }
 
@@ -96,4 +118,19 @@ export async function uploadView(u: UploadRow) {
     url: await signedUrl(u.storageKey, 60, u.originalName),
     urlExpiresInSeconds: 60,
   };
+}
+
+/**
+ * Removes uploads older than SHUNTWISE_UPLOAD_SWEEP_HOURS (default 24) that no attempt attaches: rows
+ * first, then their objects. Returns how many were removed.
+ */
+export async function sweepUnattachedUploads(now = new Date()): Promise<number> {
+  const before = new Date(now.getTime() - unattachedUploadHours() * 3600_000);
+  let removed = 0;
+  for (;;) {
+    const keys = await deleteUnattachedUploads(db, before);
+    if (keys.length === 0) return removed;
+    await deleteObjects(keys);
+    removed += keys.length;
+  }
 }

@@ -1,4 +1,4 @@
-// `npm run worker`: the background jobs alone (graded e-mail, lab recomputations), for a deployment that
+// `npm run worker`: the background jobs alone (graded e-mail, lab recomputations, the sweep of unattached uploads), for a deployment that
 // runs web and worker processes separately (start the web server with SHUNTWISE_NO_WORKERS=1 there).
 // `npm start` runs the same workers inside the web server. Uses DATABASE_URL, else the local database.
 import { serviceConfig } from "./lib/config";
@@ -10,8 +10,8 @@ async function main() {
   process.env.SMTP_URL ??= `smtp://127.0.0.1:${cfg.smtpPort}`;
   process.env.APP_URL ??= process.env.NEXTAUTH_URL ?? `http://127.0.0.1:${cfg.appPort}`;
   const { boss } = await import("../lib/jobs");
-  const { startWorkers } = await import("../lib/workers");
-  await startWorkers();
+  const { startWorkersRetrying } = await import("../lib/workers");
+  await startWorkersRetrying();
   console.log("Shuntwise worker is running (graded e-mail and lab recomputations). Ctrl-C stops it.");
   let stopping = false;
   const stop = async () => {

@@ -1,5 +1,5 @@
 // Uploaded files (scope captures and logged traces). The bytes live in object storage; this is the record.
-import type { Kysely, Transaction } from "kysely";
+import { sql, type Kysely, type Transaction } from "kysely";
 import type { Database, UploadKind } from "../types";
 
 type Db = Kysely<Database> | Transaction<Database>;
@@ -51,4 +51,54 @@ export async function insertUpload(
     .returning("id")
     .executeTakeFirstOrThrow();
   return row.id;
+}
+
+/** Bytes stored for one owner, over all their uploads. */
+export async function storedBytes(db: Db, ownerId: string): Promise<number> {
+  const r = await db.selectFrom("uploads").select(sql<string>`coalesce(sum(size), 0)`.as("total")).where("owner_id", "=", ownerId).executeTakeFirstOrThrow();
+  return Number(r.total);
+}
+
+/** Serialises one owner's uploads until the end of `trx`, so two at once cannot both pass the quota. */
+export async function lockOwnerUploads(trx: Transaction<Database>, ownerId: string): Promise<void> {
+  await sql`select pg_advisory_xact_lock(hashtextextended(${"uploads:" + ownerId}, 0))`.execute(trx);
+}
+
+/**
+ * Locks the uploads an attempt attaches until the attempt's transaction ends (the sweep skips locked
+ * rows); returns how many of them still exist.
+ */
+export async function lockUploadsForAttempt(trx: Transaction<Database>, ids: string[]): Promise<number> {
+  if (ids.length === 0) return 0;
+  const rows = await trx.selectFrom("uploads").select("id").where("id", "in", ids).forShare().execute();
+  return rows.length;
+}
+
+/**
+ * Deletes at most `limit` uploads created before `before` that no attempt attaches, and returns their
+ * storage keys (the caller removes the objects). Rows are locked first, skipping any an attempt is
+ * attaching right now, and the "not attached" condition is checked again after the lock.
+ */
+export async function deleteUnattachedUploads(db: Kysely<Database>, before: Date, limit = 500): Promise<string[]> {
+  return db.transaction().execute(async (trx) => {
+    const notAttached = sql<boolean>`not exists (select 1 from attempts a where uploads.id = any(a.upload_ids))`;
+    const candidates = await trx
+      .selectFrom("uploads")
+      .select("id")
+      .where("created_at", "<", before)
+      .where(notAttached)
+      .orderBy("created_at")
+      .limit(limit)
+      .forUpdate()
+      .skipLocked()
+      .execute();
+    if (candidates.length === 0) return [];
+    const gone = await trx
+      .deleteFrom("uploads")
+      .where("id", "in", candidates.map((c) => c.id))
+      .where(notAttached)
+      .returning("storage_key")
+      .execute();
+    return gone.map((g) => g.storage_key);
+  });
 }

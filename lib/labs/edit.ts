@@ -62,11 +62,15 @@ export async function editLab(lab: Lab, patch: LabPatch): Promise<{ regrade: { i
   const changed: Record<string, unknown> = {};
   for (const k of Object.keys(fields)) changed[k] = (merged as Record<string, unknown>)[k];
   if ("questions" in changed) changed.questions = withIds(merged.questions);
-  await updateLab(db, lab.id, { ...changed, ...(status ? { status } : {}) }, recompute);
-
-  if (!recompute) return { regrade: null };
-  const regrade = await startRegrade(lab.id, lab.version + 1, attempts);
-  await enqueue(QUEUES.regrade, { regradeId: regrade.id }, { singletonKey: regrade.id });
-  return { regrade };
+  // the edit, its recomputation row and the job commit together or not at all: a job that cannot be
+  // queued rolls the edit back (the instructor sees an error and can save again), so no recomputation
+  // is ever left "queued" without a job
+  return db.transaction().execute(async (trx) => {
+    await updateLab(trx, lab.id, { ...changed, ...(status ? { status } : {}) }, recompute);
+    if (!recompute) return { regrade: null };
+    const regrade = await startRegrade(lab.id, lab.version + 1, attempts, trx);
+    await enqueue(QUEUES.regrade, { regradeId: regrade.id }, { singletonKey: regrade.id, trx });
+    return { regrade };
+  });
 }
 

@@ -1,7 +1,9 @@
 // Recomputes every attempt of a lab after a published lab changed. Runs as a job; the lab_regrades row
 // records its progress for the lab page's progress bar. Late penalties already applied and staff points
 // are kept; each attempt's recomputation is a row of its grade history.
+import type { Kysely, Transaction } from "kysely";
 import { db } from "@/db";
+import type { Database } from "@/db/types";
 import { listAttempts } from "@/db/queries/attempts";
 import { findLab } from "@/db/queries/labs";
 import { findUploads } from "@/db/queries/uploads";
@@ -9,8 +11,8 @@ import { queueGradeMail } from "@/lib/mail/grade";
 import { toLab, type StoredTrace } from "./grading";
 import { recomputeAttempt } from "./rescore";
 
-export async function startRegrade(labId: string, labVersion: number, total: number): Promise<{ id: string; total: number }> {
-  const row = await db
+export async function startRegrade(labId: string, labVersion: number, total: number, trx: Kysely<Database> | Transaction<Database> = db): Promise<{ id: string; total: number }> {
+  const row = await trx
     .insertInto("lab_regrades")
     .values({ lab_id: labId, lab_version: labVersion, total })
     .returning("id")

@@ -15,7 +15,7 @@ import {
 } from "@/db/queries/attempts";
 import { insertGradeEvent } from "@/db/queries/grade-events";
 import { findLab, findVariant, insertLab, listLabs, storeVariant } from "@/db/queries/labs";
-import { findUploads } from "@/db/queries/uploads";
+import { findUploads, lockUploadsForAttempt } from "@/db/queries/uploads";
 import { assertRole, EVERYONE, isStaff, requireCourseRole, type CourseAccess } from "@/lib/auth/access";
 import { AppError, notFound } from "@/lib/errors";
 import { queueGradeMail } from "@/lib/mail/grade";
@@ -88,6 +88,10 @@ export async function submitAttempt(lab: Lab, access: CourseAccess, input: Submi
 
   return db.transaction().execute(async (trx: Transaction<Database>) => {
     await lockStudentLab(trx, lab.id, userId);
+    // the attached files stay while this attempt is written (the sweep of unattached uploads skips them)
+    if ((await lockUploadsForAttempt(trx, uploads.map((u) => u.id))) !== uploads.length) {
+      throw new AppError("bad_request", "One of the attached files is no longer stored; upload it again.", { uploadIds: ["Upload the file again."] });
+    }
     const previous = await findAttemptByKey(trx, lab.id, userId, input.idempotencyKey);
     if (previous) return { attemptId: previous.id, created: false };
     if (!isOpen(lab, now)) throw new AppError("conflict", `This lab opens on ${lab.opensAt!.toISOString().slice(0, 16).replace("T", " ")} UTC.`);

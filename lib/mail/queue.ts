@@ -1,11 +1,10 @@
 // queueMail: the one way to send e-mail. It writes the outbox row and the pg-boss job inside the
 // caller's transaction, so an event that rolls back sends nothing and a stored event always has its
 // job. The key names the event: a second call with the same key queues nothing.
-import { CompiledQuery, type Transaction } from "kysely";
-import type PgBoss from "pg-boss";
+import type { Transaction } from "kysely";
 import type { Database } from "@/db/types";
 import { findOutboxByKey, insertOutbox, setOutboxJob } from "@/db/queries/mail-outbox";
-import { boss, QUEUES } from "@/lib/jobs";
+import { boss, bossDb, QUEUES } from "@/lib/jobs";
 import { retryOptions } from "./config";
 
 export interface MailRequest {
@@ -20,16 +19,6 @@ export interface MailRequest {
 
 export interface MailJob {
   outboxId: string;
-}
-
-/** pg-boss runs its insert through the caller's transaction (its `db` option). */
-export function bossDb(trx: Transaction<Database>): PgBoss.Db {
-  return {
-    async executeSql(text: string, values: unknown[]) {
-      const r = await trx.executeQuery(CompiledQuery.raw(text, values));
-      return { rows: r.rows as unknown[] };
-    },
-  };
 }
 
 /** Sends the outbox row's job, in `trx` when given. */

@@ -2,7 +2,7 @@
 // Expected values are computed here from the handout's circuit values with the textbook formulas
 // (lib/grader/PHYSICS.md §2: I = Vs/(RL + Rsh), V_B = I·Rsh), independently of lib/grader.
 import { beforeAll, describe, expect, it } from "vitest";
-import { Client } from "../support/http";
+import { baseURL, Client } from "../support/http";
 import { clientFor, courseWithPeople } from "./fixtures";
 import { e2eDb, uniqueEmail } from "../support/db";
 import { hash } from "@node-rs/argon2";
@@ -545,6 +545,9 @@ describe("uploads", () => {
     expect(view.body.upload.urlExpiresInSeconds).toBeLessThanOrEqual(60);
     const file = await fetch(view.body.upload.url);
     expect(new Uint8Array(await file.arrayBuffer())).toEqual(png);
+    // never shown inline from the app's origin: the URL is the object store's, answered as a download
+    expect(new URL(view.body.upload.url).origin).not.toBe(new URL(baseURL).origin);
+    expect(file.headers.get("content-disposition")).toBe('attachment; filename="scope.png"');
     expect((await as.ta.json(`/api/uploads/${r.body.upload.id}`)).status).toBe(200);
     expect((await as.student2.json(`/api/uploads/${r.body.upload.id}`)).status).toBe(404);
     expect((await as.outsider.json(`/api/uploads/${r.body.upload.id}`)).status).toBe(404);
