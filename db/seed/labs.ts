@@ -35,7 +35,11 @@ interface DemoLab {
   reviews?: DemoReviews;
 }
 
-/** Students' review requests on one demo lab: some still open, some answered (with a changed score when `regrade` is given). */
+/**
+ * Students' review requests on one demo lab: some still open, some answered (with a changed score when
+ * `regrade` is given: on a question the grader read as a prefix slip if there is one, else on one it gave
+ * less than its points; `{q}` in the texts becomes that question's number).
+ */
 export interface DemoReviews {
   open: string[];
   answered: { message: string; answer: string; regrade?: string }[];
@@ -270,9 +274,9 @@ const LABS: DemoLab[] = [
       open: ["Question 4: I reversed the current at the supply, not at the shunt. Does that change which half-difference I should report?"],
       answered: [
         {
-          message: "My first forward reading was taken before the junction had settled; the reading a minute later is in my bench log. Could that method be looked at?",
-          answer: "Your bench log shows the heating block had not settled for the first reading, and your working from the later one is right. I gave half of that question's points back for the method.",
-          regrade: "Bench log shows the junction had not settled; the method from the later reading is right. Half the points back.",
+          message: "Question {q}: the digits I wrote are the ones the meter showed, I only put the wrong prefix on the unit. Could the reading count for something?",
+          answer: "Your digits match your circuit, only the prefix slipped, so I gave half of question {q}'s points back. At microvolts write every value in volts with its power of ten before you choose a prefix.",
+          regrade: "Right digits, wrong prefix on the unit: half the points back.",
         },
       ],
     },

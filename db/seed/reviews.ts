@@ -90,25 +90,30 @@ export async function seedLabReviews(db: Kysely<Database>, courseId: string, ta:
       .orderBy("submitted_at")
       .orderBy("id")
       .execute();
-    const below = (a: (typeof firsts)[number]) => (a.result as { results: { points: number; maxPoints: number }[] }).results.some((r) => r.points < r.maxPoints);
+    type Result = { id?: string; points: number; maxPoints: number; mistake?: string };
+    const results = (a: (typeof firsts)[number]) => (a.result as { results: Result[] }).results;
+    // the question a regrade changes: a prefix slip if the grader saw one, else any question short of its points
+    const slip = (a: (typeof firsts)[number]) => results(a).findIndex((r) => r.points < r.maxPoints && r.mistake === "prefix-slip");
+    const short = (a: (typeof firsts)[number]) => results(a).findIndex((r) => r.points < r.maxPoints);
     const used = new Set<string>();
     const later = (d: Date, hours: number) => new Date(new Date(d).getTime() + hours * HOUR);
     for (const item of reviews.answered) {
-      // a regrade needs a question the grader gave less than its points
-      const a = firsts.find((x) => !used.has(x.id) && (!item.regrade || below(x)));
+      const free = firsts.filter((x) => !used.has(x.id));
+      const a = item.regrade ? (free.find((x) => slip(x) >= 0) ?? free.find((x) => short(x) >= 0)) : free[0];
       if (!a) continue;
       used.add(a.id);
+      const i = item.regrade ? (slip(a) >= 0 ? slip(a) : short(a)) : -1;
+      const text = (t: string) => t.replaceAll("{q}", String(i + 1));
       const requestedAt = later(a.submittedAt, 3);
-      await db.updateTable("attempts").set({ review_requested_at: requestedAt, review_message: item.message }).where("id", "=", a.id).execute();
+      await db.updateTable("attempts").set({ review_requested_at: requestedAt, review_message: text(item.message) }).where("id", "=", a.id).execute();
       if (item.regrade) {
-        const results = (a.result as { results: { id?: string; points: number; maxPoints: number }[] }).results;
-        const i = results.findIndex((r) => r.points < r.maxPoints);
-        const q = results[i];
+        const q = results(a)[i];
+        // half the question's points back (more than the grader gave)
         let points = Math.min(q.maxPoints, Math.floor((q.points + q.maxPoints / 2) * 2) / 2);
         if (points <= q.points) points = q.maxPoints;
-        await overrideQuestion(trx, a.id, { questionId: q.id ?? `q${i + 1}`, points, reason: item.regrade }, ta, later(requestedAt, 4));
+        await overrideQuestion(trx, a.id, { questionId: q.id ?? `q${i + 1}`, points, reason: text(item.regrade) }, ta, later(requestedAt, 4));
       }
-      await answerReviewRequest(trx, a.id, item.answer, ta, later(requestedAt, 4.5));
+      await answerReviewRequest(trx, a.id, text(item.answer), ta, later(requestedAt, 4.5));
     }
     for (const [k, message] of reviews.open.entries()) {
       const a = firsts.find((x) => !used.has(x.id));
