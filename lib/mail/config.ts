@@ -29,7 +29,10 @@ export function retryOptions() {
     retryLimit: positiveInt("SHUNTWISE_MAIL_RETRY_LIMIT", 12),
     retryDelay: positiveInt("SHUNTWISE_MAIL_RETRY_DELAY", 30),
     retryBackoff: true,
-    expireInSeconds: 120,
+    // longer than the SMTP timeouts' worst case (lib/mail/transport.ts): a slow server fails the try
+    // first. Were a job still to expire mid-send, its retry waits on the outbox row's lock and then
+    // finds the message sent (lib/mail/deliver.ts), so nothing goes out twice.
+    expireInSeconds: positiveInt("SHUNTWISE_MAIL_EXPIRE_SECONDS", 300),
   };
 }
 

@@ -2,6 +2,8 @@
 // the mail server is down, sent exactly once. The SMTP server here is the test's own, so the test can
 // stop and start it; the worker is the app's (lib/mail/worker.ts) with a 1 s first retry delay.
 import { sql } from "kysely";
+import { simpleParser, type ParsedMail } from "mailparser";
+import { SMTPServer } from "smtp-server";
 import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
 import { findOutboxByKey } from "@/db/queries/mail-outbox";
@@ -154,4 +156,68 @@ describe("graded e-mail", () => {
     expect(second).toEqual({ id: first.id, queued: false });
     expect(await jobsFor(first.id)).toBe(1);
   });
+
+  it("a burst of 20 graded attempts while the SMTP server is down: each student gets exactly one message once it is back", async () => {
+    const port = await freePort();
+    const { lab, students, access } = await smallCourse(db, { students: 20 });
+    workerId = await startMailWorker(await boss(), { transport: transport(`smtp://127.0.0.1:${port}`), pollingIntervalSeconds: 0.5 });
+    const attempts = await Promise.all(
+      students.map((s, i) => submitAttempt(lab, access(s), { idempotencyKey: `burst-${i}`, readings: READINGS, measured: {}, uploadIds: [] })),
+    );
+    const keys = attempts.map((a) => `graded:${a.attemptId}`);
+    const triedOnce = async () => (await db.selectFrom("mail_outbox").select("tries").where("key", "in", keys).execute()).filter((r) => r.tries >= 1).length;
+    expect(await until(triedOnce, (n) => n >= 1)).toBeGreaterThanOrEqual(1); // the server was down for at least one try
+
+    const smtp = await startCatcher(port);
+    catchers.push(smtp);
+    const sentCount = async () => (await db.selectFrom("mail_outbox").select("id").where("key", "in", keys).where("status", "=", "sent").execute()).length;
+    expect(await until(sentCount, (n) => n === 20, 50_000)).toBe(20);
+    // every job has finished (no retry left that could send again)
+    const open = () => sql<{ n: number }>`select count(*)::int as n from pgboss.job j join mail_outbox o on o.id::text = j.data->>'outboxId'
+      where j.name = ${QUEUES.mail} and o.key in (${sql.join(keys)}) and j.state not in ('completed', 'failed', 'cancelled')`.execute(db).then((r) => r.rows[0].n);
+    expect(await until(open, (n) => n === 0, 20_000)).toBe(0);
+    const to = smtp.messages.map((m) => (m.to && !Array.isArray(m.to) ? m.to.text : ""));
+    expect(to.sort()).toEqual(students.map((s) => s.email).sort());
+  }, 90_000);
+
+  it("a server slower than the job's expiry still gets the message once: the retried job finds it sent", async () => {
+    const port = await freePort();
+    const messages: ParsedMail[] = [];
+    let answered = 0;
+    // accepts each message only after 4 s, while the job expires after 2 s
+    const slow = new SMTPServer({
+      authOptional: true,
+      disabledCommands: ["AUTH", "STARTTLS"],
+      logger: false,
+      onData(stream, _session, callback) {
+        simpleParser(stream).then((m) => {
+          messages.push(m);
+          setTimeout(() => {
+            answered++;
+            callback();
+          }, 4000);
+        }, callback);
+      },
+    });
+    await new Promise<void>((r) => slow.listen(port, "127.0.0.1", () => r()));
+    catchers.push({ messages, close: () => new Promise<void>((r) => slow.close(() => r())) });
+    process.env.SHUNTWISE_MAIL_EXPIRE_SECONDS = "2";
+    try {
+      const { lab, students, access } = await smallCourse(db);
+      workerId = await startMailWorker(await boss(), { transport: transport(`smtp://127.0.0.1:${port}`), pollingIntervalSeconds: 0.5 });
+      const { attemptId } = await submitAttempt(lab, access(students[0]), { idempotencyKey: "k-slow", readings: READINGS, measured: {}, uploadIds: [] });
+      const row = (await until(() => findOutboxByKey(db, `graded:${attemptId}`), (r) => r?.status === "sent", 25_000))!;
+      expect(row.status).toBe("sent");
+      // the job expired while the first send waited: pg-boss ran it again, and that run completed
+      const runs = () => sql<{ state: string; retry_count: number }>`select state, retry_count from pgboss.job where name = ${QUEUES.mail} and data->>'outboxId' = ${row.id}`.execute(db).then((r) => r.rows);
+      const done = await until(runs, (r) => r.length === 1 && r[0].state === "completed" && r[0].retry_count >= 1, 25_000);
+      expect(done).toEqual([expect.objectContaining({ state: "completed" })]);
+      expect(done[0].retry_count).toBeGreaterThanOrEqual(1);
+      expect(messages).toHaveLength(1);
+      expect(answered).toBe(1);
+      expect(row.tries).toBe(1);
+    } finally {
+      delete process.env.SHUNTWISE_MAIL_EXPIRE_SECONDS;
+    }
+  }, 60_000);
 });

@@ -4,6 +4,7 @@ import { afterEach, describe, expect, it } from "vitest";
 import { mailboxAvailable } from "@/lib/mail/mailbox";
 import { messageIdFor } from "@/lib/mail/deliver";
 import { retryOptions } from "@/lib/mail/config";
+import { SMTP_TIMEOUTS_MS, smtpWorstCaseSeconds, transport } from "@/lib/mail/transport";
 
 const saved = { ...process.env };
 afterEach(() => {
@@ -40,5 +41,13 @@ describe("message ids and retries", () => {
     expect(shortest).toBeGreaterThan(24 * 3600);
     process.env.SHUNTWISE_MAIL_RETRY_DELAY = "1";
     expect(retryOptions().retryDelay).toBe(1);
+  });
+
+  it("gives up on a slow SMTP server before the mail job expires", () => {
+    delete process.env.SHUNTWISE_MAIL_EXPIRE_SECONDS;
+    // the transport really carries these limits (nodemailer keeps its options on the SMTP transport)
+    const options = (transport("smtp://127.0.0.1:2525") as unknown as { transporter: { options: Record<string, unknown> } }).transporter.options;
+    expect(options).toMatchObject(SMTP_TIMEOUTS_MS);
+    expect(smtpWorstCaseSeconds()).toBeLessThan(retryOptions().expireInSeconds);
   });
 });
