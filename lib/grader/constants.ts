@@ -1,5 +1,5 @@
 /** Version of the grading rules, stored with every grade. Bump it when a band, verdict or mistake rule changes. */
-export const graderVersion = "1.0.0";
+export const graderVersion = "1.1.0";
 
 /** Boltzmann constant, J/K (exact, SI 2019). */
 export const BOLTZMANN = 1.380649e-23;

@@ -318,8 +318,14 @@ function gradeNumber(t: Template, spec: QuantitySpec, p: Params, q: Question, ex
   const floor = t.bandFloor?.(p, q.quantity, c.rel) ?? 0;
   const labHalf = Math.max(exact ?? c.rel * Math.abs(expected), floor);
   let half = labHalf;
-  const labText = exact !== undefined ? `±${fmt(exact, spec)}` : `±${pct(c.rel)} lab tolerance`;
-  let method = exact !== undefined ? `fixed band ${labText}` : "lab tolerance";
+  const floored = floor > (exact ?? c.rel * Math.abs(expected));
+  const labText =
+    exact !== undefined && !floored
+      ? `±${fmt(exact, spec)}`
+      : floored
+        ? `±${fmt(floor, spec)} floor near zero, wider than the ${exact !== undefined ? `±${fmt(exact, spec)} band` : `±${pct(c.rel)} lab tolerance`}`
+        : `±${pct(c.rel)} lab tolerance`;
+  let method = floored ? "floor near zero" : exact !== undefined ? `fixed band ${labText}` : "lab tolerance";
   let bandText = labText;
 
   if (q.kind === "bench") {
@@ -338,7 +344,7 @@ function gradeNumber(t: Template, spec: QuantitySpec, p: Params, q: Question, ex
       method = "worst-case first-order propagation";
       bandText = `±${Math.abs(expected) > 0 ? pct(worst / Math.abs(expected)) : fmt(worst, spec)}: the wider of the ${labText} and a worst-case first-order propagation, Σ|∂q/∂x|·Δx, of ${what}.${measuredText}`;
     } else {
-      method = exact !== undefined ? method : "lab tolerance (wider than the propagated component tolerances)";
+      method = exact !== undefined || floored ? method : "lab tolerance (wider than the propagated component tolerances)";
       bandText = `${labText}, wider than a worst-case first-order propagation of ${what}.${measuredText}`;
     }
   }

@@ -149,7 +149,13 @@ describe("bidirectional-offset", () => {
     // PHYSICS.md §5 5f [FORMULA]: 2172 × 3.3/4096 = 7167.6/4096 = 1.74990 V; (1.74990 − 1.65) V / 1 V/A = 99.90 mA;
     // (3.3 − 1.65)/1 = +1.650 A and −1.65/1 = −1.650 A
     const q = { offsetVoltage: 1.65, sensitivity: 1, outputVoltage: (2172 * 3.3) / 4096, fullScaleVoltage: 3.3 };
-    near(grade("bidirectional-offset", q, { quantity: "signedCurrent", kind: "prediction" }, "99.9 mA").expected, 99.90e-3);
+    const r = grade("bidirectional-offset", q, { quantity: "signedCurrent", kind: "prediction" }, "99.9 mA");
+    near(r.expected, 99.90e-3);
+    // the band's floor, a tenth of the 1 % tolerance applied to the offset's worth of current (common practice,
+    // no source): 0.1 × 0.01 × 1.65 V / 1 V/A = 1.650 mA, wider than 1 % of 99.90 mA = 0.999 mA, and said so
+    near(half(r), 1.65e-3, 1e-3);
+    expect(r.verdict).toBe("correct");
+    expect(r.feedback).toMatch(/\(±1\.65 mA floor near zero, wider than the ±1 % lab tolerance\)/);
     near(grade("bidirectional-offset", q, { quantity: "maxPositiveCurrent", kind: "prediction" }, "1.65 A").expected, 1.65);
     near(grade("bidirectional-offset", q, { quantity: "maxNegativeCurrent", kind: "prediction" }, "-1.65 A").expected, -1.65);
   });
