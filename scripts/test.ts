@@ -181,7 +181,8 @@ async function main(): Promise<Counts> {
       DATABASE_URL: testUrl,
       E2E_DATABASE_URL: e2eUrl,
       SHUNTWISE_TEST_URL: url,
-      // the build under test, for a test that starts a second server on it with another environment
+      // the build under test, for a test that starts a second server on it with another environment;
+      // the access matrix reads the build's server-action ids from it
       SHUNTWISE_TEST_DIST_DIR: DIST,
     },
     extra,

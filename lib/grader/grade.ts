@@ -13,7 +13,12 @@ export const questionSchema = z.object({
   id: z.string().optional(),
   quantity: z.string(),
   kind: z.enum(["prediction", "bench"]),
-  points: z.number().min(0),
+  /** in steps of one half, as staff regrade them; at most 1000 (scores are stored as 4-byte floats) */
+  points: z
+    .number()
+    .min(0)
+    .max(1000, "At most 1000 points.")
+    .refine((p) => Number.isInteger(p * 2), "Points go in steps of one half (for example 1.5)."),
   /** overrides the policy's relative tolerance for this question, in percent */
   tolerancePercent: z.number().positive().optional(),
 });

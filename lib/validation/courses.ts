@@ -10,7 +10,12 @@ const code = z
   .regex(/^[A-Za-z0-9][A-Za-z0-9 ._-]*$/, "Use letters, digits, spaces, dots, dashes or underscores.");
 const title = z.string({ error: "Enter a title." }).trim().min(1, "Enter a title.").max(120, "Use at most 120 characters.");
 const term = z.string({ error: "Enter the term." }).trim().min(1, "Enter the term.").max(40, "Use at most 40 characters.");
-const percent = z.number({ error: "Enter a number." }).min(0, "Use 0 or more.").max(100, "Use at most 100.");
+// kept to hundredths: the column is a 4-byte float, which refuses the tiniest numbers JSON can carry
+const percent = z
+  .number({ error: "Enter a number." })
+  .min(0, "Use 0 or more.")
+  .max(100, "Use at most 100.")
+  .transform((v) => Math.round(v * 100) / 100);
 
 export const createCourseSchema = z.object({
   code,

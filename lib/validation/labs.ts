@@ -9,6 +9,14 @@ const isoDate = z
   .transform((v) => (v instanceof Date ? v : v ? new Date(v) : null))
   .refine((d) => d === null || !Number.isNaN(d.getTime()), { message: "Enter a valid date and time." });
 
+/** A percentage kept to hundredths: the column is a 4-byte float, which refuses the tiniest numbers JSON can carry. */
+const percent = () =>
+  z
+    .number({ error: "Enter a number." })
+    .min(0, "Use 0 or more.")
+    .max(100, "Use at most 100.")
+    .transform((v) => Math.round(v * 100) / 100);
+
 export const labFields = {
   title: z.string({ error: "Give the lab a title." }).trim().min(1, "Give the lab a title.").max(120, "Use at most 120 characters."),
   templateKey: z.enum(TEMPLATE_KEYS as [TemplateKey, ...TemplateKey[]], { error: "Choose a circuit template." }),
@@ -21,8 +29,8 @@ export const labFields = {
   dueAt: isoDate,
   /** late attempts accepted until then; empty: the due date plus the days the late penalty takes to reach its floor */
   closesAt: isoDate.optional().transform((d) => d ?? null),
-  latePenaltyPercentPerDay: z.number({ error: "Enter a number." }).min(0, "Use 0 or more.").max(100, "Use at most 100."),
-  lateFloorPercent: z.number({ error: "Enter a number." }).min(0, "Use 0 or more.").max(100, "Use at most 100."),
+  latePenaltyPercentPerDay: percent(),
+  lateFloorPercent: percent(),
   showExpected: z.enum(["after_attempt", "after_due", "never"], { error: "Choose when expected values are shown." }),
   instructions: z.string().max(20_000, "Use at most 20,000 characters.").default(""),
   safetyNotes: z.string().max(5_000, "Use at most 5,000 characters.").default(""),

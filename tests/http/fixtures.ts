@@ -34,3 +34,20 @@ export async function clientFor(email: string): Promise<Client> {
   if (!ok) throw new Error(`could not sign in as ${email}`);
   return c;
 }
+
+/** One more account with the fixture password: a member of `courseId` with `role`, or a site admin. */
+export async function addPerson(tag: string, opts: { courseId?: string; role?: "student" | "ta" | "instructor"; name?: string; isAdmin?: boolean } = {}) {
+  const db = e2eDb();
+  try {
+    const email = uniqueEmail(tag);
+    const u = await db
+      .insertInto("users")
+      .values({ email, name: opts.name ?? `Fixture ${tag}`, password_hash: await hash(PASSWORD), is_admin: opts.isAdmin ?? false })
+      .returning("id")
+      .executeTakeFirstOrThrow();
+    if (opts.courseId) await db.insertInto("memberships").values({ course_id: opts.courseId, user_id: u.id, role: opts.role ?? "student" }).execute();
+    return { id: u.id, email };
+  } finally {
+    await db.destroy();
+  }
+}
