@@ -1,13 +1,14 @@
 // Statistics that say what to re-teach (server component): per lab the submitted and missing counts,
 // mean, median and a histogram of counted scores; per question the share of each verdict and the most
 // frequent recognised mistake; and the three questions most students missed, each with the lesson
-// that teaches it.
+// that teaches that question's quantity.
 import Link from "next/link";
 import type { GradebookLab, LabStatistics, QuestionStatistics } from "@/db/queries/gradebook";
 import { MISTAKES, templates, type TemplateKey } from "@/lib/grader";
 import { answeredCount, histogram, missedCount, mostMissed } from "@/lib/gradebook/stats";
 import { formatScore } from "@/lib/gradebook/view";
 import type { LessonSummary } from "@/lib/lessons";
+import { lessonFor } from "@/lib/lessons/lesson-for";
 import { ScoreHistogram } from "./score-histogram";
 
 const SHARES = [
@@ -40,11 +41,6 @@ export function GradebookStatistics({
 }) {
   const title = new Map(labs.map((l) => [l.id, l.title]));
   const maxPoints = new Map(labs.map((l) => [l.id, l.maxPoints]));
-  // the most specific lesson: the one preparing the fewest templates, then the earliest
-  const lessonFor = (templateKey: string) =>
-    lessons
-      .filter((l) => (l.templates as string[]).includes(templateKey))
-      .sort((a, b) => a.templates.length - b.templates.length || a.order - b.order)[0];
   const top = mostMissed(questionStats, 3);
 
   return (
@@ -62,7 +58,7 @@ export function GradebookStatistics({
           <ol className="mt-3 space-y-3" data-testid="most-missed">
             {top.map((q) => {
               const students = answeredCount(q);
-              const lesson = lessonFor(q.templateKey);
+              const lesson = lessonFor(lessons, q.templateKey, q.quantity);
               return (
                 <li key={`${q.labId}-${q.questionId}`} className="rounded-md border border-ink/10 p-3">
                   <p className="font-semibold">

@@ -60,64 +60,78 @@ function gradebookCtes(courseId: string, onlyUser?: string, hideHeld = false) {
   return sql`
     gl as (
       select l.id, l.title, l.due_at, l.created_at, l.weight, l.counting, l.grades_held,
+        row_number() over (order by l.due_at nulls last, l.created_at, l.id) as ord,
         coalesce((select sum((q->>'points')::float8) from jsonb_array_elements(l.questions) q), 0) as max_points
       from labs l
       where l.course_id = ${courseId} and l.status = 'published'
     ),
     gs as (
-      select u.id as user_id, u.name, u.email, m.section
+      select u.id as user_id, u.name, u.email, m.section, row_number() over (order by u.name, u.email, u.id) as ord
       from memberships m join users u on u.id = m.user_id
       where m.course_id = ${courseId} and m.role = 'student' ${userFilter}
     ),
-    gc as (
-      select distinct on (a.lab_id, a.user_id)
-        a.lab_id, a.user_id, a.id as attempt_id, a.score, a.max_score, a.late_days,
-        ${CHANGED_BY_STAFF} as changed_by_staff,
-        count(*) over w as attempts,
-        bool_or(${REVIEW_OPEN}) over w as review_open
+    gk as (
+      -- one pass over the attempts, grouped without sorting: the count, an open review on any attempt,
+      -- and the number of the counted one. max() over [score, number] arrays orders like
+      -- "score desc, number desc" (best; ties to the later attempt); with the score left at 0 it is the
+      -- last attempt.
+      select a.lab_id, a.user_id, count(*)::int as attempts, bool_or(${REVIEW_OPEN}) as review_open,
+        (max(array[case when gl.counting = 'best' then a.score::float8 else 0 end, a.number::float8]))[2]::int as number
       from attempts a
       join gl on gl.id = a.lab_id and ${released}
       join gs on gs.user_id = a.user_id
-      window w as (partition by a.lab_id, a.user_id)
-      order by a.lab_id, a.user_id, case when gl.counting = 'best' then a.score end desc nulls last, a.number desc
+      group by a.lab_id, a.user_id
     ),
+    gc as (
+      select gk.lab_id, gk.user_id, a.id as attempt_id, a.score, a.max_score, a.late_days,
+        ${CHANGED_BY_STAFF} as changed_by_staff, gk.attempts, gk.review_open
+      from gk join attempts a on a.lab_id = gk.lab_id and a.user_id = gk.user_id and a.number = gk.number
+    )`;
+}
+
+const jbool = (col: string) => sql.raw(`case when ${col} then 'true' else 'false' end`);
+
+/**
+ * The gradebook document, as the JSON text the API answers. PostgreSQL writes it as text with concat()
+ * and string_agg() (json_build_object per cell cost about twice as much for a course-sized gradebook);
+ * every string that is not a uuid, a number or a literal goes through to_json, which escapes it.
+ */
+export function gradebookJsonQuery(courseId: string, onlyUser?: string, hideHeld = false) {
+  const released = hideHeld ? sql`not gl.grades_held` : sql`true`;
+  return sql<{ doc: string }>`
+    with ${gradebookCtes(courseId, onlyUser, hideHeld)},
     grid as (
-      select gs.user_id, gs.name, gs.email, gs.section, gl.id as lab_id, gl.due_at, gl.created_at,
-        coalesce(gl.weight, gl.max_points) as w,
+      -- every (student, lab) pair, kept narrow (the names join back at the end) so its sort stays in memory
+      select gs.ord, gl.ord as lab_ord, gl.id as lab_id, coalesce(gl.weight, gl.max_points) as w,
         gc.attempt_id, gc.score, gc.max_score, gc.late_days, gc.changed_by_staff, gc.attempts, gc.review_open,
         ((gc.attempt_id is not null or gl.due_at <= now()) and ${released}) as counts
-      from gs left join gl on true
+      from gs cross join gl
       left join gc on gc.lab_id = gl.id and gc.user_id = gs.user_id
     ),
-    grow as (
-      select user_id, name, email, section,
-        coalesce(
-          json_object_agg(lab_id, case when attempt_id is null then null else json_build_object(
-            'score', score, 'maxScore', max_score, 'attemptId', attempt_id, 'attempts', attempts,
-            'late', late_days > 0, 'changedByStaff', changed_by_staff, 'reviewOpen', review_open) end
-            order by due_at nulls last, created_at) filter (where lab_id is not null),
-          '{}'::json) as cells,
+    gcells as (
+      select ord,
+        string_agg(concat('"', lab_id, '":', case when attempt_id is null then 'null' else concat(
+            '{"score":', score, ',"maxScore":', max_score, ',"attemptId":"', attempt_id, '","attempts":', attempts,
+            ',"late":', ${jbool("late_days > 0")}, ',"changedByStaff":', ${jbool("changed_by_staff")},
+            ',"reviewOpen":', ${jbool("review_open")}, '}') end), ',' order by lab_ord) as cells,
         case when sum(w) filter (where counts) > 0 then
           round((100 * sum(w * coalesce(score::float8 / nullif(max_score, 0), 0)) filter (where counts)
             / sum(w) filter (where counts))::numeric, 1)::float8
         end as total
       from grid
-      group by user_id, name, email, section
-    )`;
-}
-
-/** The gradebook document, as the JSON text the API answers (PostgreSQL builds it). */
-export function gradebookJsonQuery(courseId: string, onlyUser?: string, hideHeld = false) {
-  return sql<{ doc: string }>`
-    with ${gradebookCtes(courseId, onlyUser, hideHeld)}
-    select json_build_object(
-      'labs', coalesce((select json_agg(json_build_object(
+      group by ord
+    ),
+    grow as (
+      select gs.ord, concat('{"userId":"', gs.user_id, '","name":', to_json(gs.name), ',"email":', to_json(gs.email),
+        ',"section":', coalesce(to_json(gs.section)::text, 'null'), ',"total":', coalesce(gcells.total::text, 'null'),
+        ',"cells":{', gcells.cells, '}}') as student
+      from gs left join gcells on gcells.ord = gs.ord
+    )
+    select concat(
+      '{"labs":', coalesce((select json_agg(json_build_object(
           'id', id, 'title', title, 'dueAt', ${iso("due_at")}, 'maxPoints', max_points, 'weight', weight)
-          order by due_at nulls last, created_at) from gl), '[]'::json),
-      'students', coalesce((select json_agg(json_build_object(
-          'userId', user_id, 'name', name, 'email', email, 'section', section, 'total', total, 'cells', cells)
-          order by name, email) from grow), '[]'::json)
-    )::text as doc`;
+          order by ord) from gl), '[]'::json),
+      ',"students":[', (select string_agg(student, ',' order by ord) from grow), ']}') as doc`;
 }
 
 export async function gradebookJson(db: Db, courseId: string, onlyUser?: string, hideHeld = false): Promise<string> {

@@ -28,6 +28,11 @@ export const lessonFrontmatterSchema = z
     objectives: z.array(z.string().min(5)).min(1).max(8),
     minutes: z.number().int().min(5).max(180),
     templates: z.array(z.enum(templateKeys)),
+    /**
+     * The quantities of its templates that this lesson teaches (keys of the templates' quantities), where
+     * several lessons prepare for one template; absent: every quantity of its templates.
+     */
+    quantities: z.array(z.string().min(1)).optional(),
   })
   .strict();
 
