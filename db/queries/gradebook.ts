@@ -248,6 +248,22 @@ export async function labWeights(db: Db, courseId: string): Promise<{ id: string
   return r.rows;
 }
 
+/**
+ * What the gradebook page prints around the table (which it fetches itself): the published labs in due
+ * order and the number of students, without building the whole document.
+ */
+export async function gradebookOutline(db: Db, courseId: string): Promise<{ labs: GradebookLab[]; students: number }> {
+  const [labs, students] = await Promise.all([
+    sql<GradebookLab>`
+      select l.id, l.title, ${iso("l.due_at")} as "dueAt", l.weight,
+        coalesce((select sum((q->>'points')::float8) from jsonb_array_elements(l.questions) q), 0) as "maxPoints"
+      from labs l where l.course_id = ${courseId} and l.status = 'published'
+      order by l.due_at nulls last, l.created_at, l.id`.execute(db),
+    db.selectFrom("memberships").select((eb) => eb.fn.countAll<string>().as("n")).where("course_id", "=", courseId).where("role", "=", "student").executeTakeFirstOrThrow(),
+  ]);
+  return { labs: labs.rows, students: Number(students.n) };
+}
+
 /** Ids of every lab of the course, drafts too (a weight may be set before publishing). */
 export async function courseLabIds(db: Db, courseId: string): Promise<Set<string>> {
   const rows = await db.selectFrom("labs").select("id").where("course_id", "=", courseId).execute();

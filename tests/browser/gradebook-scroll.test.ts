@@ -61,7 +61,7 @@ describe("the gradebook of a thousand students", () => {
   it("scrolls to the last student's row, rendering only a window of rows, and still answers the search box", async () => {
     const { context, page } = await newPage(browser);
     await signIn(page, instructor, PASSWORD);
-    await page.goto(`/courses/${courseId}/gradebook`);
+    await page.goto(`/courses/${courseId}/gradebook`, { waitUntil: "domcontentloaded", timeout: 120_000 });
     const count = page.getByTestId("student-count");
     await expect.poll(() => count.textContent(), { timeout: 60_000 }).toBe(`${STUDENTS} of ${STUDENTS} students`);
     const scroller = page.getByTestId("gradebook-scroller");

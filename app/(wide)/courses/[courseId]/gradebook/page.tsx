@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { forbidden } from "next/navigation";
 import { db } from "@/db";
-import { gradebook, labStatistics, questionStatistics } from "@/db/queries/gradebook";
+import { gradebookOutline, labStatistics, questionStatistics } from "@/db/queries/gradebook";
 import { forPage, refused, requireCourseRole, STAFF } from "@/lib/auth/access";
 import { listLessons } from "@/lib/lessons";
 import { GradebookStatistics } from "@/components/gradebook/statistics";
@@ -17,7 +17,7 @@ export default async function GradebookPage({ params }: { params: Promise<{ cour
   const access = await forPage(requireCourseRole(courseId, STAFF), `/courses/${courseId}/gradebook`);
   if (refused(access)) forbidden();
   const isInstructor = access.role === "instructor";
-  const [book, labStats, questionStats] = await Promise.all([gradebook(db, courseId), labStatistics(db, courseId), questionStatistics(db, courseId)]);
+  const [book, labStats, questionStats] = await Promise.all([gradebookOutline(db, courseId), labStatistics(db, courseId), questionStatistics(db, courseId)]);
   return (
     <>
       <p className="text-sm">
@@ -25,7 +25,7 @@ export default async function GradebookPage({ params }: { params: Promise<{ cour
       </p>
       <h1 className="mt-2 text-3xl">Gradebook</h1>
       <p className="mt-1 text-sm text-ink-soft">
-        {book.students.length} students, {book.labs.length} published labs. The total weighs each lab by{" "}
+        {book.students} students, {book.labs.length} published labs. The total weighs each lab by{" "}
         {book.labs.some((l) => l.weight !== null) ? "the weights set" : "its points"}
         {isInstructor ? (
           <>
