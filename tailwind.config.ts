@@ -13,7 +13,8 @@ const config: Config = {
         trace: { DEFAULT: "#1f5f8b", pale: "#e1edf6" },
         verdict: {
           correct: "#1f6f8b",
-          close: "#9a6a00",
+          // dark enough for 4.5:1 on its own 10 % tint (the verdict badge), not only on white
+          close: "#7f5700",
           mistake: "#8a4fa0",
           wrong: "#b23a1e",
           neutral: "#5c6570",
