@@ -9,12 +9,19 @@ import { CircuitDiagram } from "./diagrams";
 import { Eq } from "./Eq";
 import { V } from "./Value";
 import { BudgetTable } from "./BudgetTable";
-import { BurdenExplorer, DutyCycleCalculator, RangePicker, RcStepResponse, ShuntPicker } from "./calculators";
-import { BurstSamplingCalculator, LeakageGuardCalculator, ThermalReversalCalculator } from "./calculators-depth";
+import { LazyCalculator, type CalculatorName } from "./lazy-calculators";
 
 function H2(props: ComponentPropsWithoutRef<"h2">) {
   return <h2 id={headingId(childrenText(props.children))} className="mt-10 mb-3 scroll-mt-6 text-2xl break-after-avoid" {...props} />;
 }
+
+// The calculators load in the browser when the reader reaches one (lazy-calculators.tsx), so the units
+// library and the templates they need stay out of a lesson's first load.
+const calculator = (name: CalculatorName) => {
+  const Calculator = () => <LazyCalculator name={name} />;
+  Calculator.displayName = name;
+  return Calculator;
+};
 
 export const lessonComponents: MDXComponents = {
   h2: H2,
@@ -23,13 +30,13 @@ export const lessonComponents: MDXComponents = {
   CircuitDiagram,
   Eq,
   V,
-  BurdenExplorer,
-  ShuntPicker,
-  RangePicker,
-  DutyCycleCalculator,
-  RcStepResponse,
-  LeakageGuardCalculator,
-  ThermalReversalCalculator,
-  BurstSamplingCalculator,
+  BurdenExplorer: calculator("BurdenExplorer"),
+  ShuntPicker: calculator("ShuntPicker"),
+  RangePicker: calculator("RangePicker"),
+  DutyCycleCalculator: calculator("DutyCycleCalculator"),
+  RcStepResponse: calculator("RcStepResponse"),
+  LeakageGuardCalculator: calculator("LeakageGuardCalculator"),
+  ThermalReversalCalculator: calculator("ThermalReversalCalculator"),
+  BurstSamplingCalculator: calculator("BurstSamplingCalculator"),
   BudgetTable,
 };

@@ -14,6 +14,23 @@ afterAll(async () => {
   await browser?.close();
 });
 
+/**
+ * A calculator's code loads when the reader scrolls near it (components/lesson/lazy-calculators.tsx):
+ * until then the page holds its titled frame. Scrolls to it and waits until the calculator has replaced it.
+ */
+async function reveal(page: Page, testId: string): Promise<void> {
+  await page.getByTestId(testId).scrollIntoViewIfNeeded();
+  await page.locator(`[data-testid="${testId}"]:not([data-calculator-pending])`).waitFor({ timeout: 20_000 });
+}
+
+/** Brings every calculator of the page in, one frame after the other. */
+async function revealAll(page: Page): Promise<void> {
+  const pending = page.locator("[data-calculator-pending]");
+  for (let n = await pending.count(); n > 0; n = await pending.count()) {
+    await reveal(page, (await pending.first().getAttribute("data-testid"))!);
+  }
+}
+
 async function plotPixels(page: Page, testId: string): Promise<string> {
   const canvas = page.getByTestId(testId).locator("canvas");
   await canvas.waitFor({ state: "visible", timeout: 15_000 });
@@ -27,6 +44,7 @@ describe("lessons in the browser", () => {
       await signIn(page, demo.student);
       await page.goto("/lessons/duty-cycled-loads");
       expect(await page.getByRole("heading", { level: 1 }).textContent()).toBe("Duty-cycled loads and battery life");
+      await reveal(page, "duty-cycle-calculator");
       const calc = page.getByTestId("duty-cycle-calculator");
       const average = calc.getByTestId("average-current");
       // Maren's node: 20 mA for 10 ms every 1 s, 2 µA asleep → 202.0 µA (PHYSICS.md §8 8a [FORMULA])
@@ -59,6 +77,7 @@ describe("lessons in the browser", () => {
     try {
       await signIn(page, demo.student);
       await page.goto("/lessons/filtering-and-settling");
+      await reveal(page, "rc-step");
       const calc = page.getByTestId("rc-step");
       expect(await calc.getByTestId("time-constant").textContent()).toBe("1.000\u00a0ms"); // 10 kΩ × 100 nF (PHYSICS.md §6 6a)
       const before = await plotPixels(page, "rc-plot");
@@ -80,6 +99,7 @@ describe("lessons in the browser", () => {
       // a TA: the demo plan opens these lessons to students only in the coming weeks
       await signIn(page, demo.ta);
       await page.goto("/lessons/leakage-and-guarding");
+      await reveal(page, "leakage-calculator");
       const leak = page.getByTestId("leakage-calculator");
       // 10 V across 100 GΩ against 1 nA, 5 pA bias, guard within 2 mV: 100 pA and 0.502 % (Ohm's law, by hand)
       expect(await leak.getByTestId("leakage-current").textContent()).toBe("100.0\u00a0pA");
@@ -89,6 +109,7 @@ describe("lessons in the browser", () => {
       await page.waitForFunction(() => document.querySelector('[data-testid="guarded-error"]')?.textContent === "0.5200 %");
 
       await page.goto("/lessons/sampling-short-bursts");
+      await reveal(page, "burst-calculator");
       const burst = page.getByTestId("burst-calculator");
       // a 1.02 s wake on a 1 Hz logger: |1/1.02 − 1| Hz = 19.61 mHz (by hand)
       expect(await burst.getByTestId("alias-frequency").textContent()).toBe("19.61\u00a0mHz");
@@ -131,7 +152,7 @@ describe("lessons in the browser", () => {
       await signIn(page, demo.student);
       for (const slug of ["duty-cycled-loads", "bench-safety"]) {
         await page.goto(`/lessons/${slug}`);
-        await page.locator("canvas").first().waitFor({ state: "attached", timeout: 15_000 }).catch(() => undefined);
+        await revealAll(page);
         const results = await new AxeBuilder({ page }).analyze();
         const serious = results.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
         expect(serious.map((v) => `${slug}: ${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`)).toEqual([]);
@@ -148,7 +169,7 @@ describe("lessons in the browser", () => {
       await signIn(page, demo.student);
       for (const slug of ["leakage-and-guarding", "sampling-short-bursts", "uncertainty-budget"]) {
         await page.goto(`/lessons/${slug}`);
-        await page.locator("canvas").first().waitFor({ state: "attached", timeout: 15_000 }).catch(() => undefined);
+        await revealAll(page);
         const results = await new AxeBuilder({ page }).analyze();
         const serious = results.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
         expect(serious.map((v) => `${slug}: ${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`)).toEqual([]);

@@ -12,6 +12,7 @@ import { describe, expect, it } from "vitest";
 import { lessonFileNames, lessonsDir, extractFrontmatter } from "@/lib/lessons/files";
 import { tableOfContents } from "@/lib/lessons/toc";
 import { lessonComponents } from "@/components/lesson/mdx";
+import { DutyCycleCalculator } from "@/components/lesson/calculators";
 
 const root = path.resolve(import.meta.dirname, "../../..");
 
@@ -43,10 +44,13 @@ describe("lessons render", () => {
     });
   }
 
-  it("states Maren's average current from the grader in the duty-cycle lesson", async () => {
+  it("states Maren's average current from the grader in the duty-cycle calculator, whose frame the lesson shows until it loads", async () => {
     const { html } = await render("duty-cycled-loads.mdx");
-    expect(html).toContain("202.0\u00a0µA"); // PHYSICS.md §8 8a [FORMULA]
-    expect(html).toMatch(/data-testid="battery-life">871\.4\u00a0h = 36\.31\u00a0d/); // PHYSICS.md §8 8b [FORMULA]
+    // the lesson's first load carries the calculator's titled frame; its code comes when it is reached
+    expect(html).toMatch(/<section[^>]*data-testid="duty-cycle-calculator"[^>]*data-calculator-pending=""[^>]*><h3[^>]*>Try it: duty-cycled load and battery life<\/h3>/);
+    const calc = renderToStaticMarkup(<DutyCycleCalculator />);
+    expect(calc).toContain("202.0\u00a0µA"); // PHYSICS.md §8 8a [FORMULA]
+    expect(calc).toMatch(/data-testid="battery-life">871\.4\u00a0h = 36\.31\u00a0d/); // PHYSICS.md §8 8b [FORMULA]
   });
 });
 
