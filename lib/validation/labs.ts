@@ -88,14 +88,6 @@ export const labPatchSchema = z
   })
   .strict();
 
-export const attemptInputSchema = z.object({
-  idempotencyKey: z.string({ error: "An idempotency key is required." }).min(8, "The idempotency key is too short.").max(100),
-  readings: z.record(z.string(), z.string().max(200, "Use at most 200 characters.").nullable()),
-  measured: z.record(z.string(), z.string().max(200, "Use at most 200 characters.").nullable()).optional().default({}),
-  uploadIds: z.array(z.uuid({ error: "Not an upload id." })).max(4, "Attach at most 4 files.").optional().default([]),
-});
-export type AttemptInput = z.input<typeof attemptInputSchema>;
-
 export const reviewRequestSchema = z.object({
   message: z.string({ error: "Say what you would like reviewed." }).trim().min(5, "Say a little more (at least 5 characters).").max(2000, "Use at most 2,000 characters."),
 });

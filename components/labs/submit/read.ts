@@ -1,7 +1,6 @@
-// Pure helpers of the submission form: how a typed reading was read, the request body, idempotency
-// keys and the messages for server and upload errors. No React, so the unit tests run them directly.
-import { formatQuantity } from "@/lib/grader/format";
-import { parseQuantity } from "@/lib/grader/units";
+// Pure helpers of the submission form: the request body, idempotency keys and the messages for server
+// and upload errors. No React, so the unit tests run them directly. How a typed reading is read needs
+// the units library and lives in read-quantities.ts, which the form loads when a field is first used.
 import type { ApiErrorDetail } from "@/lib/api-client";
 
 /** What the form needs to know about one question (a subset of the handout's `questions`). */
@@ -26,33 +25,6 @@ export interface FormMeasured {
 
 export type Echo = { status: "empty" } | { status: "ok"; value: number; readAs: string } | { status: "error"; message: string };
 
-const UNIT_SYMBOL: Record<string, string> = { ohm: "Ω" };
-
-/** Display units that are not an SI prefix of the unit itself (h, d, mAh, °C): worth a second reading. */
-function isOwnDisplayUnit(displayUnit: string, unit: string): boolean {
-  if (!displayUnit || !unit) return false;
-  const symbol = UNIT_SYMBOL[unit] ?? unit;
-  return !displayUnit.endsWith(symbol);
-}
-
-/**
- * How a typed value is read, exactly as the grader will read it: "9.1 uA" → "9.10 µA". A value in a
- * display unit of its own (battery life in hours) is shown in it: "10.0 h", "220 mAh (= 792 C)".
- */
-export function echoReading(text: string, unit: string, displayUnit = ""): Echo {
-  if (text.trim() === "") return { status: "empty" };
-  const r = parseQuantity(text, unit);
-  if (!r.ok) return r.reason === "empty" ? { status: "empty" } : { status: "error", message: r.message };
-  const si = formatQuantity(r.value, unit);
-  let readAs = si;
-  if (isOwnDisplayUnit(displayUnit, unit)) {
-    // Hours for a battery life, mAh for a capacity: the unit the handout uses, with SI beside it when short.
-    readAs = formatQuantity(r.value, unit, { displayUnit });
-    if (!/e/.test(si) && si !== readAs) readAs = `${readAs} (= ${si})`;
-  }
-  return { status: "ok", value: r.value, readAs };
-}
-
 /** The words a screen reader and a sighted reader get under a field. */
 export function echoText(echo: Echo): string {
   if (echo.status === "ok") return `Read as ${echo.readAs}`;
@@ -73,31 +45,6 @@ export function toPayload(values: Record<string, string | undefined | null>): Re
 /** Only the measured values the student filled in. */
 export function measuredPayload(values: Record<string, string | undefined | null>): Record<string, string | null> {
   return Object.fromEntries(Object.entries(toPayload(values)).filter(([, v]) => v !== null));
-}
-
-/** One client-side check per field: a number question with text that does not read is refused before sending. */
-export function readingProblems(questions: FormQuestion[], readings: Record<string, string | undefined | null>): Record<string, string> {
-  const out: Record<string, string> = {};
-  for (const q of questions) {
-    const text = readings[q.id] ?? "";
-    if (q.answerKind === "category") {
-      if (text && q.choices && !q.choices.includes(text)) out[q.id] = `Choose one of: ${q.choices.join(", ")}.`;
-      continue;
-    }
-    const echo = echoReading(text, q.unit, q.displayUnit);
-    if (echo.status === "error") out[q.id] = echo.message;
-  }
-  return out;
-}
-
-export function measuredProblems(components: FormMeasured[], measured: Record<string, string | undefined | null>): Record<string, string> {
-  const out: Record<string, string> = {};
-  for (const c of components) {
-    const echo = echoReading(measured[c.key] ?? "", c.unit, c.displayUnit);
-    if (echo.status === "error") out[c.key] = echo.message;
-    else if (echo.status === "ok" && !(echo.value > 0)) out[c.key] = "A measured value must be greater than zero.";
-  }
-  return out;
 }
 
 /** A random key for one form: crypto.randomUUID where there is one, else 128 random bits in hex. */

@@ -10,20 +10,10 @@ import { useForm, useWatch, type Control, type UseFormRegisterReturn } from "rea
 import type { z } from "zod";
 import { FieldMessage, FormMessage, QuantityInput } from "@/components/ui/field";
 import { api, isApiError } from "@/lib/api-client";
-import { attemptInputSchema, type AttemptInput } from "@/lib/validation/labs";
+import { attemptInputSchema, type AttemptInput } from "@/lib/validation/attempts";
 import { FileField } from "./file-field";
-import {
-  echoReading,
-  mapServerFields,
-  measuredPayload,
-  measuredProblems,
-  newIdempotencyKey,
-  readingProblems,
-  submitErrorMessage,
-  toPayload,
-  type FormMeasured,
-  type FormQuestion,
-} from "./read";
+import { mapServerFields, measuredPayload, newIdempotencyKey, submitErrorMessage, toPayload, type FormMeasured, type FormQuestion } from "./read";
+import { loadedReader, useQuantityReader, type QuantityReader } from "./use-quantity-reader";
 import type { UploadedFile } from "./upload";
 
 type FormValues = { idempotencyKey: string; readings: Record<string, string>; measured: Record<string, string>; uploadIds: string[] };
@@ -43,6 +33,7 @@ function ReadingInput({
   control,
   error,
   registration,
+  reader,
 }: {
   label: string;
   hint: string;
@@ -52,9 +43,11 @@ function ReadingInput({
   control: Control<FormValues, unknown, FormOutput>;
   error?: string;
   registration: UseFormRegisterReturn;
+  /** null until the reader of quantities has loaded (the first focus in the form starts it) */
+  reader: QuantityReader | null;
 }) {
   const text = (useWatch({ control, name: path }) as string | undefined) ?? "";
-  const echo = echoReading(text, unit, displayUnit);
+  const echo = reader ? reader.echoReading(text, unit, displayUnit) : undefined;
   return <QuantityInput label={label} hint={hint} error={error} reading={echo} messageTestId={`echo-${path}`} inputClassName="max-w-xs" {...registration} />;
 }
 
@@ -85,9 +78,14 @@ export function SubmissionForm({ labId, questions, components }: { labId: string
   const inFlight = useRef(false);
   const submit = useMutation({ mutationFn: (body: AttemptInput) => api<{ attempt: { id: string } }>(`/api/labs/${labId}/attempts`, { method: "POST", body }) });
 
+  const { reader, load: loadReader, ready: readerReady } = useQuantityReader();
   const schema = useMemo(
     () =>
       attemptInputSchema.superRefine((v, ctx) => {
+        // the submit handler waits for the reader first, so the checks always have it
+        const r = loadedReader();
+        if (!r) return;
+        const { readingProblems, measuredProblems } = r;
         const readings = Object.fromEntries(Object.entries(v.readings).map(([k, t]) => [k, t ?? ""]));
         for (const [qid, msg] of Object.entries(readingProblems(questions, readings))) ctx.addIssue({ code: "custom", path: ["readings", qid], message: msg });
         const measured = Object.fromEntries(Object.entries(v.measured ?? {}).map(([k, t]) => [k, t ?? ""]));
@@ -120,8 +118,10 @@ export function SubmissionForm({ labId, questions, components }: { labId: string
   const readingError = (qid: string) => errors.readings?.[qid]?.message;
   const measuredError = (key: string) => errors.measured?.[key]?.message;
 
-  const onSubmit = (event: FormEvent<HTMLFormElement>) =>
-    handleSubmit(
+  const onSubmit = async (event: FormEvent<HTMLFormElement>) => {
+    event.preventDefault();
+    await readerReady();
+    return handleSubmit(
       async (values) => {
         if (inFlight.current || uploading) return;
         inFlight.current = true;
@@ -154,12 +154,13 @@ export function SubmissionForm({ labId, questions, components }: { labId: string
         for (const c of components) if (invalid.measured?.[c.key]) names.push(`measured ${c.label.toLowerCase()}`);
         setMessage(names.length ? `Check ${names.length === 1 ? "this answer" : "these answers"} before submitting: ${names.join("; ")}.` : "Check the form before submitting.");
       },
-    )(event);
+    )();
+  };
 
   const submitting = formState.isSubmitting || sent;
 
   return (
-    <form onSubmit={onSubmit} noValidate aria-labelledby="submit-heading" data-testid="submission-form">
+    <form onSubmit={onSubmit} onFocus={loadReader} noValidate aria-labelledby="submit-heading" data-testid="submission-form">
       <h2 id="submit-heading" className="text-xl">
         Your readings
       </h2>
@@ -214,6 +215,7 @@ export function SubmissionForm({ labId, questions, components }: { labId: string
               control={control}
               error={readingError(q.id)}
               registration={register(`readings.${q.id}`)}
+              reader={reader}
             />
           );
         })}
@@ -236,6 +238,7 @@ export function SubmissionForm({ labId, questions, components }: { labId: string
               control={control}
               error={measuredError(c.key)}
               registration={register(`measured.${c.key}`)}
+              reader={reader}
             />
           ))}
         </fieldset>

@@ -3,7 +3,7 @@ import { findAttempt } from "@/db/queries/attempts";
 import { json, jsonBody, route } from "@/lib/api";
 import { isStaff } from "@/lib/auth/access";
 import { attemptsFor, attemptsUsed, heldAttempt, labAccess, submitAttempt, viewAttempt } from "@/lib/labs/service";
-import { attemptInputSchema } from "@/lib/validation/labs";
+import { attemptInputSchema } from "@/lib/validation/attempts";
 import { uuidSchema } from "@/lib/validation/common";
 import { AppError } from "@/lib/errors";
 
