@@ -67,6 +67,7 @@ export interface LessonCourse {
   id: string;
   code: string;
   title: string;
+  role: string;
 }
 
 /** Every lesson `user` may read now (the rule of `lessonAccess`, for all lessons at once). */
@@ -89,7 +90,7 @@ export async function lessonAccess(user: { id: string; isAdmin: boolean }, slug:
   const courses: LessonCourse[] = [];
   for (const m of memberships) {
     const staff = m.role === "ta" || m.role === "instructor";
-    if (staff || (await coursePlan(m.id, now)).some((l) => l.slug === slug && l.open)) courses.push({ id: m.id, code: m.code, title: m.title });
+    if (staff || (await coursePlan(m.id, now)).some((l) => l.slug === slug && l.open)) courses.push({ id: m.id, code: m.code, title: m.title, role: m.role });
   }
   return { readable: user.isAdmin || courses.length > 0, courses };
 }

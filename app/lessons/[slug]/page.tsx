@@ -11,7 +11,6 @@ import { lessonAccess } from "@/lib/course-lessons";
 import { lessonComponents } from "@/components/lesson/mdx";
 import { CourseLessonNav } from "@/components/lesson/CourseLessonNav";
 import { AppHeader } from "@/components/shell/app-header";
-import { Suspense } from "react";
 
 type Props = { params: Promise<{ slug: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> };
 
@@ -29,7 +28,8 @@ export default async function LessonPage({ params, searchParams }: Props) {
   const access = await lessonAccess(user, slug);
   if (!access.readable) notFound();
   const wanted = (await searchParams).course;
-  const course = access.courses.find((c) => c.id === wanted) ?? access.courses[0] ?? null;
+  const fromCourse = access.courses.find((c) => c.id === wanted) ?? null;
+  const course = fromCourse ?? access.courses[0] ?? null;
   const { default: Content } = await import(`@/content/lessons/${slug}.mdx`);
   const toc = lessonContents(slug);
   const { previous, next } = neighbours(slug);
@@ -58,9 +58,7 @@ export default async function LessonPage({ params, searchParams }: Props) {
               ))}
             </ul>
           </header>
-          <Suspense fallback={null}>
-            <CourseLessonNav slug={slug} />
-          </Suspense>
+          {fromCourse ? <CourseLessonNav slug={slug} course={fromCourse} /> : null}
           <Content components={lessonComponents} />
           <nav aria-label="Lesson sequence" className="no-print mt-12 flex flex-wrap justify-between gap-4 border-t border-ink/10 pt-4">
             {previous ? (
