@@ -17,7 +17,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { questions as lessonQuestions } from "@/lib/lessons/questions";
 import { e2eDb } from "../support/db";
 import { Client } from "../support/http";
-import { addPerson, clientFor, courseWithPeople } from "./fixtures";
+import { addPerson, clientFor, courseWithPeople, serverActionIds } from "./fixtures";
 
 const ROLES = ["anonymous", "outsider", "student", "peer", "ta", "instructor", "admin"] as const;
 type Role = (typeof ROLES)[number];
@@ -134,17 +134,6 @@ function uploadForm(labId: string, bytes: Uint8Array, name: string): FormData {
   return form;
 }
 
-/** The build's server-action ids by "file#export", from the manifest Next.js writes. */
-function actionIds(): Record<string, string> {
-  const dist = process.env.SHUNTWISE_TEST_DIST_DIR ?? ".next-test";
-  const manifest = JSON.parse(readFileSync(path.join(root, dist, "server", "server-reference-manifest.json"), "utf8")) as {
-    node: Record<string, { filename?: string; exportedName?: string }>;
-  };
-  const out: Record<string, string> = {};
-  for (const [id, a] of Object.entries(manifest.node)) if (a.filename && a.exportedName) out[`${a.filename.replace(/^\.\//, "")}#${a.exportedName}`] = id;
-  return out;
-}
-
 beforeAll(async () => {
   const f = await courseWithPeople();
   const db = e2eDb();
@@ -210,7 +199,7 @@ beforeAll(async () => {
     outsider: f.people.outsider,
     hiddenLesson,
     hiddenQuestion: lessonQuestions.find((q) => q.lesson === hiddenLesson)!.id,
-    actionIds: actionIds(),
+    actionIds: serverActionIds(),
   };
 });
 

@@ -1,4 +1,6 @@
 // Creates a course with an instructor, a TA, a student and an outsider in the test server's database.
+import { readFileSync } from "node:fs";
+import path from "node:path";
 import { hash } from "@node-rs/argon2";
 import { e2eDb, uniqueEmail } from "../support/db";
 import { Client } from "../support/http";
@@ -50,4 +52,15 @@ export async function addPerson(tag: string, opts: { courseId?: string; role?: "
   } finally {
     await db.destroy();
   }
+}
+
+/** The build's server-action ids by "file#export" (e.g. "app/lessons/actions.ts#checkAnswer"), from Next.js's manifest. */
+export function serverActionIds(): Record<string, string> {
+  const dist = path.resolve(import.meta.dirname, "../..", process.env.SHUNTWISE_TEST_DIST_DIR ?? ".next-test");
+  const manifest = JSON.parse(readFileSync(path.join(dist, "server", "server-reference-manifest.json"), "utf8")) as {
+    node: Record<string, { filename?: string; exportedName?: string }>;
+  };
+  const out: Record<string, string> = {};
+  for (const [id, a] of Object.entries(manifest.node)) if (a.filename && a.exportedName) out[`${a.filename.replace(/^\.\//, "")}#${a.exportedName}`] = id;
+  return out;
 }

@@ -10,7 +10,7 @@
 import fc from "fast-check";
 import { beforeAll, describe, expect, it } from "vitest";
 import { Client } from "../support/http";
-import { addPerson, clientFor, courseWithPeople } from "./fixtures";
+import { addPerson, clientFor, courseWithPeople, serverActionIds } from "./fixtures";
 
 const RUNS = Number(process.env.SHUNTWISE_FUZZ_RUNS ?? 1000);
 const SEED = Number(process.env.SHUNTWISE_FUZZ_SEED ?? 20261202);
@@ -33,9 +33,12 @@ interface Target {
   query?: boolean;
   /** a string of the valid body made unique in every request (a per-e-mail throttle counts the valid ones) */
   unique?: string;
+  /** a server action ("file#export") called as its form calls it, on `path`: its answer is the action's result */
+  action?: string;
 }
 
 let as: Record<Who, Client>;
+let actionIds: Record<string, string>;
 let w: {
   courseId: string;
   labId: string; // published, with attempts
@@ -299,6 +302,16 @@ const TARGETS: Target[] = [
     valid: () => ({ token: "x".repeat(43), password: "a-new-password-1" }),
     weight: 2,
   },
+  {
+    // the sign-up form's server action: a wrong join code, so no account is ever made
+    name: "sign-up action (POST /signup, Next-Action)",
+    who: "anonymous",
+    method: "POST",
+    path: () => "/signup",
+    action: "app/(auth)/signup/actions.ts#signUpAction",
+    valid: () => ({ name: "Fuzz Person", email: "fuzz.signup@test.example", password: "a-long-password-1", joinCode: "NO-SUCH-CODE" }),
+    weight: 2,
+  },
   { name: "GET /api/courses/{courseId}/reviews?…", who: "ta", method: "GET", query: true, path: () => `/api/courses/${w.courseId}/reviews`, valid: () => ({ status: "open", labId: w.labId, section: "A", mistake: "true", late: "0", changed: "" }), weight: 2 },
   { name: "GET /api/courses/{courseId}/gradebook?…", who: "ta", method: "GET", query: true, path: () => `/api/courses/${w.courseId}/gradebook`, valid: () => ({ format: "json" }), weight: 1 },
 ];
@@ -338,6 +351,7 @@ beforeAll(async () => {
   const [admin, member] = await Promise.all([addPerson("fuzz-admin", { isAdmin: true }), addPerson("fuzz-member", { courseId: f.courseId, role: "student" })]);
   const [student, ta, instructor, adminClient] = await Promise.all([clientFor(f.people.student.email), clientFor(f.people.ta.email), clientFor(f.people.instructor.email), clientFor(admin.email)]);
   as = { student, ta, instructor, admin: adminClient, anonymous: new Client() };
+  actionIds = serverActionIds();
   const make = async () => {
     const r = await instructor.post(`/api/courses/${f.courseId}/labs`, labBody());
     expect(r.status).toBe(201);
@@ -378,6 +392,10 @@ async function send(t: Target, c: Case): Promise<Outcome> {
     if (body && typeof body === "object" && !Array.isArray(body)) for (const [k, v] of Object.entries(body)) q.append(k, typeof v === "string" ? v : JSON.stringify(v) ?? "");
     else q.append("q", JSON.stringify(body) ?? "");
     res = await client.json(`${t.path()}?${q}`);
+  } else if (t.action) {
+    // as React encodes an action's arguments: a string that starts with "$" is escaped as "$$…"
+    const args = JSON.stringify([c.raw ? c.raw.text : c.body], (_k, v: unknown) => (typeof v === "string" && v.startsWith("$") ? `$${v}` : v));
+    res = await client.json(t.path(), { method: "POST", headers: { "next-action": actionIds[t.action], "content-type": "text/plain;charset=UTF-8", accept: "text/x-component" }, body: args });
   } else if (c.raw) {
     res = await client.json(t.path(), { method: t.method, headers: c.raw.type ? { "content-type": c.raw.type } : {}, body: c.raw.text });
   } else {
@@ -387,8 +405,14 @@ async function send(t: Target, c: Case): Promise<Outcome> {
 }
 
 /** What is wrong with an answer, or null. */
-function fault(o: Outcome): string | null {
+function fault(t: Target, o: Outcome): string | null {
   if (o.status >= 500) return `answered ${o.status}`;
+  if (t.action) {
+    // the action answers its result in the page's payload: a refusal names at least one field
+    if (o.status !== 200) return `answered ${o.status}`;
+    if (!/"ok":false,"message":"[^"]+","fields":\{"/.test(o.text)) return "answered without a refusal naming a field";
+    return null;
+  }
   if (o.status < 400) return null;
   let body: { error?: { code?: unknown; message?: unknown; fields?: Record<string, unknown> } };
   try {
@@ -437,7 +461,7 @@ describe(`fuzzing the mutations through HTTP (${RUNS} bodies, seed ${SEED})`, ()
     console.log(`fuzz: ${outcomes.length} bodies in ${seconds.toFixed(1)} s (seed ${SEED}, ${CONCURRENCY} at a time)`);
     for (const [name, s] of byTarget) console.log(`  ${name}: ${Object.entries(s).map(([k, v]) => `${k}×${v}`).join(" ")}`);
     const faults = outcomes.flatMap((o) => {
-      const f = fault(o);
+      const f = fault(TARGETS.find((t) => t.name === o.c.target)!, o);
       return f ? [`${o.c.target}: ${f}\n    sent: ${JSON.stringify(o.c.raw ?? o.c.body)}\n    got: ${o.text.slice(0, 300)}`] : [];
     });
     expect(faults.slice(0, 20), `${faults.length} of ${outcomes.length} answers are wrong (replay with SHUNTWISE_FUZZ_SEED=${SEED} SHUNTWISE_FUZZ_RUNS=${RUNS})`).toEqual([]);
