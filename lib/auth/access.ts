@@ -6,7 +6,7 @@ import { cache } from "react";
 import { notFound as pageNotFound, redirect } from "next/navigation";
 import { db } from "@/db";
 import { findCourse, findMembership } from "@/db/queries/courses";
-import { findUserById, type PublicUser } from "@/db/queries/users";
+import { findUserById, sessionsValidAfter, type PublicUser } from "@/db/queries/users";
 import type { Role } from "@/db/types";
 import { AppError, forbidden, notFound, unauthorized } from "@/lib/errors";
 import { uuidSchema } from "@/lib/validation/common";
@@ -20,6 +20,13 @@ export const currentUser = cache(async (): Promise<PublicUser | null> => {
   const session = await getServerSession(authOptions);
   const id = (session?.user as { id?: string } | undefined)?.id;
   if (!id || !uuidSchema.safeParse(id).success) return null;
+  // the session callback could not reach the database: check the revocation here, where an error
+  // still reaches the caller (503 in a route) instead of reading as "signed out"
+  const unchecked = (session as { uncheckedSince?: number } | null)?.uncheckedSince;
+  if (typeof unchecked === "number") {
+    const validAfter = await sessionsValidAfter(db, id);
+    if (validAfter && unchecked < validAfter.getTime()) return null;
+  }
   return (await findUserById(db, id)) ?? null;
 });
 

@@ -3,6 +3,7 @@ import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
 import { db } from "@/db";
 import { findCredentials, sessionsValidAfter } from "@/db/queries/users";
+import { isDatabaseUnavailable } from "@/lib/errors";
 import { uuidSchema } from "@/lib/validation/common";
 import { isHttps } from "@/lib/security/headers";
 import { signInSchema } from "@/lib/validation/auth";
@@ -40,7 +41,15 @@ export const authOptions: NextAuthOptions = {
     async session({ session, token }) {
       const raw = (token.at as number | undefined) ?? (token.iat as number | undefined) ?? 0;
       const at = raw < 1e11 ? raw * 1000 : raw; // tokens from before `at` was in milliseconds carry seconds
-      const validAfter = token.sub && uuidSchema.safeParse(token.sub).success ? await sessionsValidAfter(db, token.sub) : null;
+      let validAfter: Date | null;
+      try {
+        validAfter = token.sub && uuidSchema.safeParse(token.sub).success ? await sessionsValidAfter(db, token.sub) : null;
+      } catch (e) {
+        // next-auth turns an error here into "signed out" (401); with the database out of reach the
+        // session stays unchecked instead, and the server's currentUser checks it (and answers 503)
+        if (!isDatabaseUnavailable(e)) throw e;
+        return { expires: session.expires, user: { id: token.sub }, uncheckedSince: at } as typeof session;
+      }
       if (validAfter && at < validAfter.getTime()) return { expires: session.expires } as typeof session;
       return { expires: session.expires, user: { id: token.sub } } as typeof session;
     },

@@ -23,6 +23,7 @@ export async function deliver(
   outboxId: string,
   opts: { transport?: Transporter; final?: boolean } = {},
 ): Promise<DeliverOutcome> {
+  const accepted: { messageId?: string } = {}; // set once the SMTP server has taken the message
   try {
     return await db.transaction().execute(async (trx) => {
       const row = await lockOutbox(trx, outboxId);
@@ -40,11 +41,32 @@ export async function deliver(
         messageId,
         headers: { "X-Shuntwise-Event": row.key },
       });
-      await markSent(trx, row.id, info.messageId || messageId);
+      const sentId: string = info.messageId || messageId;
+      accepted.messageId = sentId;
+      await markSent(trx, row.id, sentId);
       return "sent" as const;
     });
   } catch (e) {
+    // the server took the message but the database went away before the record committed: keep
+    // trying to record it (outside the dead transaction) rather than let a retry send it again
+    if (accepted.messageId) return recordSentLater(db, outboxId, accepted.messageId, e);
     await markTryFailed(db, outboxId, e instanceof Error ? e.message : String(e), opts.final ?? false);
     throw e;
   }
+}
+
+/** Records a message the SMTP server accepted, trying for up to a minute while the database is away. */
+async function recordSentLater(db: Kysely<Database>, outboxId: string, messageId: string, first: unknown): Promise<DeliverOutcome> {
+  const until = Date.now() + 60_000;
+  let last = first;
+  while (Date.now() < until) {
+    await new Promise((r) => setTimeout(r, 1000));
+    try {
+      await markSent(db, outboxId, messageId);
+      return "sent";
+    } catch (e) {
+      last = e;
+    }
+  }
+  throw last;
 }

@@ -16,10 +16,21 @@ export async function handleMailJobs(jobs: PgBoss.JobWithMetadata<MailJob>[], op
   }
 }
 
-export async function startMailWorker(boss: PgBoss, opts: { db?: Kysely<Database>; transport?: Transporter; pollingIntervalSeconds?: number } = {}) {
-  return boss.work<MailJob>(
-    QUEUES.mail,
-    { pollingIntervalSeconds: opts.pollingIntervalSeconds ?? 1, includeMetadata: true, batchSize: 1 },
-    (jobs) => handleMailJobs(jobs, opts),
-  );
+/**
+ * Starts `workers` pollers of the mail queue (default 4). pg-boss 10 waits its polling interval after
+ * every fetch, so one poller sends at most one message a second; a deadline's burst of graded e-mail
+ * needs several. Each takes one job at a time, so a job's expiry covers one message.
+ */
+export async function startMailWorker(boss: PgBoss, opts: { db?: Kysely<Database>; transport?: Transporter; pollingIntervalSeconds?: number; workers?: number } = {}) {
+  const ids: string[] = [];
+  for (let i = 0; i < (opts.workers ?? 4); i++) {
+    ids.push(
+      await boss.work<MailJob>(
+        QUEUES.mail,
+        { pollingIntervalSeconds: opts.pollingIntervalSeconds ?? 1, includeMetadata: true, batchSize: 1 },
+        (jobs) => handleMailJobs(jobs, opts),
+      ),
+    );
+  }
+  return ids[0];
 }

@@ -35,7 +35,11 @@ let pool: pg.Pool | undefined;
 const limiters = new Map<LimitName, RateLimiterPostgres>();
 
 function limiter(name: LimitName): RateLimiterPostgres {
-  pool ??= new pg.Pool({ connectionString: process.env.DATABASE_URL, max: 4 });
+  if (!pool) {
+    pool = new pg.Pool({ connectionString: process.env.DATABASE_URL, max: 4 });
+    // an idle connection closed by the server (a restart) must not crash the process; the pool replaces it
+    pool.on("error", (e) => console.warn(`throttle database connection closed: ${e.message}`));
+  }
   let l = limiters.get(name);
   if (!l) {
     l = new RateLimiterPostgres({
