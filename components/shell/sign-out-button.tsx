@@ -1,11 +1,12 @@
-"use client";
+import { signOutHere } from "@/lib/auth/sign-out";
 
-import { signOut } from "next-auth/react";
-
+/** Signs out on this device through a server action (a plain form: no client code of its own). */
 export function SignOutButton() {
   return (
-    <button type="button" className="btn-quiet py-1" onClick={() => signOut({ callbackUrl: "/signin" })}>
-      Sign out
-    </button>
+    <form action={signOutHere} className="contents">
+      <button type="submit" className="btn-quiet py-1">
+        Sign out
+      </button>
+    </form>
   );
 }

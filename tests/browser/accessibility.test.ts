@@ -3,7 +3,7 @@
 // role, and no serious or critical violation is allowed (WCAG 2.x A and AA rules plus axe's best
 // practices). Then flow 1 is done with the keyboard alone: sign in, open the lab, type the readings,
 // submit and read the feedback, with only Tab, Shift+Tab, Enter and Space, and a visible focus ring on
-// every control that is reached.
+// every control that is reached; then it signs out from the header the same way.
 // axe-core's own source is evaluated in the page (the page's content security policy allows only scripts
 // with its per-request nonce, so a <script> tag would be refused; evaluation through the debugging
 // protocol is not subject to it).
@@ -283,6 +283,13 @@ describe("flow 1 with the keyboard alone", () => {
       await tabTo(page, "the review request box", (f) => f.tag === "textarea");
       const list = await apiJson(context, "GET", `/api/labs/${keyboardLabId}/attempts`);
       expect(list.body.attempts).toHaveLength(1);
+
+      // and signs out from the header: back to the sign-in page, and the session is gone
+      await tabTo(page, "the sign-out button", (f) => f.tag === "button" && f.text === "Sign out", "Shift+Tab");
+      await page.keyboard.press("Enter");
+      await page.waitForURL((url) => url.pathname === "/signin", { timeout: 20_000 });
+      await page.goto("/");
+      expect(new URL(page.url()).pathname).toBe("/signin");
     } finally {
       await context.close();
     }
