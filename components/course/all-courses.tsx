@@ -1,5 +1,6 @@
 // The site admin's list of every course with its people and labs.
 import Link from "next/link";
+import { DataTable, type Column } from "@/components/ui/table";
 
 export interface CourseCount {
   id: string;
@@ -13,37 +14,23 @@ export interface CourseCount {
   labs: number;
 }
 
+const columns: Column<CourseCount>[] = [
+  {
+    header: "Course",
+    cell: (c) => (
+      <>
+        <Link href={`/courses/${c.id}`}>{c.code}</Link> {c.title}
+        <span className="block text-xs text-ink-faint">{c.institution}</span>
+      </>
+    ),
+  },
+  { header: "Term", cell: (c) => c.term },
+  { header: "Instructors", cell: (c) => c.instructors || <span className="text-verdict-wrong">none</span> },
+  { header: "Students", numeric: true, className: "font-mono", cell: (c) => c.students },
+  { header: "Staff", numeric: true, className: "font-mono", cell: (c) => c.staff },
+  { header: "Labs", numeric: true, className: "font-mono", cell: (c) => c.labs },
+];
+
 export function AllCourses({ courses }: { courses: CourseCount[] }) {
-  return (
-    <div className="card overflow-x-auto p-0">
-      <table className="min-w-full text-sm">
-        <caption className="sr-only">Every course</caption>
-        <thead className="bg-paper-sunk text-left">
-          <tr>
-            <th scope="col" className="px-4 py-2">Course</th>
-            <th scope="col" className="px-4 py-2">Term</th>
-            <th scope="col" className="px-4 py-2">Instructors</th>
-            <th scope="col" className="px-4 py-2 text-right">Students</th>
-            <th scope="col" className="px-4 py-2 text-right">Staff</th>
-            <th scope="col" className="px-4 py-2 text-right">Labs</th>
-          </tr>
-        </thead>
-        <tbody>
-          {courses.map((c) => (
-            <tr key={c.id} className="border-t border-ink/10">
-              <td className="px-4 py-2">
-                <Link href={`/courses/${c.id}`}>{c.code}</Link> {c.title}
-                <span className="block text-xs text-ink-faint">{c.institution}</span>
-              </td>
-              <td className="px-4 py-2">{c.term}</td>
-              <td className="px-4 py-2">{c.instructors || <span className="text-verdict-wrong">none</span>}</td>
-              <td className="px-4 py-2 text-right font-mono">{c.students}</td>
-              <td className="px-4 py-2 text-right font-mono">{c.staff}</td>
-              <td className="px-4 py-2 text-right font-mono">{c.labs}</td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
-  );
+  return <DataTable caption="Every course" columns={columns} rows={courses} rowKey={(c) => c.id} card="" />;
 }

@@ -6,10 +6,26 @@ import katex from "katex";
 import ReactMarkdown, { type Components } from "react-markdown";
 import type { handoutFromParams } from "@/lib/labs/handout";
 import { CircuitDiagram } from "@/components/lesson/diagrams";
+import { DataTable, type Column } from "@/components/ui/table";
 import { Caution } from "@/components/lesson/Caution";
 import { expectedWhenText } from "@/lib/labs/policy";
 
 export type HandoutData = ReturnType<typeof handoutFromParams>;
+
+const valueColumns: Column<HandoutData["parameters"][number]>[] = [
+  { header: "Quantity", rowHeader: true, cell: (p) => p.label },
+  { header: "Symbol", cell: (p) => <Tex tex={p.symbol} /> },
+  { header: "Value", className: "font-mono whitespace-nowrap", cellProps: (p) => ({ "data-testid": `value-${p.key}` }), cell: (p) => p.shown },
+  {
+    header: "Tolerance",
+    cell: (p) => (
+      <>
+        {p.tolerancePercent !== undefined ? `± ${p.tolerancePercent} %` : "—"}
+        {p.series ? ` (${p.series} series)` : ""}
+      </>
+    ),
+  },
+];
 
 export interface HandoutProps {
   handout: HandoutData;
@@ -184,30 +200,16 @@ export function Handout({ handout, headingLevel = 1, timeZone }: HandoutProps) {
             Your circuit values
           </Section>
           <p className="text-sm text-ink-soft">These values are yours alone; other students have different ones.</p>
-          <table className="mt-2 w-full text-sm" data-testid="handout-values">
-            <caption className="sr-only">Your circuit values</caption>
-            <thead className="bg-paper-sunk text-left">
-              <tr>
-                <th scope="col" className="px-2 py-1">Quantity</th>
-                <th scope="col" className="px-2 py-1">Symbol</th>
-                <th scope="col" className="px-2 py-1">Value</th>
-                <th scope="col" className="px-2 py-1">Tolerance</th>
-              </tr>
-            </thead>
-            <tbody>
-              {parameters.map((p) => (
-                <tr key={p.key} className="border-t border-ink/10" data-param={p.key}>
-                  <th scope="row" className="px-2 py-1 text-left font-normal">{p.label}</th>
-                  <td className="px-2 py-1"><Tex tex={p.symbol} /></td>
-                  <td className="px-2 py-1 font-mono whitespace-nowrap" data-testid={`value-${p.key}`}>{p.shown}</td>
-                  <td className="px-2 py-1">
-                    {p.tolerancePercent !== undefined ? `± ${p.tolerancePercent} %` : "—"}
-                    {p.series ? ` (${p.series} series)` : ""}
-                  </td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
+          <DataTable
+            caption="Your circuit values"
+            className="mt-2 w-full text-sm"
+            testId="handout-values"
+            density="snug"
+            columns={valueColumns}
+            rows={parameters}
+            rowKey={(p) => p.key}
+            rowProps={(p) => ({ "data-param": p.key })}
+          />
         </section>
       </div>
 

@@ -6,7 +6,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { useId, useState } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
-import { FormMessage } from "@/components/ui/field";
+import { FieldFrame, FormMessage } from "@/components/ui/field";
 import { api, isApiError } from "@/lib/api-client";
 import { formatQuantity, templates, type TemplateKey } from "@/lib/grader";
 import { questionRegradeSchema, reviewAnswerSchema, rerunSchema } from "@/lib/validation/reviews";
@@ -127,46 +127,25 @@ function QuestionRegrade({ attempt }: { attempt: AttemptView }) {
       <h3 className="text-lg">Change one question&apos;s points</h3>
       <FormMessage message={save.isError ? failureText(save.error) : null} />
       <FormMessage tone="info" message={done} />
-      <div className="grid gap-3 sm:grid-cols-[2fr_1fr]">
-        <div>
-          <label htmlFor={`${id}-q`} className="field-label">
-            Question
-          </label>
-          <select id={`${id}-q`} className="field-input" {...register("questionId")}>
-            {attempt.results.map((r, i) => (
-              <option key={r.questionId} value={r.questionId}>
-                {i + 1}. {r.label} ({points(r.points)} of {points(r.maxPoints)})
-              </option>
-            ))}
-          </select>
-          <p className="field-error" aria-live="polite">{err.questionId?.message ?? ""}</p>
-        </div>
-        <div>
-          <label htmlFor={`${id}-p`} className="field-label">
-            New points
-          </label>
-          <input
-            id={`${id}-p`}
-            type="number"
-            step={0.5}
-            min={0}
-            max={chosen?.maxPoints}
-            className="field-input"
-            aria-invalid={err.points ? true : undefined}
-            aria-describedby={`${id}-p-hint ${id}-p-error`}
-            {...register("points", { valueAsNumber: true })}
-          />
-          <p id={`${id}-p-hint`} className="mt-1 text-xs text-ink-faint">
-            0 to {chosen ? points(chosen.maxPoints) : "the maximum"}, in halves.
-          </p>
-          <p id={`${id}-p-error`} className="field-error" aria-live="polite">{err.points?.message ?? ""}</p>
-        </div>
+      <div className="grid gap-x-3 sm:grid-cols-[2fr_1fr]">
+        <FieldFrame id={`${id}-q`} label="Question" error={err.questionId?.message}>
+          {(control) => (
+            <select className="field-input" {...control} {...register("questionId")}>
+              {attempt.results.map((r, i) => (
+                <option key={r.questionId} value={r.questionId}>
+                  {i + 1}. {r.label} ({points(r.points)} of {points(r.maxPoints)})
+                </option>
+              ))}
+            </select>
+          )}
+        </FieldFrame>
+        <FieldFrame id={`${id}-p`} label="New points" hint={`0 to ${chosen ? points(chosen.maxPoints) : "the maximum"}, in halves.`} error={err.points?.message}>
+          {(control) => <input type="number" step={0.5} min={0} max={chosen?.maxPoints} className="field-input" {...control} {...register("points", { valueAsNumber: true })} />}
+        </FieldFrame>
       </div>
-      <label htmlFor={`${id}-r`} className="field-label">
-        Reason (the student sees it)
-      </label>
-      <textarea id={`${id}-r`} rows={2} className="field-input" aria-invalid={err.reason ? true : undefined} aria-describedby={`${id}-r-error`} {...register("reason")} />
-      <p id={`${id}-r-error`} className="field-error" aria-live="polite">{err.reason?.message ?? ""}</p>
+      <FieldFrame id={`${id}-r`} label="Reason (the student sees it)" error={err.reason?.message} className="">
+        {(control) => <textarea rows={2} className="field-input" {...control} {...register("reason")} />}
+      </FieldFrame>
       <button type="submit" className="btn-primary mt-2" disabled={save.isPending}>
         {save.isPending ? "Saving…" : "Save the points"}
       </button>
@@ -202,11 +181,9 @@ function Rerun({ attempt }: { attempt: AttemptView }) {
         <p className="text-sm text-ink-soft">The grader grades the readings again with the lab as it is now. Points set by staff are replaced by the grader&apos;s.</p>
         <FormMessage message={run.isError ? failureText(run.error) : null} />
         <FormMessage tone="info" message={run.isSuccess ? `Graded again: ${points(run.data.attempt.score)} of ${points(run.data.attempt.maxScore)} points.` : null} />
-        <label htmlFor={`${id}-r`} className="field-label">
-          Reason
-        </label>
-        <input id={`${id}-r`} className="field-input" aria-describedby={`${id}-e`} aria-invalid={formState.errors.reason ? true : undefined} {...register("reason")} />
-        <p id={`${id}-e`} className="field-error" aria-live="polite">{formState.errors.reason?.message ?? ""}</p>
+        <FieldFrame id={`${id}-r`} label="Reason" error={formState.errors.reason?.message} className="">
+          {(control) => <input className="field-input" {...control} {...register("reason")} />}
+        </FieldFrame>
         <button type="submit" className="btn-quiet mt-2" disabled={run.isPending}>
           {run.isPending ? "Grading…" : "Re-run the grader"}
         </button>
@@ -246,11 +223,9 @@ function AnswerForm({ attempt }: { attempt: AttemptView }) {
       {attempt.reviewAnsweredAt && !attempt.reviewOpen ? <p className="text-sm text-ink-soft">Answered on {utcDate(attempt.reviewAnsweredAt)}; a new answer replaces the one shown to the student (both stay in the history).</p> : null}
       <FormMessage message={send.isError ? failureText(send.error) : null} />
       <FormMessage tone="info" message={send.isSuccess ? "Answer sent; the request is closed." : null} />
-      <label htmlFor={id} className="field-label">
-        Your answer
-      </label>
-      <textarea id={id} rows={4} className="field-input" aria-invalid={formState.errors.message ? true : undefined} aria-describedby={`${id}-e`} {...register("message")} />
-      <p id={`${id}-e`} className="field-error" aria-live="polite">{formState.errors.message?.message ?? ""}</p>
+      <FieldFrame id={id} label="Your answer" error={formState.errors.message?.message} className="">
+        {(control) => <textarea rows={4} className="field-input" {...control} {...register("message")} />}
+      </FieldFrame>
       <button type="submit" className="btn-primary mt-2" disabled={send.isPending}>
         {send.isPending ? "Sending…" : "Send the answer and close the request"}
       </button>

@@ -39,27 +39,52 @@ export function FieldMessage({ id, error, note, testId }: { id: string; error?: 
   );
 }
 
+/** The attributes that tie a control to its label, hint and message line. */
+export type ControlProps = { id: string; "aria-invalid": true | undefined; "aria-describedby": string };
+
+/**
+ * One field of any kind: the label, the control (drawn by `children` with the ids it must carry), the hint
+ * and the one message line. Field and QuantityInput below are this with an <input>; forms with a select or
+ * a textarea use it directly.
+ */
+export function FieldFrame({
+  id,
+  label,
+  hint,
+  error,
+  note,
+  messageTestId,
+  className = "mb-4",
+  children,
+}: {
+  id: string;
+  label: ReactNode;
+  hint?: ReactNode;
+  error?: string;
+  note?: ReactNode;
+  messageTestId?: string;
+  className?: string;
+  children: (control: ControlProps) => ReactNode;
+}) {
+  return (
+    <div className={className}>
+      <label htmlFor={id} className="field-label">
+        {label}
+      </label>
+      {children({ id, "aria-invalid": error ? true : undefined, "aria-describedby": fieldIds(id, hint).describedBy })}
+      <FieldHint id={id} hint={hint} />
+      <FieldMessage id={id} error={error} note={note} testId={messageTestId} />
+    </div>
+  );
+}
+
 type Props = InputHTMLAttributes<HTMLInputElement> & { label: string; name: string; error?: string; hint?: string };
 
 export const Field = forwardRef<HTMLInputElement, Props>(function Field({ label, name, error, hint, id, ...rest }, ref) {
-  const inputId = id ?? `field-${name}`;
   return (
-    <div className="mb-4">
-      <label htmlFor={inputId} className="field-label">
-        {label}
-      </label>
-      <input
-        ref={ref}
-        id={inputId}
-        name={name}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={fieldIds(inputId, hint).describedBy}
-        className="field-input"
-        {...rest}
-      />
-      <FieldHint id={inputId} hint={hint} />
-      <FieldMessage id={inputId} error={error} />
-    </div>
+    <FieldFrame id={id ?? `field-${name}`} label={label} hint={hint} error={error}>
+      {(control) => <input ref={ref} name={name} className="field-input" {...control} {...rest} />}
+    </FieldFrame>
   );
 });
 
@@ -86,29 +111,23 @@ export const QuantityInput = forwardRef<HTMLInputElement, QuantityProps>(functio
   ref,
 ) {
   const generated = useId();
-  const inputId = id ?? generated;
   const problem = error ?? (reading?.status === "error" ? reading.message : undefined);
   const note = reading?.status === "ok" ? `Read as ${reading.readAs}` : undefined;
   return (
-    <div className={className ?? "mb-4"}>
-      <label htmlFor={inputId} className="field-label">
-        {label}
-      </label>
-      <input
-        ref={ref}
-        id={inputId}
-        type="text"
-        autoComplete="off"
-        spellCheck={false}
-        inputMode="text"
-        className={`field-input ${inputClassName ?? ""}`}
-        aria-invalid={problem ? true : undefined}
-        aria-describedby={fieldIds(inputId, hint).describedBy}
-        {...rest}
-      />
-      <FieldHint id={inputId} hint={hint} />
-      <FieldMessage id={inputId} error={problem} note={note} testId={messageTestId} />
-    </div>
+    <FieldFrame id={id ?? generated} label={label} hint={hint} error={problem} note={note} messageTestId={messageTestId} className={className}>
+      {(control) => (
+        <input
+          ref={ref}
+          type="text"
+          autoComplete="off"
+          spellCheck={false}
+          inputMode="text"
+          className={`field-input ${inputClassName ?? ""}`}
+          {...control}
+          {...rest}
+        />
+      )}
+    </FieldFrame>
   );
 });
 

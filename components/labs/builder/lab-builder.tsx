@@ -1,23 +1,18 @@
 "use client";
 // The lab builder: one form for a new lab and for editing one. It checks the form with the same
 // labInputSchema the API uses (through builderSchema), sends it as JSON to the route handlers and puts
-// the API's field errors back under the fields they name.
+// the API's field errors back under the fields they name. The form's sections are in sections.tsx; this
+// file keeps what is not a field (status, messages, the grade-recompute question) and the saving.
 import { zodResolver } from "@hookform/resolvers/zod";
 import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useEffect, useMemo, useRef, useState, useSyncExternalStore } from "react";
-
-// Values that exist only in the browser: read after hydration without an effect that sets state.
-const subscribeNothing = () => () => {};
-const browserTimeZone = () => Intl.DateTimeFormat().resolvedOptions().timeZone;
-import { FormProvider, get, useForm, useWatch } from "react-hook-form";
+import { FormProvider, useForm, useWatch } from "react-hook-form";
 import { FormMessage } from "@/components/ui/field";
 import { api, isApiError } from "@/lib/api-client";
 import { toLocalInput } from "@/lib/dates";
 import { templates, TEMPLATE_KEYS, type TemplateKey } from "@/lib/grader";
-import { CircuitDiagram } from "@/components/lesson/diagrams";
 import type { LabInput } from "@/lib/validation/labs";
-import { expectedWhenText } from "@/lib/labs/policy";
 import { RegradeProgress } from "../regrade-progress";
 import {
   builderSchema,
@@ -32,12 +27,13 @@ import {
   type KeptPolicy,
   type StoredLabInput,
 } from "./form-model";
+import { AboutSection, HandoutTextSection, ParametersSection, QuestionsSection, RulesSection } from "./sections";
 
 export type { StoredLabInput };
-import { SelectInput, TextInput } from "./inputs";
-import { ParameterFields } from "./parameter-fields";
-import { QuestionFields } from "./question-fields";
 
+// Values that exist only in the browser: read after hydration without an effect that sets state.
+const subscribeNothing = () => () => {};
+const browserTimeZone = () => Intl.DateTimeFormat().resolvedOptions().timeZone;
 
 export interface LabBuilderProps {
   courseId: string;
@@ -96,7 +92,6 @@ export function LabBuilder({ courseId, lab, notice, latePolicy }: LabBuilderProp
   const templateKey = useWatch({ control: methods.control, name: "templateKey" });
   const template = templates[templateKey] ?? templates["shunt-burden"];
   const attempts = lab?.attemptCount ?? 0;
-  const specError = (get(formState.errors, "root.spec") as { message?: string } | undefined)?.message;
 
   function say(tone: "error" | "info", text: string) {
     setMessage({ tone, text });
@@ -220,110 +215,11 @@ export function LabBuilder({ courseId, lab, notice, latePolicy }: LabBuilderProp
           </p>
         ) : null}
 
-        <section className="card" aria-labelledby="sec-about">
-          <h2 id="sec-about" className="text-lg">
-            The lab
-          </h2>
-          <TextInput name="title" label="Title" />
-          {attempts > 0 ? (
-            <p className="mb-2 text-sm">
-              <span className="font-medium">Circuit template:</span> {template.title}. Students have submitted attempts, so the template can
-              no longer change.
-            </p>
-          ) : (
-            <SelectInput
-              name="templateKey"
-              label="Circuit template"
-              options={TEMPLATE_KEYS.map((k) => ({ value: k, label: templates[k].title }))}
-              onChangeValue={onTemplateChange}
-              hint="Changing the template resets the parameters and questions to its defaults."
-            />
-          )}
-          <p className="text-sm text-ink-soft">{template.summary}</p>
-          <CircuitDiagram template={template.key} idPrefix="builder" className="mb-0" />
-        </section>
-
-        <section className="card" aria-labelledby="sec-params">
-          <h2 id="sec-params" className="text-lg">
-            Circuit values
-          </h2>
-          <p className="mb-3 text-sm text-ink-soft">
-            Each student gets their own values, drawn once from these settings and kept. Type every value with its unit (for example 4.7 kΩ,
-            1.8 V, 20 mA).
-          </p>
-          <p id="lab-spec-error" className="field-error" aria-live="polite">
-            {specError ? `Check: ${specError}` : ""}
-          </p>
-          <div className="grid gap-4">
-            {template.parameters.map((p) => (
-              <ParameterFields key={`${template.key}:${p.key}`} p={p} />
-            ))}
-          </div>
-        </section>
-
-        <section className="card" aria-labelledby="sec-questions">
-          <h2 id="sec-questions" className="text-lg">
-            Questions
-          </h2>
-          <QuestionFields templateKey={template.key} />
-          <div className="mt-4 grid gap-x-4 sm:grid-cols-3">
-            <TextInput name="defaultTolerancePercent" label="Default tolerance (%)" inputMode="decimal" hint="Accepted band around the expected value, unless the circuit's own tolerances give a wider one." />
-            <TextInput name="closeCreditPercent" label="Credit for a close answer (%)" inputMode="decimal" hint="Just outside the band: this share of the points." />
-            <TextInput name="instrumentAccuracyPercent" label="Instrument accuracy (% of reading, optional)" inputMode="decimal" hint="Widens the band of bench readings." />
-          </div>
-        </section>
-
-        <section className="card" aria-labelledby="sec-rules">
-          <h2 id="sec-rules" className="text-lg">
-            Attempts, dates and feedback
-          </h2>
-          <div className="grid gap-x-4 sm:grid-cols-2">
-            <TextInput name="attemptsAllowed" label="Attempts allowed" inputMode="numeric" />
-            <SelectInput
-              name="counting"
-              label="Attempt that counts"
-              options={[
-                { value: "best", label: "The best attempt" },
-                { value: "last", label: "The last attempt" },
-              ]}
-            />
-            <TextInput name="opensAt" label="Opens" type="datetime-local" hint={`Leave empty to open at once.${timeZone ? ` Times are in ${timeZone}.` : ""}`} />
-            <TextInput name="dueAt" label="Due" type="datetime-local" hint={`Leave empty for no due date.${timeZone ? ` Times are in ${timeZone}.` : ""}`} />
-            <TextInput name="latePenaltyPercentPerDay" label="Late penalty (% per day)" inputMode="decimal" hint="Each day or part of a day after the due date." />
-            <TextInput name="lateFloorPercent" label="Late floor (%)" inputMode="decimal" hint="A late attempt always keeps at least this share of its score." />
-            <TextInput
-              name="closesAt"
-              label="Closes (late attempts accepted until)"
-              type="datetime-local"
-              className="sm:col-span-2"
-              hint={`Leave empty to close when the late penalty reaches its floor (the due date plus (100 − floor) ÷ penalty days; at the due date without a penalty).${timeZone ? ` Times are in ${timeZone}.` : ""}`}
-            />
-            <SelectInput
-              name="showExpected"
-              label="Expected values shown to students"
-              className="mb-4 sm:col-span-2"
-              options={[
-                { value: "after_attempt", label: "After each attempt" },
-                { value: "after_due", label: "After the due date" },
-                { value: "never", label: "Never" },
-              ]}
-            />
-            <ExpectedWhen />
-          </div>
-        </section>
-
-        <section className="card" aria-labelledby="sec-text">
-          <h2 id="sec-text" className="text-lg">
-            Handout text
-          </h2>
-          <TextInput
-            name="instructions"
-            label="Instructions (Markdown)"
-            multiline={10}
-            hint="Paragraphs, lists (- or 1.), **bold**, *italic*, `code` and # headings are shown on the handout."
-          />
-          <TextInput name="safetyNotes" label="Safety notes" multiline={4} hint="Shown in a caution box on the handout, with a reminder to follow your institution's lab rules." />
-        </section>
+        <AboutSection template={template} attempts={attempts} onTemplateChange={onTemplateChange} />
+        <ParametersSection template={template} />
+        <QuestionsSection template={template} />
+        <RulesSection timeZone={timeZone} />
+        <HandoutTextSection />
 
         {confirm ? (
           <div ref={confirmRef} tabIndex={-1} role="alertdialog" aria-labelledby="confirm-title" aria-describedby="confirm-text" className="caution-box m-0 outline-none">
@@ -375,29 +271,5 @@ export function LabBuilder({ courseId, lab, notice, latePolicy }: LabBuilderProp
         </div>
       </form>
     </FormProvider>
-  );
-}
-
-/** Explains, from the form as it stands, when students will see expected values (lib/labs/policy.ts's rule). */
-function ExpectedWhen() {
-  const [showExpected, attemptsAllowed, dueAt, closesAt, perDay, floor] = useWatch<BuilderForm, ["showExpected", "attemptsAllowed", "dueAt", "closesAt", "latePenaltyPercentPerDay", "lateFloorPercent"]>({
-    name: ["showExpected", "attemptsAllowed", "dueAt", "closesAt", "latePenaltyPercentPerDay", "lateFloorPercent"],
-  });
-  const date = (t: string) => (t && !Number.isNaN(new Date(t).getTime()) ? new Date(t) : null);
-  const text = expectedWhenText(
-    {
-      showExpected,
-      attemptsAllowed: Number(attemptsAllowed) || 1,
-      dueAt: date(dueAt),
-      closesAt: date(closesAt),
-      latePenaltyPercentPerDay: Number(perDay) || 0,
-      lateFloorPercent: Number(floor) || 0,
-    },
-    (d) => new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", year: "numeric", hour: "2-digit", minute: "2-digit" }).format(d),
-  );
-  return (
-    <p className="mb-4 text-sm text-ink-soft sm:col-span-2" data-testid="expected-when" aria-live="polite">
-      {text} Course staff always see them.
-    </p>
   );
 }

@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { db } from "@/db";
+import { DataTable, type Column } from "@/components/ui/table";
 import { ResendButton } from "@/components/mail/resend-button";
 import { Refusal } from "@/components/shell/refusal";
 import { forPage, refused, requireAdmin } from "@/lib/auth/access";
@@ -9,6 +10,14 @@ export const metadata: Metadata = { title: "Outbox" };
 export const dynamic = "force-dynamic";
 
 const when = (d: Date | null) => (d ? new Date(d).toISOString().slice(0, 16).replace("T", " ") + " UTC" : "—");
+
+type Day = Awaited<ReturnType<typeof outboxSummary>>["days"][number];
+const dayColumns: Column<Day>[] = [
+  { header: "Day", className: "font-mono text-xs", cell: (d) => d.day },
+  { header: "Waiting", numeric: true, cell: (d) => d.queued },
+  { header: "Sent", numeric: true, cell: (d) => d.sent },
+  { header: "Failed", numeric: true, className: (d) => (d.failed ? "font-semibold text-verdict-wrong" : ""), cell: (d) => d.failed },
+];
 
 export default async function OutboxPage() {
   const user = await forPage(requireAdmin(), "/admin/outbox");
@@ -21,36 +30,14 @@ export default async function OutboxPage() {
         Every e-mail the site queued in the last 14 days, by the day it was queued (UTC). A message that still fails after its last retry
         shows below with the mail server&apos;s answer.
       </p>
-      <div className="card mt-6 overflow-x-auto p-0">
-        <table className="min-w-full text-sm">
-          <caption className="sr-only">Messages per day</caption>
-          <thead className="bg-paper-sunk text-left">
-            <tr>
-              <th scope="col" className="px-4 py-2">Day</th>
-              <th scope="col" className="px-4 py-2 text-right">Waiting</th>
-              <th scope="col" className="px-4 py-2 text-right">Sent</th>
-              <th scope="col" className="px-4 py-2 text-right">Failed</th>
-            </tr>
-          </thead>
-          <tbody>
-            {days.length === 0 ? (
-              <tr>
-                <td colSpan={4} className="px-4 py-3 text-ink-soft">
-                  Nothing queued in the last 14 days.
-                </td>
-              </tr>
-            ) : null}
-            {days.map((d) => (
-              <tr key={d.day} className="border-t border-ink/10">
-                <td className="px-4 py-2 font-mono text-xs">{d.day}</td>
-                <td className="px-4 py-2 text-right tabular-nums">{d.queued}</td>
-                <td className="px-4 py-2 text-right tabular-nums">{d.sent}</td>
-                <td className={`px-4 py-2 text-right tabular-nums ${d.failed ? "font-semibold text-verdict-wrong" : ""}`}>{d.failed}</td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
+      <DataTable
+        caption="Messages per day"
+        card="mt-6"
+        columns={dayColumns}
+        rows={days}
+        rowKey={(d) => d.day}
+        empty="Nothing queued in the last 14 days."
+      />
       <h2 className="mt-8 text-xl">Last failures</h2>
       {failures.length === 0 ? <p className="mt-2 text-sm text-ink-soft">No message has failed.</p> : null}
       <ul className="mt-3 space-y-3">

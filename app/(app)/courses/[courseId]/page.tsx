@@ -10,6 +10,7 @@ import { labsForCourse } from "@/lib/labs/service";
 import { roleLabel } from "@/lib/roles";
 import { NextLabDue, OpenLabs, Panel, when } from "@/components/course/home-parts";
 import { Refusal } from "@/components/shell/refusal";
+import { DataTable, type Column } from "@/components/ui/table";
 
 export default async function CoursePage({ params }: { params: Promise<{ courseId: string }> }) {
   const { courseId } = await params;
@@ -107,6 +108,15 @@ async function StudentHome({ access, now }: { access: Parameters<typeof labsForC
   );
 }
 
+type Closing = Awaited<ReturnType<typeof staffHome>>["closing"][number];
+const closingColumns: Column<Closing>[] = [
+  { header: "Lab", cell: (l) => <Link href={`/labs/${l.id}`}>{l.title}</Link> },
+  { header: "Due", cell: (l) => (l.dueAt ? when(l.dueAt) : "no due date") },
+  { header: "Closes", cell: (l) => when(l.closesAt) },
+  { header: "Submitted", numeric: true, className: "font-mono", cell: (l) => l.submitted },
+  { header: "Missing", numeric: true, className: "font-mono", cell: (l) => l.missing },
+];
+
 async function StaffHome({ courseId, joinCode, joiningOpen, now }: { courseId: string; joinCode: string; joiningOpen: boolean; now: Date }) {
   const { reviews, closing, nextLater, regrades, drafts } = await staffHome(courseId, now);
   return (
@@ -136,29 +146,7 @@ async function StaffHome({ courseId, joinCode, joiningOpen, now }: { courseId: s
             ) : null}
           </p>
         ) : (
-          <table className="min-w-full">
-            <caption className="sr-only">Labs that stop taking attempts in the next seven days</caption>
-            <thead className="text-left text-ink-soft">
-              <tr>
-                <th scope="col" className="py-1 pr-3 font-medium">Lab</th>
-                <th scope="col" className="py-1 pr-3 font-medium">Due</th>
-                <th scope="col" className="py-1 pr-3 font-medium">Closes</th>
-                <th scope="col" className="py-1 pr-3 text-right font-medium">Submitted</th>
-                <th scope="col" className="py-1 text-right font-medium">Missing</th>
-              </tr>
-            </thead>
-            <tbody>
-              {closing.map((l) => (
-                <tr key={l.id} className="border-t border-ink/10">
-                  <td className="py-1 pr-3"><Link href={`/labs/${l.id}`}>{l.title}</Link></td>
-                  <td className="py-1 pr-3">{l.dueAt ? when(l.dueAt) : "no due date"}</td>
-                  <td className="py-1 pr-3">{when(l.closesAt)}</td>
-                  <td className="py-1 pr-3 text-right font-mono">{l.submitted}</td>
-                  <td className="py-1 text-right font-mono">{l.missing}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
+          <DataTable caption="Labs that stop taking attempts in the next seven days" className="min-w-full" density="tight" columns={closingColumns} rows={closing} rowKey={(l) => l.id} />
         )}
       </Panel>
       <Panel title="Drafts to finish" id="drafts">

@@ -6,6 +6,7 @@ import { handoutFor } from "@/lib/labs/handout";
 import { closeOf, expectedWhenText, isClosed, isOpen, lateDays } from "@/lib/labs/policy";
 import { attemptsFor, HELD_NOTICE, labAccess, type Lab } from "@/lib/labs/service";
 import { Refusal } from "@/components/shell/refusal";
+import { DataTable, type Column } from "@/components/ui/table";
 import { HoldGrades } from "@/components/mail/hold-grades";
 import { Handout } from "@/components/labs/handout";
 import type { FormMeasured, FormQuestion } from "@/components/labs/submit/read";
@@ -17,6 +18,47 @@ import { VERDICT_ORDER, VERDICTS, points, verdictCounts, verdictSummary } from "
 export const metadata: Metadata = { title: "Lab" };
 
 type Attempts = Awaited<ReturnType<typeof attemptsFor>>;
+
+const attemptColumns: Column<Attempts[number]>[] = [
+  { header: "Student", rowHeader: true, cell: (a) => a.studentName },
+  { header: "Attempt", className: "tabular-nums", cell: (a) => a.number },
+  {
+    header: "Submitted",
+    cell: (a) => (
+      <>
+        {utcDate(a.submittedAt)}
+        {a.lateDays > 0 ? <span className="block text-xs text-verdict-close">{a.lateDays} day{a.lateDays === 1 ? "" : "s"} late</span> : null}
+      </>
+    ),
+  },
+  { header: "Score", className: "tabular-nums", cell: (a) => `${points(a.score)} / ${points(a.maxScore)}` },
+  {
+    header: "Verdicts",
+    cell: (a) => {
+      const counts = verdictCounts(a.results);
+      return (
+        <ul className="flex flex-wrap gap-x-3 gap-y-1" aria-label="Verdicts">
+          {VERDICT_ORDER.filter((k) => counts[k] > 0).map((k) => (
+            <li key={k} className={VERDICTS[k].text}>
+              <span aria-hidden="true">{VERDICTS[k].icon} </span>
+              {counts[k]} {VERDICTS[k].word.toLowerCase()}
+            </li>
+          ))}
+        </ul>
+      );
+    },
+  },
+  { header: "Review", cell: (a) => (a.reviewRequestedAt ? "Requested" : "—") },
+  {
+    header: "Feedback",
+    srOnly: true,
+    cell: (a) => (
+      <Link href={`/attempts/${a.id}`} aria-label={`Feedback on attempt ${a.number} by ${a.studentName}`}>
+        Feedback
+      </Link>
+    ),
+  },
+];
 
 
 export default async function LabPage({ params }: { params: Promise<{ labId: string }> }) {
@@ -182,60 +224,16 @@ function StaffOverview({ lab, attempts, canEdit }: { lab: Lab; attempts: Attempt
       {sorted.length === 0 ? (
         <p className="mt-2 text-sm text-ink-soft">No attempts yet.</p>
       ) : (
-        <div className="card mt-3 overflow-x-auto p-0">
-          <table className="min-w-full text-sm" data-testid="attempts-table">
-            <caption className="sr-only">Attempts at this lab, by student</caption>
-            <thead className="bg-paper-sunk text-left">
-              <tr>
-                <th scope="col" className="px-3 py-2">Student</th>
-                <th scope="col" className="px-3 py-2">Attempt</th>
-                <th scope="col" className="px-3 py-2">Submitted</th>
-                <th scope="col" className="px-3 py-2">Score</th>
-                <th scope="col" className="px-3 py-2">Verdicts</th>
-                <th scope="col" className="px-3 py-2">Review</th>
-                <th scope="col" className="px-3 py-2">
-                  <span className="sr-only">Feedback</span>
-                </th>
-              </tr>
-            </thead>
-            <tbody>
-              {sorted.map((a) => {
-                const counts = verdictCounts(a.results);
-                return (
-                  <tr key={a.id} className="border-t border-ink/10 align-top">
-                    <th scope="row" className="px-3 py-2 text-left font-normal">
-                      {a.studentName}
-                    </th>
-                    <td className="px-3 py-2 tabular-nums">{a.number}</td>
-                    <td className="px-3 py-2">
-                      {utcDate(a.submittedAt)}
-                      {a.lateDays > 0 ? <span className="block text-xs text-verdict-close">{a.lateDays} day{a.lateDays === 1 ? "" : "s"} late</span> : null}
-                    </td>
-                    <td className="px-3 py-2 tabular-nums">
-                      {points(a.score)} / {points(a.maxScore)}
-                    </td>
-                    <td className="px-3 py-2">
-                      <ul className="flex flex-wrap gap-x-3 gap-y-1" aria-label="Verdicts">
-                        {VERDICT_ORDER.filter((k) => counts[k] > 0).map((k) => (
-                          <li key={k} className={VERDICTS[k].text}>
-                            <span aria-hidden="true">{VERDICTS[k].icon} </span>
-                            {counts[k]} {VERDICTS[k].word.toLowerCase()}
-                          </li>
-                        ))}
-                      </ul>
-                    </td>
-                    <td className="px-3 py-2">{a.reviewRequestedAt ? "Requested" : "—"}</td>
-                    <td className="px-3 py-2">
-                      <Link href={`/attempts/${a.id}`} aria-label={`Feedback on attempt ${a.number} by ${a.studentName}`}>
-                        Feedback
-                      </Link>
-                    </td>
-                  </tr>
-                );
-              })}
-            </tbody>
-          </table>
-        </div>
+        <DataTable
+          caption="Attempts at this lab, by student"
+          card="mt-3"
+          testId="attempts-table"
+          density="medium"
+          columns={attemptColumns}
+          rows={sorted}
+          rowKey={(a) => a.id}
+          rowProps={() => ({ className: "align-top" })}
+        />
       )}
     </>
   );

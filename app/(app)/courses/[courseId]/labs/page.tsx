@@ -5,6 +5,7 @@ import { templates } from "@/lib/grader";
 import { closeOf } from "@/lib/labs/policy";
 import { labsForCourse } from "@/lib/labs/service";
 import { Refusal } from "@/components/shell/refusal";
+import { DataTable, type Column } from "@/components/ui/table";
 import { labState, STATE_LABEL } from "@/lib/labs/schedule";
 
 export const metadata: Metadata = { title: "Bench labs" };
@@ -16,6 +17,61 @@ const NOTICES: Record<string, string> = {
 function when(d: Date | null): string {
   if (!d) return "—";
   return new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", year: "numeric", hour: "2-digit", minute: "2-digit", timeZoneName: "short" }).format(d);
+}
+
+type Row = { lab: Awaited<ReturnType<typeof labsForCourse>>[number]; closes: Date | null; state: ReturnType<typeof labState> };
+
+function labColumns(staff: boolean, instructor: boolean): Column<Row>[] {
+  const columns: Column<Row>[] = [
+    {
+      header: "Lab",
+      cell: ({ lab }) => (
+        <>
+          {lab.status === "published" ? <Link href={`/labs/${lab.id}`}>{lab.title}</Link> : <span className="font-medium">{lab.title}</span>}
+          <span className="block text-xs text-ink-faint">{templates[lab.templateKey]?.title}</span>
+        </>
+      ),
+    },
+    { header: "Opens", className: "whitespace-nowrap", cell: ({ lab }) => when(lab.opensAt) },
+    { header: "Due", className: "whitespace-nowrap", cell: ({ lab }) => when(lab.dueAt) },
+    { header: "Closes", className: "whitespace-nowrap", cellProps: () => ({ "data-testid": "lab-closes" }), cell: ({ closes }) => (closes ? when(closes) : "Never") },
+    {
+      header: "State",
+      cell: ({ lab, state }) => (
+        <>
+          {staff && lab.status === "draft" ? (
+            <span className="rounded-full border border-ink/30 px-2 py-0.5 text-xs font-semibold">Draft</span>
+          ) : (
+            <span className="rounded-full bg-paper-sunk px-2 py-0.5 text-xs font-semibold" data-state={state}>
+              {STATE_LABEL[state]}
+            </span>
+          )}
+          {staff && lab.status === "published" ? <span className="ml-1 text-xs text-ink-faint">published</span> : null}
+        </>
+      ),
+    },
+  ];
+  if (staff) {
+    columns.push({
+      header: "Actions",
+      srOnly: true,
+      className: "whitespace-nowrap",
+      cell: ({ lab }) => (
+        <>
+          {instructor ? (
+            <Link href={`/labs/${lab.id}/edit`} aria-label={`Edit ${lab.title}`}>
+              Edit
+            </Link>
+          ) : null}
+          {instructor ? " · " : null}
+          <Link href={`/labs/${lab.id}/preview`} aria-label={`Preview ${lab.title}`}>
+            Preview
+          </Link>
+        </>
+      ),
+    });
+  }
+  return columns;
 }
 
 export default async function LabsPage({ params, searchParams }: { params: Promise<{ courseId: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> }) {
@@ -54,65 +110,18 @@ export default async function LabsPage({ params, searchParams }: { params: Promi
       {labs.length === 0 ? (
         <p className="card mt-6">{staff ? "No labs yet." : "No labs are published yet."}</p>
       ) : (
-        <div className="card mt-6 overflow-x-auto p-0">
-          <table className="min-w-full text-sm" data-testid="labs-table">
-            <caption className="sr-only">Labs of {access.course.title}</caption>
-            <thead className="bg-paper-sunk text-left">
-              <tr>
-                <th scope="col" className="px-4 py-2">Lab</th>
-                <th scope="col" className="px-4 py-2">Opens</th>
-                <th scope="col" className="px-4 py-2">Due</th>
-                <th scope="col" className="px-4 py-2">Closes</th>
-                <th scope="col" className="px-4 py-2">State</th>
-                {staff ? (
-                  <th scope="col" className="px-4 py-2">
-                    <span className="sr-only">Actions</span>
-                  </th>
-                ) : null}
-              </tr>
-            </thead>
-            <tbody>
-              {labs.map((lab) => {
-                const closes = closeOf(lab);
-                const state = labState({ ...lab, closesAt: closes }, now);
-                return (
-                  <tr key={lab.id} className="border-t border-ink/10 align-top" data-lab={lab.id}>
-                    <td className="px-4 py-2">
-                      {lab.status === "published" ? <Link href={`/labs/${lab.id}`}>{lab.title}</Link> : <span className="font-medium">{lab.title}</span>}
-                      <span className="block text-xs text-ink-faint">{templates[lab.templateKey]?.title}</span>
-                    </td>
-                    <td className="px-4 py-2 whitespace-nowrap">{when(lab.opensAt)}</td>
-                    <td className="px-4 py-2 whitespace-nowrap">{when(lab.dueAt)}</td>
-                    <td className="px-4 py-2 whitespace-nowrap" data-testid="lab-closes">{closes ? when(closes) : "Never"}</td>
-                    <td className="px-4 py-2">
-                      {staff && lab.status === "draft" ? (
-                        <span className="rounded-full border border-ink/30 px-2 py-0.5 text-xs font-semibold">Draft</span>
-                      ) : (
-                        <span className="rounded-full bg-paper-sunk px-2 py-0.5 text-xs font-semibold" data-state={state}>
-                          {STATE_LABEL[state]}
-                        </span>
-                      )}
-                      {staff && lab.status === "published" ? <span className="ml-1 text-xs text-ink-faint">published</span> : null}
-                    </td>
-                    {staff ? (
-                      <td className="px-4 py-2 whitespace-nowrap">
-                        {instructor ? (
-                          <Link href={`/labs/${lab.id}/edit`} aria-label={`Edit ${lab.title}`}>
-                            Edit
-                          </Link>
-                        ) : null}
-                        {instructor ? " · " : null}
-                        <Link href={`/labs/${lab.id}/preview`} aria-label={`Preview ${lab.title}`}>
-                          Preview
-                        </Link>
-                      </td>
-                    ) : null}
-                  </tr>
-                );
-              })}
-            </tbody>
-          </table>
-        </div>
+        <DataTable
+          caption={`Labs of ${access.course.title}`}
+          card="mt-6"
+          testId="labs-table"
+          columns={labColumns(staff, instructor)}
+          rows={labs.map((lab) => {
+            const closes = closeOf(lab);
+            return { lab, closes, state: labState({ ...lab, closesAt: closes }, now) };
+          })}
+          rowKey={(r) => r.lab.id}
+          rowProps={(r) => ({ className: "align-top", "data-lab": r.lab.id })}
+        />
       )}
     </>
   );
