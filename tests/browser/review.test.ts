@@ -2,18 +2,18 @@
 // teaching assistant opens the queue from the course page, opens the request, changes one question's
 // points with a reason and answers; the student then sees the new score, the answer and the timeline.
 // The lab and the attempt are made here through the API on a fixed circuit (5 V, 470 Ω, 10 Ω), so the
-// check values are Ohm's law by hand (DOMAIN.md §2): indicated 5/480 A = 10.4167 mA, burden 0.10417 V.
+// check values are Ohm's law by hand (lib/grader/PHYSICS.md §2): indicated 5/480 A = 10.4167 mA, burden 0.10417 V.
 import { AxeBuilder } from "@axe-core/playwright";
 import type { Browser, BrowserContext, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { baseURL, demo, launch, newPage, signIn } from "./harness";
+import { attemptWithReview, fixedCircuitLab, publishedLab } from "../http/fixtures";
 
 let browser: Browser;
 let ta: { context: BrowserContext; page: Page };
 let student: { context: BrowserContext; page: Page };
 let courseId: string;
 let attemptId: string;
-const DAY = 24 * 3600 * 1000;
 const TITLE = `Review lab ${Date.now().toString(36)}`;
 
 async function apiJson(context: BrowserContext, method: "GET" | "POST" | "PATCH", url: string, data?: unknown) {
@@ -31,36 +31,9 @@ beforeAll(async () => {
   await signIn(student.page, demo.student);
   const courses = await apiJson(instructor.context, "GET", "/api/courses");
   courseId = (courses.body.courses as { id: string; code: string }[]).find((c) => c.code === "ELM-214")!.id;
-  const created = await apiJson(instructor.context, "POST", `/api/courses/${courseId}/labs`, {
-    title: TITLE,
-    templateKey: "shunt-burden",
-    spec: { template: "shunt-burden", parameters: { supplyVoltage: { mode: "fixed", value: 5 }, loadResistance: { mode: "fixed", value: 470 }, shuntResistance: { mode: "fixed", value: 10 } } },
-    questions: [
-      { quantity: "indicatedCurrent", kind: "prediction", points: 4 },
-      { quantity: "trueCurrent", kind: "prediction", points: 3 },
-      { quantity: "burdenVoltage", kind: "prediction", points: 3 },
-    ],
-    policy: { relativeTolerance: 0.01 },
-    attemptsAllowed: 3,
-    counting: "best",
-    opensAt: new Date(Date.now() - DAY).toISOString(),
-    dueAt: new Date(Date.now() + 7 * DAY).toISOString(),
-    latePenaltyPercentPerDay: 0,
-    lateFloorPercent: 0,
-    showExpected: "after_attempt",
-    instructions: "Measure it.",
-    safetyNotes: "Set the supply's current limit first.",
-  });
-  expect(created.status).toBe(201);
-  const labId = created.body.lab.id as string;
-  expect((await apiJson(instructor.context, "PATCH", `/api/labs/${labId}`, { status: "published" })).status).toBe(200);
+  const labId = await publishedLab((m, url, data) => apiJson(instructor.context, m, url, data), courseId, fixedCircuitLab({ title: TITLE }));
   await instructor.context.close();
-  // indicated current right (4), true current wrong (0 of 3), burden right (3): 7 of 10
-  const sub = await apiJson(student.context, "POST", `/api/labs/${labId}/attempts`, { idempotencyKey: `rv-${Date.now()}`, readings: { q1: "10.42 mA", q2: "20 mA", q3: "0.1042 V" } });
-  expect(sub.status).toBe(201);
-  expect(sub.body.attempt.score).toBe(7);
-  attemptId = sub.body.attempt.id;
-  expect((await apiJson(student.context, "POST", `/api/attempts/${attemptId}/review`, { message: "Question 2: I think my method was right." })).status).toBe(201);
+  attemptId = await attemptWithReview((m, url, data) => apiJson(student.context, m, url, data), labId, "Question 2: I think my method was right.");
 });
 
 afterAll(async () => {

@@ -3,9 +3,7 @@
 // (lib/grader/PHYSICS.md §2: I = Vs/(RL + Rsh), V_B = I·Rsh), independently of lib/grader.
 import { beforeAll, describe, expect, it } from "vitest";
 import { baseURL, Client } from "../support/http";
-import { clientFor, courseWithPeople } from "./fixtures";
-import { e2eDb, uniqueEmail } from "../support/db";
-import { hash } from "@node-rs/argon2";
+import { addPerson, clientFor, courseWithPeople, fixedCircuitLab, publishedLab as publishedLabAs, sendAs } from "./fixtures";
 
 let f: Awaited<ReturnType<typeof courseWithPeople>>;
 let as: Record<"instructor" | "ta" | "student" | "outsider" | "student2", Client>;
@@ -13,10 +11,10 @@ const anon = new Client();
 
 const DAY = 24 * 3600 * 1000;
 
+/** A drawn circuit (every student's own values) with a bench question and a late penalty. */
 function burdenLab(over: Record<string, unknown> = {}) {
-  return {
+  return fixedCircuitLab({
     title: "Burden check",
-    templateKey: "shunt-burden",
     spec: {
       template: "shunt-burden",
       parameters: {
@@ -31,27 +29,15 @@ function burdenLab(over: Record<string, unknown> = {}) {
       { quantity: "trueCurrent", kind: "prediction", points: 3 },
       { quantity: "burdenVoltage", kind: "bench", points: 3 },
     ],
-    policy: { relativeTolerance: 0.01 },
-    attemptsAllowed: 3,
-    counting: "best",
-    opensAt: new Date(Date.now() - DAY).toISOString(),
-    dueAt: new Date(Date.now() + 7 * DAY).toISOString(),
     latePenaltyPercentPerDay: 10,
     lateFloorPercent: 50,
-    showExpected: "after_attempt",
-    instructions: "Measure it.",
     safetyNotes: "Set the current limit first.",
     ...over,
-  };
+  });
 }
 
-async function publishedLab(over: Record<string, unknown> = {}): Promise<string> {
-  const created = await as.instructor.post(`/api/courses/${f.courseId}/labs`, burdenLab(over));
-  expect(created.status).toBe(201);
-  const id = created.body.lab.id as string;
-  const pub = await as.instructor.json(`/api/labs/${id}`, { method: "PATCH", headers: { "content-type": "application/json" }, body: JSON.stringify({ status: "published" }) });
-  expect(pub.status).toBe(200);
-  return id;
+function publishedLab(over: Record<string, unknown> = {}): Promise<string> {
+  return publishedLabAs(sendAs(as.instructor), f.courseId, burdenLab(over));
 }
 
 /** Independent arithmetic on the student's own values. */
@@ -69,11 +55,7 @@ function key() {
 
 beforeAll(async () => {
   f = await courseWithPeople();
-  const db = e2eDb();
-  const email = uniqueEmail("student2");
-  const u = await db.insertInto("users").values({ email, name: "Second student", password_hash: await hash("fixture-password-1") }).returning("id").executeTakeFirstOrThrow();
-  await db.insertInto("memberships").values({ course_id: f.courseId, user_id: u.id, role: "student" }).execute();
-  await db.destroy();
+  const email = (await addPerson("student2", { courseId: f.courseId, name: "Second student" })).email;
   as = {
     instructor: await clientFor(f.people.instructor.email),
     ta: await clientFor(f.people.ta.email),

@@ -2,7 +2,7 @@
 import Papa from "papaparse";
 import { beforeAll, describe, expect, it } from "vitest";
 import type { Client } from "../support/http";
-import { clientFor, courseWithPeople } from "./fixtures";
+import { clientFor, courseWithPeople, fixedCircuit, fixedCircuitLab, publishedLab, sendAs } from "./fixtures";
 
 let f: Awaited<ReturnType<typeof courseWithPeople>>;
 let as: Record<"instructor" | "ta" | "student", Client>;
@@ -11,30 +11,18 @@ let labId: string;
 beforeAll(async () => {
   f = await courseWithPeople();
   as = { instructor: await clientFor(f.people.instructor.email), ta: await clientFor(f.people.ta.email), student: await clientFor(f.people.student.email) };
-  const created = await as.instructor.post(`/api/courses/${f.courseId}/labs`, {
-    title: "Parts lab",
-    templateKey: "shunt-burden",
-    spec: {
-      template: "shunt-burden",
-      parameters: {
-        supplyVoltage: { mode: "fixed", value: 5 },
-        loadResistance: { mode: "fixed", value: 470, tolerancePercent: 1 },
-        shuntResistance: { mode: "fixed", value: 10, tolerancePercent: 5 },
-      },
-    },
-    questions: [{ quantity: "trueCurrent", kind: "prediction", points: 1 }],
-    attemptsAllowed: 1,
-    counting: "best",
-    latePenaltyPercentPerDay: 0,
-    lateFloorPercent: 0,
-    showExpected: "after_attempt",
-    opensAt: null,
-    dueAt: null,
-  });
-  expect(created.status).toBe(201);
-  labId = created.body.lab.id;
-  const pub = await as.instructor.json(`/api/labs/${labId}`, { method: "PATCH", headers: { "content-type": "application/json" }, body: JSON.stringify({ status: "published" }) });
-  expect(pub.status).toBe(200);
+  labId = await publishedLab(
+    sendAs(as.instructor),
+    f.courseId,
+    fixedCircuitLab({
+      title: "Parts lab",
+      spec: fixedCircuit({ load: 1, shunt: 5 }),
+      questions: [{ quantity: "trueCurrent", kind: "prediction", points: 1 }],
+      attemptsAllowed: 1,
+      opensAt: null,
+      dueAt: null,
+    }),
+  );
 });
 
 describe("GET /api/labs/{labId}/parts", () => {

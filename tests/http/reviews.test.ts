@@ -5,12 +5,11 @@
 // The circuit is fixed (5 V, 470 Ω load, 10 Ω shunt), so the expected values are Ohm's law done by hand
 // (lib/grader/PHYSICS.md §2): indicated current 5/480 A = 10.4167 mA, burden 10.4167 mA × 10 Ω = 0.10417 V.
 import { beforeAll, describe, expect, it } from "vitest";
-import { hash } from "@node-rs/argon2";
 import type { Client } from "../support/http";
-import { e2eDb, uniqueEmail } from "../support/db";
-import { clientFor, courseWithPeople, PASSWORD } from "./fixtures";
+import { e2eDb } from "../support/db";
+import { addPerson, attemptWithReview, clientFor, courseWithPeople, fixedCircuitLab, publishedLab, sendAs } from "./fixtures";
 
-const DAY = 24 * 3600 * 1000;
+const lab = fixedCircuitLab();
 
 let f: Awaited<ReturnType<typeof courseWithPeople>>;
 let other: Awaited<ReturnType<typeof courseWithPeople>>;
@@ -18,41 +17,11 @@ let as: Record<"instructor" | "ta" | "student" | "student2" | "outsider" | "othe
 let labId: string;
 let attemptId: string;
 
-const lab = {
-  title: "Burden on a fixed circuit",
-  templateKey: "shunt-burden",
-  spec: {
-    template: "shunt-burden",
-    parameters: {
-      supplyVoltage: { mode: "fixed", value: 5 },
-      loadResistance: { mode: "fixed", value: 470 },
-      shuntResistance: { mode: "fixed", value: 10 },
-    },
-  },
-  questions: [
-    { quantity: "indicatedCurrent", kind: "prediction", points: 4 },
-    { quantity: "trueCurrent", kind: "prediction", points: 3 },
-    { quantity: "burdenVoltage", kind: "prediction", points: 3 },
-  ],
-  policy: { relativeTolerance: 0.01 },
-  attemptsAllowed: 3,
-  counting: "best",
-  opensAt: new Date(Date.now() - DAY).toISOString(),
-  dueAt: new Date(Date.now() + 7 * DAY).toISOString(),
-  latePenaltyPercentPerDay: 0,
-  lateFloorPercent: 0,
-  showExpected: "after_attempt",
-  instructions: "Measure it.",
-  safetyNotes: "Set the supply's current limit first.",
-};
-
 beforeAll(async () => {
   f = await courseWithPeople();
   other = await courseWithPeople();
+  const email = (await addPerson("student2", { courseId: f.courseId, name: "Second student", section: "B" })).email;
   const db = e2eDb();
-  const email = uniqueEmail("student2");
-  const u = await db.insertInto("users").values({ email, name: "Second student", password_hash: await hash(PASSWORD) }).returning("id").executeTakeFirstOrThrow();
-  await db.insertInto("memberships").values({ course_id: f.courseId, user_id: u.id, role: "student", section: "B" }).execute();
   await db.updateTable("memberships").set({ section: "A" }).where("course_id", "=", f.courseId).where("user_id", "=", f.people.student.id).execute();
   await db.destroy();
   as = {
@@ -63,23 +32,8 @@ beforeAll(async () => {
     outsider: await clientFor(f.people.outsider.email),
     otherTa: await clientFor(other.people.ta.email),
   };
-  const created = await as.instructor.post(`/api/courses/${f.courseId}/labs`, lab);
-  expect(created.status).toBe(201);
-  labId = created.body.lab.id;
-  const pub = await as.instructor.json(`/api/labs/${labId}`, { method: "PATCH", headers: { "content-type": "application/json" }, body: JSON.stringify({ status: "published" }) });
-  expect(pub.status).toBe(200);
-  const h = await as.student.json(`/api/labs/${labId}/handout`);
-  const ids = (h.body.handout.questions as { id: string; quantity: string }[]).map((q) => q.id);
-  // indicated current right (4), true current wrong (0 of 3), burden right (3): 7 of 10
-  const sub = await as.student.post(`/api/labs/${labId}/attempts`, {
-    idempotencyKey: `rv-${Date.now()}`,
-    readings: { [ids[0]]: "10.42 mA", [ids[1]]: "20 mA", [ids[2]]: "0.1042 V" },
-  });
-  expect(sub.status).toBe(201);
-  attemptId = sub.body.attempt.id;
-  expect(sub.body.attempt.score).toBe(7);
-  const asked = await as.student.post(`/api/attempts/${attemptId}/review`, { message: "I think question 2 used the right method." });
-  expect(asked.status).toBe(201);
+  labId = await publishedLab(sendAs(as.instructor), f.courseId, lab);
+  attemptId = await attemptWithReview(sendAs(as.student), labId, "I think question 2 used the right method.");
 });
 
 describe("who may use the review routes", () => {

@@ -2,11 +2,10 @@
 // and a removed student's attempts coming back when they are added again.
 import { beforeAll, describe, expect, it } from "vitest";
 import type { Client } from "../support/http";
-import { clientFor, courseWithPeople } from "./fixtures";
+import { clientFor, courseWithPeople, fixedCircuit, fixedCircuitLab, publishedLab, sendAs } from "./fixtures";
 
 let f: Awaited<ReturnType<typeof courseWithPeople>>;
 let as: Record<"instructor" | "ta" | "student" | "outsider", Client>;
-const DAY = 24 * 3600 * 1000;
 
 const send = (c: Client, method: string, path: string, body?: unknown) =>
   c.json(path, { method, headers: { "content-type": "application/json" }, body: body === undefined ? undefined : JSON.stringify(body) });
@@ -51,29 +50,17 @@ describe("PATCH and DELETE /api/courses/{courseId}/members/{userId}", () => {
   });
 
   it("changes a section and role; a removed student's attempts show again when they return", async () => {
-    const created = await as.instructor.post(`/api/courses/${f.courseId}/labs`, {
-      title: "Roster lab",
-      templateKey: "shunt-burden",
-      spec: {
-        template: "shunt-burden",
-        parameters: {
-          supplyVoltage: { mode: "fixed", value: 5 },
-          loadResistance: { mode: "fixed", value: 470, tolerancePercent: 1 },
-          shuntResistance: { mode: "fixed", value: 10, tolerancePercent: 1 },
-        },
-      },
-      questions: [{ quantity: "trueCurrent", kind: "prediction", points: 2 }],
-      attemptsAllowed: 3,
-      counting: "best",
-      latePenaltyPercentPerDay: 10,
-      lateFloorPercent: 50,
-      showExpected: "after_attempt",
-      opensAt: new Date(Date.now() - DAY).toISOString(),
-      dueAt: new Date(Date.now() + 7 * DAY).toISOString(),
-    });
-    expect(created.status).toBe(201);
-    const labId = created.body.lab.id;
-    expect((await send(as.instructor, "PATCH", `/api/labs/${labId}`, { status: "published" })).status).toBe(200);
+    const labId = await publishedLab(
+      sendAs(as.instructor),
+      f.courseId,
+      fixedCircuitLab({
+        title: "Roster lab",
+        spec: fixedCircuit({ load: 1, shunt: 1 }),
+        questions: [{ quantity: "trueCurrent", kind: "prediction", points: 2 }],
+        latePenaltyPercentPerDay: 10,
+        lateFloorPercent: 50,
+      }),
+    );
     const handout = await as.student.json(`/api/labs/${labId}/handout`);
     const q = handout.body.handout.questions[0].id;
     // I = V / (RL + Rsh) = 5 / 480 = 10.4 mA (Ohm's law)
