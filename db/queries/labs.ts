@@ -1,95 +1,86 @@
-// Labs and the per-student circuit values drawn for them.
-import type { Insertable, Kysely, Transaction, Updateable } from "kysely";
-import type { Database, LabStatus, LabsTable, ShowExpected } from "../types";
+// Labs and the per-student circuit values drawn for them. This module reads and writes them in camelCase
+// through Kysely's CamelCasePlugin (labs_db below), so a lab's fields have the same names here as in the
+// lab schema (lib/validation/labs.ts) and no column list or mapper is kept by hand. The plugin is applied
+// to this module's queries only: the rest of the project's queries are written against the snake_case
+// tables of db/types.ts, and a global plugin would rename every one of them.
+import { CamelCasePlugin, type Insertable, type Kysely, type Transaction, type Updateable } from "kysely";
+import { labFields, type LabData } from "../../lib/validation/labs";
+import type { Database, LabStatus, LabsTable, LabVariantsTable } from "../types";
 
 type Db = Kysely<Database> | Transaction<Database>;
 
+type CamelName<S extends string> = S extends `${infer Head}_${infer Tail}` ? `${Head}${Capitalize<CamelName<Tail>>}` : S;
+type Camel<T> = { [K in keyof T as CamelName<K & string>]: T[K] };
+
+/** The labs tables as this module sees them: db/types.ts's tables with camelCase names. */
+interface LabsDatabase {
+  labs: Camel<LabsTable>;
+  labVariants: Camel<LabVariantsTable>;
+}
+
+// JSON columns (spec, questions, policy, params) are read as stored: their keys are the grader's, not columns.
+const camelCase = new CamelCasePlugin({ maintainNestedObjectKeys: true });
+
+/** The same connection or transaction, speaking camelCase. */
+function labsDb(db: Db): Kysely<LabsDatabase> {
+  return db.withPlugin(camelCase) as unknown as Kysely<LabsDatabase>;
+}
+
+// A lab as the app reads it: the lab schema's fields (lib/validation/labs.ts) and the lab's own state. The
+// columns only copying and holding grades use (created_by, grades_released_at, weight) are left out.
 const LAB_COLUMNS = [
   "id",
-  "course_id as courseId",
-  "title",
-  "template_key as templateKey",
+  "courseId",
   "status",
-  "spec",
-  "questions",
-  "policy",
-  "attempts_allowed as attemptsAllowed",
-  "counting",
-  "opens_at as opensAt",
-  "due_at as dueAt",
-  "closes_at as closesAt",
-  "late_penalty_percent_per_day as latePenaltyPercentPerDay",
-  "late_floor_percent as lateFloorPercent",
-  "show_expected as showExpected",
-  "instructions",
-  "safety_notes as safetyNotes",
   "version",
-  "created_at as createdAt",
-  "updated_at as updatedAt",
-  "published_at as publishedAt",
-  "grades_held as gradesHeld",
+  "createdAt",
+  "updatedAt",
+  "publishedAt",
+  "gradesHeld",
+  ...(Object.keys(labFields) as (keyof typeof labFields)[]),
 ] as const;
 
 export type LabRow = Awaited<ReturnType<typeof findLab>> & {};
 
 export async function findLab(db: Db, labId: string) {
-  return db.selectFrom("labs").select(LAB_COLUMNS).where("id", "=", labId).executeTakeFirst();
+  return labsDb(db).selectFrom("labs").select(LAB_COLUMNS).where("id", "=", labId).executeTakeFirst();
 }
 
 export async function listLabs(db: Db, courseId: string, opts: { publishedOnly: boolean }) {
-  let q = db.selectFrom("labs").select(LAB_COLUMNS).where("course_id", "=", courseId);
+  let q = labsDb(db).selectFrom("labs").select(LAB_COLUMNS).where("courseId", "=", courseId);
   if (opts.publishedOnly) q = q.where("status", "=", "published");
-  return q.orderBy("due_at", "asc").orderBy("created_at", "asc").execute();
+  return q.orderBy("dueAt", "asc").orderBy("createdAt", "asc").execute();
 }
 
-export interface LabWrite {
-  title: string;
-  templateKey: string;
-  spec: unknown;
-  questions: unknown;
-  policy: unknown;
-  attemptsAllowed: number;
-  counting: "best" | "last";
-  opensAt: Date | null;
-  dueAt: Date | null;
-  closesAt?: Date | null;
-  latePenaltyPercentPerDay: number;
-  lateFloorPercent: number;
-  showExpected: ShowExpected;
-  instructions: string;
-  safetyNotes: string;
-}
+/**
+ * What is written for a lab: the lab schema's output (LabData), each question with its id (lib/labs/grading.ts
+ * withIds). The close may be left out: no explicit close.
+ */
+export type LabWrite = Omit<LabData, "questions" | "closesAt"> & {
+  questions: (LabData["questions"][number] & { id: string })[];
+  closesAt?: LabData["closesAt"];
+};
 
-function columns(l: Partial<LabWrite>) {
-  const out: Record<string, unknown> = {};
-  if (l.title !== undefined) out.title = l.title;
-  if (l.templateKey !== undefined) out.template_key = l.templateKey;
-  if (l.spec !== undefined) out.spec = JSON.stringify(l.spec);
-  if (l.questions !== undefined) out.questions = JSON.stringify(l.questions);
-  if (l.policy !== undefined) out.policy = JSON.stringify(l.policy);
-  if (l.attemptsAllowed !== undefined) out.attempts_allowed = l.attemptsAllowed;
-  if (l.counting !== undefined) out.counting = l.counting;
-  if (l.opensAt !== undefined) out.opens_at = l.opensAt;
-  if (l.dueAt !== undefined) out.due_at = l.dueAt;
-  if (l.closesAt !== undefined) out.closes_at = l.closesAt;
-  if (l.latePenaltyPercentPerDay !== undefined) out.late_penalty_percent_per_day = l.latePenaltyPercentPerDay;
-  if (l.lateFloorPercent !== undefined) out.late_floor_percent = l.lateFloorPercent;
-  if (l.showExpected !== undefined) out.show_expected = l.showExpected;
-  if (l.instructions !== undefined) out.instructions = l.instructions;
-  if (l.safetyNotes !== undefined) out.safety_notes = l.safetyNotes;
-  return out;
+/** The JSON fields as JSON text; a field left out stays out (Kysely skips undefined values). */
+function jsonColumns(l: Partial<Pick<LabWrite, "spec" | "questions" | "policy">>) {
+  const json = (v: unknown) => (v === undefined ? undefined : JSON.stringify(v));
+  return { spec: json(l.spec), questions: json(l.questions), policy: json(l.policy) };
 }
 
 export async function insertLab(db: Db, courseId: string, createdBy: string, lab: LabWrite, status: LabStatus = "draft") {
-  const row = await db
+  const { spec, questions, policy, ...plain } = lab;
+  const row = await labsDb(db)
     .insertInto("labs")
     .values({
-      ...columns(lab),
-      course_id: courseId,
-      created_by: createdBy,
+      ...plain,
+      spec: JSON.stringify(spec),
+      questions: JSON.stringify(questions),
+      policy: JSON.stringify(policy),
+      courseId,
+      createdBy,
       status,
-      published_at: status === "published" ? new Date() : null,
-    } as Insertable<LabsTable>)
+      publishedAt: status === "published" ? new Date() : null,
+    })
     .returning("id")
     .executeTakeFirstOrThrow();
   return row.id;
@@ -97,43 +88,39 @@ export async function insertLab(db: Db, courseId: string, createdBy: string, lab
 
 /** Updates the given fields; a change to what grading depends on bumps the lab's version. */
 export async function updateLab(db: Db, labId: string, patch: Partial<LabWrite> & { status?: LabStatus }, bumpVersion: boolean) {
-  const values: Record<string, unknown> = { ...columns(patch), updated_at: new Date() };
-  if (patch.status) {
-    values.status = patch.status;
-    if (patch.status === "published") values.published_at = new Date();
+  const { status, spec, questions, policy, ...plain } = patch;
+  const values: Updateable<Camel<LabsTable>> = { ...plain, ...jsonColumns({ spec, questions, policy }), updatedAt: new Date() };
+  if (status) {
+    values.status = status;
+    if (status === "published") values.publishedAt = new Date();
   }
-  await db
+  await labsDb(db)
     .updateTable("labs")
-    .set((eb) => ({ ...(values as Updateable<LabsTable>), ...(bumpVersion ? { version: eb("version", "+", 1) } : {}) }))
+    .set((eb) => ({ ...values, ...(bumpVersion ? { version: eb("version", "+", 1) } : {}) }))
     .where("id", "=", labId)
     .execute();
 }
 
 export async function findVariant(db: Db, labId: string, userId: string) {
-  return db
-    .selectFrom("lab_variants")
-    .select(["seed", "params"])
-    .where("lab_id", "=", labId)
-    .where("user_id", "=", userId)
-    .executeTakeFirst();
+  return labsDb(db).selectFrom("labVariants").select(["seed", "params"]).where("labId", "=", labId).where("userId", "=", userId).executeTakeFirst();
 }
 
 /** Stores the drawn values unless another request stored them first; returns what is stored. */
 export async function storeVariant(db: Db, labId: string, userId: string, seed: string, params: unknown) {
-  await db
-    .insertInto("lab_variants")
-    .values({ lab_id: labId, user_id: userId, seed, params: JSON.stringify(params) })
-    .onConflict((oc) => oc.columns(["lab_id", "user_id"]).doNothing())
+  await labsDb(db)
+    .insertInto("labVariants")
+    .values({ labId, userId, seed, params: JSON.stringify(params) })
+    .onConflict((oc) => oc.columns(["labId", "userId"]).doNothing())
     .execute();
   return (await findVariant(db, labId, userId))!;
 }
 
 export async function deleteVariants(db: Db, labId: string) {
-  await db.deleteFrom("lab_variants").where("lab_id", "=", labId).execute();
+  await labsDb(db).deleteFrom("labVariants").where("labId", "=", labId).execute();
 }
 
 // Columns a copied lab starts afresh rather than copying.
-const FRESH = new Set(["id", "course_id", "status", "version", "created_by", "created_at", "updated_at", "published_at", "grades_released_at"]);
+const FRESH = new Set(["id", "courseId", "status", "version", "createdBy", "createdAt", "updatedAt", "publishedAt", "gradesReleasedAt"]);
 
 /**
  * Copies every lab of a course into another as drafts, moving each date column (opens, due, close…) by
@@ -141,34 +128,35 @@ const FRESH = new Set(["id", "course_id", "status", "version", "created_by", "cr
  * as JSON. Variants, attempts and regrades are not copied.
  */
 export async function copyLabs(db: Db, fromCourseId: string, toCourseId: string, createdBy: string, shiftMs: number): Promise<number> {
-  const rows = await db.selectFrom("labs").selectAll().where("course_id", "=", fromCourseId).orderBy("created_at").execute();
+  const ldb = labsDb(db);
+  const rows = await ldb.selectFrom("labs").selectAll().where("courseId", "=", fromCourseId).orderBy("createdAt").execute();
   for (const row of rows) {
-    const values: Record<string, unknown> = { course_id: toCourseId, status: "draft", created_by: createdBy };
+    const values: Record<string, unknown> = { courseId: toCourseId, status: "draft", createdBy };
     for (const [k, v] of Object.entries(row)) {
       if (FRESH.has(k)) continue;
       if (v instanceof Date) values[k] = new Date(v.getTime() + shiftMs);
       else if (v !== null && typeof v === "object") values[k] = JSON.stringify(v);
       else values[k] = v;
     }
-    await db.insertInto("labs").values(values as Insertable<LabsTable>).execute();
+    await ldb.insertInto("labs").values(values as Insertable<Camel<LabsTable>>).execute();
   }
   return rows.length;
 }
 
 /** Every stored circuit of a lab. */
 export async function listVariants(db: Db, labId: string) {
-  return db.selectFrom("lab_variants").select(["user_id as userId", "params"]).where("lab_id", "=", labId).execute();
+  return labsDb(db).selectFrom("labVariants").select(["userId", "params"]).where("labId", "=", labId).execute();
 }
 
 /** Locks the lab's row for the rest of the transaction and reads whether its grades are held. */
 export async function lockLabHold(db: Transaction<Database>, labId: string) {
-  return db.selectFrom("labs").select(["id", "grades_held as gradesHeld", "counting"]).where("id", "=", labId).forUpdate().executeTakeFirst();
+  return labsDb(db).selectFrom("labs").select(["id", "gradesHeld", "counting"]).where("id", "=", labId).forUpdate().executeTakeFirst();
 }
 
 export async function setGradesHeld(db: Db, labId: string, held: boolean, releasedAt: Date | null) {
-  await db
+  await labsDb(db)
     .updateTable("labs")
-    .set(held ? { grades_held: true } : { grades_held: false, grades_released_at: releasedAt })
+    .set(held ? { gradesHeld: true } : { gradesHeld: false, gradesReleasedAt: releasedAt })
     .where("id", "=", labId)
     .execute();
 }

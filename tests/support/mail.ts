@@ -10,6 +10,7 @@ import type { PublicUser } from "@/db/queries/users";
 import type { CourseAccess } from "@/lib/auth/access";
 import { findLab } from "@/db/queries/labs";
 import { toLab, withIds } from "@/lib/labs/grading";
+import type { VariantSpec } from "@/lib/grader";
 
 export function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {
@@ -60,7 +61,7 @@ export async function until<T>(what: () => Promise<T> | T, ok: (v: T) => boolean
 }
 
 /** The fixed circuit the mail tests grade: 3.3 V supply, 1 kΩ load, 10 Ω shunt. */
-export const FIXED_SPEC = {
+export const FIXED_SPEC: VariantSpec = {
   template: "shunt-burden",
   parameters: {
     supplyVoltage: { mode: "fixed", value: 3.3 },
