@@ -1,5 +1,7 @@
-// The SMTP connection. A local server (the stand-in) gets no STARTTLS, as STACK.md notes; timeouts are
-// short so a dead server fails the try quickly and the queue's backoff takes over.
+// The SMTP connection. A local server (the stand-in) offers no AUTH and no STARTTLS, so the client is told
+// to skip TLS there (nodemailer would otherwise try to upgrade, or send an empty login a server that
+// advertises AUTH refuses); timeouts are short so a dead server fails the try quickly and the queue's
+// backoff takes over.
 import nodemailer, { type Transporter } from "nodemailer";
 import { smtpUrl } from "./config";
 
