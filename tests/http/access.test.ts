@@ -1,7 +1,7 @@
 // Every API route answers anonymous callers 401, members without the role 403 and outsiders 404.
 import { beforeAll, describe, expect, it } from "vitest";
 import { Client } from "../support/http";
-import { clientFor, courseWithPeople, PASSWORD } from "./fixtures";
+import { clientsOf, courseWithPeople, PASSWORD } from "./fixtures";
 
 let f: Awaited<ReturnType<typeof courseWithPeople>>;
 let as: Record<"instructor" | "ta" | "student" | "outsider", Client>;
@@ -9,12 +9,7 @@ const anon = new Client();
 
 beforeAll(async () => {
   f = await courseWithPeople();
-  as = {
-    instructor: await clientFor(f.people.instructor.email),
-    ta: await clientFor(f.people.ta.email),
-    student: await clientFor(f.people.student.email),
-    outsider: await clientFor(f.people.outsider.email),
-  };
+  as = await clientsOf(f.people);
 });
 
 describe("GET /api/health", () => {

@@ -3,19 +3,14 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { Client } from "../support/http";
 import { e2eDb } from "../support/db";
-import { clientFor, courseWithPeople } from "./fixtures";
+import { clientFor, clientsOf, courseWithPeople } from "./fixtures";
 
 let f: Awaited<ReturnType<typeof courseWithPeople>>;
 let as: Record<"instructor" | "ta" | "student" | "outsider", Client>;
 
 beforeAll(async () => {
   f = await courseWithPeople();
-  as = {
-    instructor: await clientFor(f.people.instructor.email),
-    ta: await clientFor(f.people.ta.email),
-    student: await clientFor(f.people.student.email),
-    outsider: await clientFor(f.people.outsider.email),
-  };
+  as = await clientsOf(f.people);
 });
 
 const path = () => `/api/courses/${f.courseId}/lessons`;

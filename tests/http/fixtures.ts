@@ -70,6 +70,16 @@ export function serverActionIds(): Record<string, string> {
   return out;
 }
 
+/** A signed-in client for each of the fixture course's people. */
+export async function clientsOf(people: Awaited<ReturnType<typeof courseWithPeople>>["people"]) {
+  return {
+    instructor: await clientFor(people.instructor.email),
+    ta: await clientFor(people.ta.email),
+    student: await clientFor(people.student.email),
+    outsider: await clientFor(people.outsider.email),
+  };
+}
+
 /** One API call as someone: a test Client (sendAs) or a browser context's request (tests/browser). */
 export type Send = (method: "GET" | "POST" | "PATCH", url: string, body?: unknown) => Promise<{ status: number; body: any }>;
 

@@ -3,7 +3,7 @@
 // (lib/grader/PHYSICS.md §2: I = Vs/(RL + Rsh), V_B = I·Rsh), independently of lib/grader.
 import { beforeAll, describe, expect, it } from "vitest";
 import { baseURL, Client } from "../support/http";
-import { addPerson, clientFor, courseWithPeople, fixedCircuitLab, publishedLab as publishedLabAs, sendAs } from "./fixtures";
+import { addPerson, clientsOf, clientFor, courseWithPeople, fixedCircuitLab, publishedLab as publishedLabAs, sendAs } from "./fixtures";
 
 let f: Awaited<ReturnType<typeof courseWithPeople>>;
 let as: Record<"instructor" | "ta" | "student" | "outsider" | "student2", Client>;
@@ -56,13 +56,7 @@ function key() {
 beforeAll(async () => {
   f = await courseWithPeople();
   const email = (await addPerson("student2", { courseId: f.courseId, name: "Second student" })).email;
-  as = {
-    instructor: await clientFor(f.people.instructor.email),
-    ta: await clientFor(f.people.ta.email),
-    student: await clientFor(f.people.student.email),
-    student2: await clientFor(email),
-    outsider: await clientFor(f.people.outsider.email),
-  };
+  as = { ...(await clientsOf(f.people)), student2: await clientFor(email) };
 });
 
 describe("templates and lab authoring", () => {

@@ -5,13 +5,10 @@
 import net from "node:net";
 import type { ChildProcess } from "node:child_process";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { hash } from "@node-rs/argon2";
 import { startNext, waitForHttp } from "../../scripts/lib/server";
-import { e2eDb, uniqueEmail } from "../support/db";
 import type { Client } from "../support/http";
-import { clientFor, courseWithPeople, PASSWORD } from "./fixtures";
+import { addPerson, clientFor, courseWithPeople, fixedCircuitLab, publishedLab, sendAs } from "./fixtures";
 
-const DAY = 24 * 3600 * 1000;
 let f: Awaited<ReturnType<typeof courseWithPeople>>;
 let as: Record<"instructor" | "student" | "student2" | "outsider", Client>;
 let labId: string;
@@ -19,40 +16,18 @@ let attemptId: string;
 
 beforeAll(async () => {
   f = await courseWithPeople();
-  const db = e2eDb();
-  const email = uniqueEmail("student2");
-  try {
-    const u = await db.insertInto("users").values({ email, name: "Second student", password_hash: await hash(PASSWORD) }).returning("id").executeTakeFirstOrThrow();
-    await db.insertInto("memberships").values({ course_id: f.courseId, user_id: u.id, role: "student" }).execute();
-  } finally {
-    await db.destroy();
-  }
+  const { email } = await addPerson("student2", { courseId: f.courseId, name: "Second student" });
   as = {
     instructor: await clientFor(f.people.instructor.email),
     student: await clientFor(f.people.student.email),
     student2: await clientFor(email),
     outsider: await clientFor(f.people.outsider.email),
   };
-  const created = await as.instructor.post(`/api/courses/${f.courseId}/labs`, {
-    title: "Not-found check",
-    templateKey: "shunt-burden",
-    spec: { template: "shunt-burden", parameters: { supplyVoltage: { mode: "fixed", value: 5 }, loadResistance: { mode: "fixed", value: 470 }, shuntResistance: { mode: "fixed", value: 10 } } },
-    questions: [{ quantity: "indicatedCurrent", kind: "prediction", points: 4 }],
-    policy: { relativeTolerance: 0.01 },
-    attemptsAllowed: 3,
-    counting: "best",
-    opensAt: new Date(Date.now() - DAY).toISOString(),
-    dueAt: new Date(Date.now() + 7 * DAY).toISOString(),
-    latePenaltyPercentPerDay: 0,
-    lateFloorPercent: 0,
-    showExpected: "after_attempt",
-    instructions: "Measure it.",
-    safetyNotes: "Set the current limit first.",
-  });
-  expect(created.status).toBe(201);
-  labId = created.body.lab.id;
-  const pub = await as.instructor.json(`/api/labs/${labId}`, { method: "PATCH", headers: { "content-type": "application/json" }, body: JSON.stringify({ status: "published" }) });
-  expect(pub.status).toBe(200);
+  labId = await publishedLab(
+    sendAs(as.instructor),
+    f.courseId,
+    fixedCircuitLab({ title: "Not-found check", questions: [{ quantity: "indicatedCurrent", kind: "prediction", points: 4 }], safetyNotes: "Set the current limit first." }),
+  );
   const sub = await as.student.post(`/api/labs/${labId}/attempts`, { idempotencyKey: `nf-${Date.now()}`, readings: { q1: "10.42 mA" } });
   expect(sub.status).toBe(201);
   attemptId = sub.body.attempt.id;

@@ -7,7 +7,7 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import type { Client } from "../support/http";
 import { e2eDb } from "../support/db";
-import { addPerson, attemptWithReview, clientFor, courseWithPeople, fixedCircuitLab, publishedLab, sendAs } from "./fixtures";
+import { addPerson, clientsOf, attemptWithReview, clientFor, courseWithPeople, fixedCircuitLab, publishedLab, sendAs } from "./fixtures";
 
 const lab = fixedCircuitLab();
 
@@ -24,14 +24,7 @@ beforeAll(async () => {
   const db = e2eDb();
   await db.updateTable("memberships").set({ section: "A" }).where("course_id", "=", f.courseId).where("user_id", "=", f.people.student.id).execute();
   await db.destroy();
-  as = {
-    instructor: await clientFor(f.people.instructor.email),
-    ta: await clientFor(f.people.ta.email),
-    student: await clientFor(f.people.student.email),
-    student2: await clientFor(email),
-    outsider: await clientFor(f.people.outsider.email),
-    otherTa: await clientFor(other.people.ta.email),
-  };
+  as = { ...(await clientsOf(f.people)), student2: await clientFor(email), otherTa: await clientFor(other.people.ta.email) };
   labId = await publishedLab(sendAs(as.instructor), f.courseId, lab);
   attemptId = await attemptWithReview(sendAs(as.student), labId, "I think question 2 used the right method.");
 });

@@ -2,7 +2,7 @@
 // and a removed student's attempts coming back when they are added again.
 import { beforeAll, describe, expect, it } from "vitest";
 import type { Client } from "../support/http";
-import { clientFor, courseWithPeople, fixedCircuit, fixedCircuitLab, publishedLab, sendAs } from "./fixtures";
+import { clientsOf, courseWithPeople, fixedCircuit, fixedCircuitLab, publishedLab, sendAs } from "./fixtures";
 
 let f: Awaited<ReturnType<typeof courseWithPeople>>;
 let as: Record<"instructor" | "ta" | "student" | "outsider", Client>;
@@ -12,12 +12,7 @@ const send = (c: Client, method: string, path: string, body?: unknown) =>
 
 beforeAll(async () => {
   f = await courseWithPeople();
-  as = {
-    instructor: await clientFor(f.people.instructor.email),
-    ta: await clientFor(f.people.ta.email),
-    student: await clientFor(f.people.student.email),
-    outsider: await clientFor(f.people.outsider.email),
-  };
+  as = await clientsOf(f.people);
 });
 
 describe("PATCH and DELETE /api/courses/{courseId}/members/{userId}", () => {
