@@ -95,7 +95,18 @@ runBench(async () => {
   ];
   for (const p of pages) {
     const runs = [];
-    for (let i = 0; i < RUNS; i++) runs.push(await measure(chrome.port, `${app.base}${p.path}`, cookie));
+    for (let i = 0; i < RUNS; i++) {
+      // Lighthouse sometimes loses the trace on a busy machine (NO_NAVSTART): such a run is tried again, twice at most
+      for (let tries = 1; ; tries++) {
+        try {
+          runs.push(await measure(chrome.port, `${app.base}${p.path}`, cookie));
+          break;
+        } catch (e) {
+          if (tries >= 3) throw e;
+          console.log(`  ${p.name}: ${(e as Error).message}; trying again`);
+        }
+      }
+    }
     runs.sort((a, b) => a.score - b.score);
     const m = runs[Math.floor((runs.length - 1) / 2)]; // the median run by score
     const kb = (n: number) => `${(n / 1024).toFixed(1)} KB`;
