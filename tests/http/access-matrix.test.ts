@@ -376,6 +376,21 @@ const ROWS: Record<string, Row> = {
       return cells("signin", gone, gone, gone, graded, graded, graded);
     })(),
   },
+  // "Sign out" in the header: anyone may post it; it ends the caller's own session only (it expires the
+  // session cookie of the copy of the client that sent it, and the other rows keep theirs)
+  "action lib/auth/sign-out.ts#signOutHere": {
+    req: action(() => "/", (w) => w.actionIds["lib/auth/sign-out.ts#signOutHere"], []),
+    copy: true,
+    cells: (() => {
+      // an anonymous caller is sent to sign in before the action runs; a signed-in one is redirected by it
+      const out = (r: Answer) => {
+        // Next.js answers an action's redirect with 303, or 200 carrying the sign-in page it already rendered
+        expect([200, 303], "the action's redirect to the sign-in page").toContain(r.status);
+        expect(r.setCookie.some((c) => /next-auth\.session-token=;/.test(c) && /max-age=0/i.test(c)), "the session cookie expired").toBe(true);
+      };
+      return cells("signin", out, out, out, out, out, out);
+    })(),
+  },
   // signing up is open to everyone; a form that does not parse answers with its fields and nothing else
   "action app/(auth)/signup/actions.ts#signUpAction": {
     req: action(() => "/signup", (w) => w.actionIds["app/(auth)/signup/actions.ts#signUpAction"], [{}]),
