@@ -48,7 +48,7 @@ describe("review and regrade in the browser", () => {
     await expect.poll(async () => (await link.textContent()) ?? "").toMatch(/Review queue \(\d+ open\)/);
     await link.click();
     await page.waitForURL(`**/courses/${courseId}/reviews`);
-    await page.getByLabel("Lab").selectOption({ label: TITLE });
+    await page.getByLabel("Lab", { exact: true }).selectOption({ label: TITLE });
     const item = page.getByTestId("review-queue").locator("li", { hasText: TITLE });
     await item.waitFor({ timeout: 20_000 });
     expect(await item.getAttribute("data-status")).toBe("open");
