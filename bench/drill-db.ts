@@ -19,14 +19,13 @@ import fs from "node:fs";
 import path from "node:path";
 import { hash } from "@node-rs/argon2";
 import { sql } from "kysely";
-import pg from "pg";
 import { createDb } from "../db";
 import { insertLab } from "../db/queries/labs";
 import { migrateToLatest } from "../db/migrator";
 import { appEnv } from "../scripts/lib/app-env";
 import { buildIfStale } from "../scripts/lib/build";
 import { databaseUrl, serviceConfig, type ServiceConfig } from "../scripts/lib/config";
-import { ensurePostgres, ensurePostgresInstalled, stopPostgres } from "../scripts/lib/postgres";
+import { ensurePostgres, ensurePostgresInstalled, recreateDatabase, stopPostgres } from "../scripts/lib/postgres";
 import { freePort, stopPids } from "../scripts/lib/processes";
 import { startNext, waitForHttp } from "../scripts/lib/server";
 import { startStandIns, type StandIns } from "../scripts/lib/standins";
@@ -83,16 +82,6 @@ function stopPostgresAsync(dir: string): Promise<void> {
   });
 }
 
-async function recreate() {
-  const admin = new pg.Client({ connectionString: databaseUrl(cfg, "postgres") });
-  await admin.connect();
-  try {
-    await admin.query(`drop database if exists "${DB_NAME}" with (force)`);
-    await admin.query(`create database "${DB_NAME}"`);
-  } finally {
-    await admin.end();
-  }
-}
 
 /** One course, STUDENTS students and a published shunt-and-burden lab with fixed values and many attempts. */
 async function seed(url: string) {
@@ -161,7 +150,7 @@ async function main(): Promise<number> {
   pgStarted = true;
   console.log(`Drill PostgreSQL on 127.0.0.1:${cfg.pgPort} (data in ${pgInfo.dataDir}).`);
   for (const key of ["appPort", "s3Port", "smtpPort"] as const) cfg[key] = await pick(cfg[key]);
-  await recreate();
+  await recreateDatabase(cfg, DB_NAME);
   const url = databaseUrl(cfg, DB_NAME);
   const { labId, emails } = await seed(url);
   standIns = await startStandIns(cfg);

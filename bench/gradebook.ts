@@ -19,7 +19,7 @@ import { migrateToLatest } from "../db/migrator";
 import { appEnv } from "../scripts/lib/app-env";
 import { buildIfStale } from "../scripts/lib/build";
 import { databaseUrl, serviceConfig } from "../scripts/lib/config";
-import { ensurePostgres } from "../scripts/lib/postgres";
+import { ensurePostgres, recreateDatabase } from "../scripts/lib/postgres";
 import { portInUse, startNext, waitForHttp } from "../scripts/lib/server";
 
 const STUDENTS = 1000;
@@ -43,16 +43,6 @@ function p50(xs: number[]): number {
   return s.length % 2 ? s[(s.length - 1) / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2;
 }
 
-async function recreate() {
-  const admin = new pg.Client({ connectionString: databaseUrl(cfg, "postgres") });
-  await admin.connect();
-  try {
-    await admin.query(`drop database if exists "${DB_NAME}" with (force)`);
-    await admin.query(`create database "${DB_NAME}"`);
-  } finally {
-    await admin.end();
-  }
-}
 
 /** One course, its instructor, 1,000 students in 8 sections, 20 published labs, 2 graded attempts each. */
 async function seed(url: string): Promise<string> {
@@ -198,7 +188,7 @@ async function scrollInBrowser(base: string, courseId: string) {
 
 async function main() {
   await ensurePostgres(cfg);
-  await recreate();
+  await recreateDatabase(cfg, DB_NAME);
   const url = databaseUrl(cfg, DB_NAME);
   const courseId = await seed(url);
   if (process.argv.includes("--explain")) {

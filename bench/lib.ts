@@ -8,7 +8,7 @@ import pg from "pg";
 import { appEnv } from "../scripts/lib/app-env";
 import { buildIfStale } from "../scripts/lib/build";
 import { databaseUrl, serviceConfig } from "../scripts/lib/config";
-import { ensurePostgres } from "../scripts/lib/postgres";
+import { ensurePostgres, recreateDatabase } from "../scripts/lib/postgres";
 import { freePort } from "../scripts/lib/processes";
 import { startNext, waitForHttp } from "../scripts/lib/server";
 
@@ -50,14 +50,7 @@ export function runBench(main: () => Promise<void>): void {
 /** A fresh database in the local PostgreSQL, dropped at the end. */
 export async function scratchDatabase(name: string): Promise<string> {
   await ensurePostgres(cfg);
-  const admin = new pg.Client({ connectionString: databaseUrl(cfg, "postgres") });
-  await admin.connect();
-  try {
-    await admin.query(`drop database if exists "${name}" with (force)`);
-    await admin.query(`create database "${name}"`);
-  } finally {
-    await admin.end();
-  }
+  await recreateDatabase(cfg, name);
   atEnd(async () => {
     const c = new pg.Client({ connectionString: databaseUrl(cfg, "postgres") });
     await c.connect();

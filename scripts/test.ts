@@ -10,7 +10,6 @@ import { type ChildProcess, spawn, spawnSync } from "node:child_process";
 import crypto from "node:crypto";
 import fs from "node:fs";
 import path from "node:path";
-import pg from "pg";
 import { createDb } from "../db";
 import { migrateToLatest } from "../db/migrator";
 import { seedDemo } from "../db/seed/demo";
@@ -18,7 +17,7 @@ import { seedStorageFromEnv } from "../db/seed/storage";
 import { appEnv } from "./lib/app-env";
 import { buildIfStale } from "./lib/build";
 import { databaseUrl, root, serviceConfig } from "./lib/config";
-import { ensurePostgres, stopPostgres } from "./lib/postgres";
+import { ensurePostgres, recreateDatabase, stopPostgres } from "./lib/postgres";
 import { RUN_ID_VAR, alive, freePort, stopPids, sweepRun } from "./lib/processes";
 import { startNext, waitForHttp } from "./lib/server";
 import { startStandIns } from "./lib/standins";
@@ -41,17 +40,6 @@ function ensureChromium() {
   }
 }
 
-/** Drops and recreates a database so every run starts from the same state. */
-async function recreate(name: string) {
-  const admin = new pg.Client({ connectionString: databaseUrl(cfg, "postgres") });
-  await admin.connect();
-  try {
-    await admin.query(`drop database if exists "${name}" with (force)`);
-    await admin.query(`create database "${name}"`);
-  } finally {
-    await admin.end();
-  }
-}
 
 interface Counts {
   passed: number;
@@ -148,7 +136,7 @@ async function main(): Promise<Counts> {
   pgStartedByUs = pgInfo.started;
   recordRun();
   console.log(`Test PostgreSQL on 127.0.0.1:${pgInfo.port} (data in ${pgInfo.dataDir}).`);
-  for (const name of cfg.databases) await recreate(name);
+  for (const name of cfg.databases) await recreateDatabase(cfg, name);
   const testUrl = databaseUrl(cfg, "shuntwise_test");
   const e2eUrl = databaseUrl(cfg, "shuntwise_e2e");
   ensureChromium();

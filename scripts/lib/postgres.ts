@@ -154,6 +154,18 @@ export async function ensurePostgres(
   };
 }
 
+/** Drops a database of the local PostgreSQL (if it exists) and creates it empty, so a run starts from nothing. */
+export async function recreateDatabase(cfg: ServiceConfig, name: string): Promise<void> {
+  const admin = new pg.Client({ connectionString: databaseUrl(cfg, "postgres") });
+  await admin.connect();
+  try {
+    await admin.query(`drop database if exists "${name}" with (force)`);
+    await admin.query(`create database "${name}"`);
+  } finally {
+    await admin.end();
+  }
+}
+
 export function stopPostgres(cfg: ServiceConfig): boolean {
   const bin = findBinDir();
   if (!bin) return false;
