@@ -129,9 +129,9 @@ export const examples: readonly Example[] = [
   }),
 
   // ---- Lessons 7 and 10: filtering, settling, noise ----
-  template("filter-node", "filter-noise", ["Analog and Digital Filter Design"], { filterResistance: 10e3, filterCapacitance: 100e-9, shuntResistance: 10e3, temperature: 300 }, "PHYSICS.md §6 6a [FORMULA]", {
+  template("filter-node", "filter-noise", ["worked here from the formula"], { filterResistance: 10e3, filterCapacitance: 100e-9, shuntResistance: 10e3, temperature: 300 }, "PHYSICS.md §6 6a [FORMULA]", {
     timeConstant: 1.0e-3, cutoffFrequency: 159.2, settlingTime1pct: [4.605e-3, "PHYSICS.md §6 6a [FORMULA; MEM]"],
-    noiseBandwidth: [250.0, "PHYSICS.md §6 6a, 6f [PUB: Winder]"] /* [FORMULA; PUB] */,
+    noiseBandwidth: [250.0, "PHYSICS.md §6 6a, 6f [FORMULA]"],
     thermalNoiseVoltage: [203.5e-9, "PHYSICS.md §7 7e [FORMULA]"], thermalNoiseCurrent: [20.35e-12, "PHYSICS.md §7 7e [FORMULA]"],
   }),
 

@@ -2,7 +2,16 @@
 // the document, not taken from the code.
 import { describe, expect, it } from "vitest";
 import { gradeAttempt, nearestStandard, templates, uncertaintyBudget, rangeTable, BOLTZMANN, ELEMENTARY_CHARGE } from "../../../lib/grader";
+import { create, all } from "mathjs";
 import { near } from "./helpers";
+
+// [REF: mathjs] values: the four-figure value is checked against mathjs (constants, units, functions) as well
+// as against the grader, so neither the grader nor the typed value stands alone.
+const math = create(all);
+const ev = (expr: string, unit?: string) => {
+  const r = math.evaluate(expr) as number | { toNumber(u: string): number };
+  return typeof r === "number" ? r : r.toNumber(unit!);
+};
 
 const sb = (supplyVoltage: number, loadResistance: number, shuntResistance: number) =>
   templates["shunt-burden"].compute({ supplyVoltage, loadResistance, shuntResistance });
@@ -29,19 +38,19 @@ describe("§0 constants", () => {
 
 describe("§1 shunt selection and E-series rounding", () => {
   it("1a E96 nearest to 16 834.2 Ω is 16.9 kΩ", () => {
-    // [PUB: KiCad docs, E-series help text, same example]
+    // [PUB: IEC 60063:2015, E96 list (16.5, 16.9, 17.4); FORMULA: nearest in ratio]
     expect(nearestStandard(16834.2, "E96", "nearest")).toBe(16900);
   });
   it("1b E24 nearest to 319 Ω is 330 Ω", () => {
-    // [PUB: PyPI "eseries" docs example]
+    // [PUB: IEC 60063:2015, E24 list (300, 330); FORMULA]
     expect(nearestStandard(319, "E24", "nearest")).toBe(330);
   });
   it("1c E96 smallest value ≥ 184 Ω is 187 Ω", () => {
-    // [PUB: PyPI "eseries" docs example]
+    // [PUB: IEC 60063:2015, E96 list (182, 187)]
     expect(nearestStandard(184, "E96", "ceil")).toBe(187);
   });
   it("1d E24 around 5000 Ω: neighbours 4.7 k / 5.1 k / 5.6 k, log-nearest 5.1 k", () => {
-    // [PUB: eseries docs (neighbours); FORMULA (log-nearest)]
+    // [PUB: IEC 60063:2015, E24 list (4.7, 5.1, 5.6); FORMULA (log-nearest)]
     expect(nearestStandard(5000, "E24", "floor")).toBe(4700);
     expect(nearestStandard(5000, "E24", "ceil")).toBe(5100);
     expect(nearestStandard(5100 * 1.0001, "E24", "ceil")).toBe(5600);
@@ -114,7 +123,9 @@ describe("§2 burden voltage", () => {
     near(v.loadingErrorPercent, -9.091);
   });
   it("2d 3.0 V, 8 Ω, 1.8 Ω: 375.0 mA → 306.1 mA, −18.37 %, 551.0 mV", () => {
-    // [FORMULA; a published lab-tip article on voltage burden gives ≈306 mA vs 375 mA. Its "≈675 mV" drop uses the unloaded 375 mA; the self-consistent value is 551.0 mV]
+    // [FORMULA; REF: mathjs] V_B is the loaded current times R_in (675 mV, the unloaded 375 mA times 1.8 Ω, is the slip to avoid)
+    near(ev("3.0 V / (8 ohm + 1.8 ohm)", "mA"), 306.1);
+    near(ev("3.0 V / (8 ohm + 1.8 ohm) * 1.8 ohm", "mV"), 551.0);
     const v = sb(3.0, 8, 1.8);
     near(v.trueCurrent, 375.0e-3);
     near(v.indicatedCurrent, 306.1e-3);
@@ -160,7 +171,10 @@ describe("§3 range choice", () => {
 
 describe("§4 ADC quantisation", () => {
   it("4a 12 bit, 3.3 V: LSB 805.7 µV, 4096 levels", () => {
-    // [PUB: quantisation-noise formula page, worked 12-bit/3.3 V example: 0.806 mV, 0.233 mV, 74.0 dB]
+    // [FORMULA: IEEE Std 1241-2010 ideal quantiser; REF: mathjs]
+    near(ev("3.3 V / 2^12", "uV"), 805.7);
+    near(ev("3.3 V / 2^12 / sqrt(12)", "uV"), 232.6);
+    near(ev("20 * log10(2^12 * sqrt(1.5))"), 74.00);
     const v = rr(1.0); // mA range, 1 V/A: the current per code equals the LSB in volts numerically
     near(v.currentResolution, 805.7e-6);
     expect(2 ** 12).toBe(4096);
@@ -223,7 +237,18 @@ describe("§6 RC filter", () => {
     near(v.settlingTime1pct, 46.05e-3);
   });
   it("6f B_n / f_c = 1.571 (π/2)", () => {
-    // [PUB: *Analog and Digital Filter Design* (Winder), design-equations appendix: "noise bandwidth of a first-order filter is π/2 = 1.570796 × the 3 dB bandwidth"]
+    // [FORMULA: B_n = ∫₀^∞ df/(1 + (f/f_c)²) = (π/2)·f_c] summed here numerically over the power response
+    // (f in units of f_c, midpoint rule to 1000·f_c, the tail beyond it ≈ 1/1000 − 1/(3·1000³))
+    const top = 1000;
+    const steps = 1_000_000;
+    const df = top / steps;
+    let sum = 0;
+    for (let i = 0; i < steps; i++) {
+      const f = (i + 0.5) * df;
+      sum += df / (1 + f * f);
+    }
+    sum += 1 / top - 1 / (3 * top ** 3);
+    near(sum, 1.570796, 1e-6);
     const v = fn(4.7e3, 33e-9, 1e3, 300);
     near((v.noiseBandwidth as number) / (v.cutoffFrequency as number), 1.570796, 1e-6);
   });
@@ -238,13 +263,15 @@ describe("§7 thermal noise (B_n set by the filter: B_n = 1/(4RC))", () => {
     near(v.thermalNoiseCurrent, 4.070e-12);
   });
   it("7b 1 kΩ, 290 K, 10 kHz: 400.2 nV rms", () => {
-    // [PUB: encyclopedic Johnson–Nyquist text: "1 kΩ at room temperature and 10 kHz → 400 nV"]
+    // [FORMULA: √(4kTRB), SI 2019 k; REF: mathjs (its Boltzmann constant and units)]
+    near(ev("sqrt(4 * boltzmann * 290 K * 1 kohm * 10 kHz)", "nV"), 400.2);
     const v = fn(1e3, 25e-9, 1e3, 290);
     near(v.noiseBandwidth, 10e3);
     near(v.thermalNoiseVoltage, 400.2e-9);
   });
   it("7c 100 kΩ, 300 K, 1 MHz: 40.70 µV rms", () => {
-    // [PUB: tutorialsweb "noise in electronic components"]
+    // [FORMULA: √(4kTRB), SI 2019 k; REF: mathjs]
+    near(ev("sqrt(4 * boltzmann * 300 K * 100 kohm * 1 MHz)", "uV"), 40.70);
     const v = fn(1e3, 250e-12, 100e3, 300);
     near(v.noiseBandwidth, 1e6);
     near(v.thermalNoiseVoltage, 40.70e-6);
@@ -286,13 +313,17 @@ describe("§8 duty-cycled loads", () => {
     near(v.batteryLife, 473.2 * 86400);
   });
   it("8d 1000 mAh; 10 mA active 1 %, 20 µA sleep: 0.1198 mA, 8347 h", () => {
-    // [PUB: electronicsdesign.au "How do you calculate battery life" (≈0.12 mA, >8000 h)]
+    // [FORMULA: Ī = duty-weighted mean, t = capacity/Ī; REF: mathjs (units mAh, mA, h)]
+    near(ev("0.01 * 10 mA + 0.99 * 20 uA", "mA"), 0.1198);
+    near(ev("1000 mAh / (0.01 * 10 mA + 0.99 * 20 uA)", "h"), 8347);
     const v = duty({ sleepCurrent: 20e-6, activeCurrent: 10e-3, activeTime: 0.01, period: 1, batteryCapacity: 1000 * mAh, usableFraction: 1 });
     near(v.averageCurrent, 0.1198e-3);
     near(v.batteryLife, 8347 * 3600);
   });
   it("8e 2200 mAh; 40 mA for 2 s, 0.1 mA for 8 s: 8.080 mA, 272.3 h", () => {
-    // [PUB: orientdisplay battery-life article (8.08 mA, ≈272.3 h)]
+    // [FORMULA; REF: mathjs (units mAh, mA, h)]
+    near(ev("(2 s * 40 mA + 8 s * 0.1 mA) / 10 s", "mA"), 8.080);
+    near(ev("2200 mAh / ((2 s * 40 mA + 8 s * 0.1 mA) / 10 s)", "h"), 272.3);
     const v = duty({ sleepCurrent: 0.1e-3, activeCurrent: 40e-3, activeTime: 2, period: 10, batteryCapacity: 2200 * mAh, usableFraction: 1 });
     near(v.averageCurrent, 8.080e-3);
     near(v.batteryLife, 272.3 * 3600);

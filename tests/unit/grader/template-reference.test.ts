@@ -162,7 +162,7 @@ describe("bidirectional-offset", () => {
 });
 
 describe("filter-noise", () => {
-  // PHYSICS.md §6 6a [FORMULA; MEM: t = τ ln 100], 6f [PUB: Winder, B_n = (π/2)·f_c], §7 7e [FORMULA: SI 2019 k]:
+  // PHYSICS.md §6 6a [FORMULA; MEM: t = τ ln 100], 6f [FORMULA: B_n = (π/2)·f_c, the integral summed in reference.test.ts], §7 7e [FORMULA: SI 2019 k]:
   // R_f = 10 kΩ, C_f = 100 nF, 10 kΩ shunt at 300 K.
   const p = { filterResistance: 10e3, filterCapacitance: 100e-9, shuntResistance: 10e3, temperature: 300 };
   it("f_c = 1/(2π × 1 ms) = 159.2 Hz, B_n = 1/(4 × 1 ms) = 250.0 Hz, v_n = √(4kTRB_n) = 203.5 nV", () => {

@@ -81,7 +81,7 @@ describe("every worked example a lesson shows names its source", () => {
 
   it("every check names where its value comes from (a PHYSICS.md section or a hand calculation, with its tag)", () => {
     for (const e of examples)
-      for (const c of e.checks) expect(c.source, `${e.id}.${c.quantity}`).toMatch(/(PHYSICS\.md §\d+|by hand|Ohm's law).*\[(FORMULA|PUB|MEM|CP)/);
+      for (const c of e.checks) expect(c.source, `${e.id}.${c.quantity}`).toMatch(/(PHYSICS\.md §\d+|by hand|Ohm's law).*\[(FORMULA|PUB|REF|MEM|CP)/);
   });
 
   it("keeps no example that no lesson shows", () => {

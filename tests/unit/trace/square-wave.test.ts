@@ -117,9 +117,9 @@ describe("lib/grader/PHYSICS.md §8 check values from generated traces", () => {
     const spec = { sleepCurrent: 20e-6, activeCurrent: 10e-3, activeTime: 0.01, period: 1, cycles: 10, sampleInterval: 0.001 };
     const r = await analyse(spec, { batteryCapacity: 1000 * MAH, usableFraction: 1 });
     expectClose(r.averageCurrent, closedForm(spec).average, 1e-9);
-    // [PUB: electronicsdesign.au "How do you calculate battery life" (≈0.12 mA, >8000 h)]
+    // PHYSICS.md §8 8d [FORMULA; REF: mathjs]
     expectClose(r.averageCurrent, 0.1198e-3);
-    // [PUB: electronicsdesign.au "How do you calculate battery life" (≈0.12 mA, >8000 h)]
+    // PHYSICS.md §8 8d [FORMULA; REF: mathjs]
     expectClose(r.batteryLife! / HOUR, 8347);
     expectClose(r.dutyCycle, 0.01, 1e-9);
   });
@@ -128,9 +128,9 @@ describe("lib/grader/PHYSICS.md §8 check values from generated traces", () => {
     const spec = { sleepCurrent: 0.1e-3, activeCurrent: 40e-3, activeTime: 2, period: 10, cycles: 6, sampleInterval: 0.01 };
     const r = await analyse(spec, { batteryCapacity: 2200 * MAH, usableFraction: 1 });
     expectClose(r.averageCurrent, closedForm(spec).average, 1e-9);
-    // [PUB: orientdisplay battery-life article (8.08 mA, ≈272.3 h)]
+    // PHYSICS.md §8 8e [FORMULA; REF: mathjs]
     expectClose(r.averageCurrent, 8.08e-3);
-    // [PUB: orientdisplay battery-life article (8.08 mA, ≈272.3 h)]
+    // PHYSICS.md §8 8e [FORMULA; REF: mathjs]
     expectClose(r.batteryLife! / HOUR, 272.3);
     expectClose(r.chargePerWake, 40e-3 * 2, 1e-9);
     expectClose(r.sleepLevel, 0.1e-3, 1e-9);
