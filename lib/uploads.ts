@@ -28,6 +28,16 @@ export function mb(bytes: number): string {
   return `${(bytes / 1024 / 1024).toFixed(bytes % (1024 * 1024) ? 1 : 0)} MB`;
 }
 
+/**
+ * The name to show for an uploaded file: its last path segment, without control characters (PostgreSQL
+ * text cannot hold NUL), at most 200 characters; "upload" when nothing is left.
+ */
+export function displayName(name: string): string {
+  // eslint-disable-next-line no-control-regex
+  const base = (name.split(/[\\/]/).pop() ?? "").replace(/[\u0000-\u001f\u007f]/g, "").trim();
+  return Array.from(base).slice(0, 200).join("") || "upload";
+}
+
 /** 413 naming `file` when `size` more bytes would take the owner past the quota. */
 function checkQuota(used: number, size: number): void {
   const quota = uploadQuotaBytes();
@@ -92,7 +102,7 @@ export async function acceptUpload(opts: {
         size: opts.bytes.byteLength,
         sha256,
         storageKey,
-        originalName: opts.fileName.slice(0, 200),
+        originalName: displayName(opts.fileName),
         analysis,
       });
     });

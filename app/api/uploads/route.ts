@@ -8,6 +8,12 @@ import { maxUploadBytes } from "@/lib/storage";
 // multipart/form-data with `file` and `labId` (or `courseId`). 201 with the upload's id.
 // Who is calling is checked before a byte of the body is read; the body is counted as it streams and
 // cut at the limit (413) whether or not it declares a Content-Length.
+/** The id came in the form, not the address: a 404 for it names its field. */
+const naming = (field: string, message: string) => (e: unknown): never => {
+  if (e instanceof AppError && e.code === "not_found") throw new AppError("not_found", e.message, { [field]: [message] });
+  throw e;
+};
+
 export const POST = route(async (req) => {
   await requireUser();
   const cap = maxUploadBytes() + 64 * 1024; // the file plus the form's own lines
@@ -32,13 +38,13 @@ export const POST = route(async (req) => {
   const courseId = form.get("courseId");
   let owner: string, course: string, lab: string | null = null, params;
   if (typeof labId === "string" && labId) {
-    const { lab: l, access } = await labAccess(labId);
+    const { lab: l, access } = await labAccess(labId).catch(naming("labId", "No lab of yours has this id."));
     owner = access.user.id;
     course = l.courseId;
     lab = l.id;
     params = await variantFor(l, owner);
   } else if (typeof courseId === "string" && courseId) {
-    const access = await requireCourseRole(courseId);
+    const access = await requireCourseRole(courseId).catch(naming("courseId", "No course of yours has this id."));
     owner = access.user.id;
     course = access.course.id;
   } else {
