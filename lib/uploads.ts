@@ -33,7 +33,6 @@ export function mb(bytes: number): string {
  * text cannot hold NUL), at most 200 characters; "upload" when nothing is left.
  */
 export function displayName(name: string): string {
-  // eslint-disable-next-line no-control-regex
   const base = (name.split(/[\\/]/).pop() ?? "").replace(/[\u0000-\u001f\u007f]/g, "").trim();
   return Array.from(base).slice(0, 200).join("") || "upload";
 }
