@@ -23,16 +23,24 @@ describe("signing in", () => {
     await context.close();
   });
 
-  it("a demo student opening the roster is refused", async () => {
+  it("a demo student opening the roster is refused (403) inside the app's header, with the way back to the course", async () => {
     const { context, page } = await newPage(browser);
     await signIn(page, demo.student);
     await page.getByRole("link", { name: "Measuring Small Currents" }).click();
     await page.waitForURL(/\/courses\/[0-9a-f-]{36}$/);
+    const courseUrl = page.url();
     expect(await page.getByRole("link", { name: "Roster" }).count()).toBe(0);
-    await page.goto(page.url() + "/roster");
+    const res = await page.goto(courseUrl + "/roster");
+    expect(res?.status()).toBe(403);
     const refusal = page.getByRole("alert").filter({ hasText: "Not available to you" });
     expect(await refusal.textContent()).toContain("Only the course staff can see this.");
+    expect(await refusal.textContent()).toContain("ask the course's instructor");
     expect(await page.getByRole("table").count()).toBe(0);
+    // the header stays: the person can still reach their settings and sign out
+    await page.getByRole("banner").getByRole("link", { name: "Settings", exact: true }).waitFor();
+    await refusal.getByRole("link", { name: "Back to the course", exact: true }).click();
+    await page.waitForURL(courseUrl);
+    await page.getByText("You are in this course as: Student.").waitFor();
     await context.close();
   });
 

@@ -212,7 +212,7 @@ describe("lab builder (flow 2)", () => {
     try {
       await signIn(page, demo.ta);
       const id = courseId || (await openCourse(page));
-      await page.goto(`/courses/${id}/labs/new`);
+      expect((await page.goto(`/courses/${id}/labs/new`))?.status()).toBe(403);
       const refusal = page.getByRole("alert").filter({ hasText: "Not available to you" });
       expect(await refusal.innerText()).toContain("Only the course's instructors build and edit labs.");
       expect(await page.getByRole("button", { name: "Save draft" }).count()).toBe(0);

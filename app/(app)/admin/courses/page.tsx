@@ -1,16 +1,16 @@
 import type { Metadata } from "next";
+import { forbidden } from "next/navigation";
 import { db } from "@/db";
 import { listAllCourses } from "@/db/queries/courses";
 import { forPage, refused, requireAdmin } from "@/lib/auth/access";
 import { AllCourses } from "@/components/course/all-courses";
 import { CreateCourseForm } from "@/components/course/create-course-form";
-import { Refusal } from "@/components/shell/refusal";
 
 export const metadata: Metadata = { title: "Courses" };
 
 export default async function AdminCoursesPage() {
   const admin = await forPage(requireAdmin(), "/admin/courses");
-  if (refused(admin)) return <Refusal message={admin.refused} backHref="/" />;
+  if (refused(admin)) forbidden();
   const courses = await listAllCourses(db);
   return (
     <>

@@ -1,8 +1,8 @@
 import type { Metadata } from "next";
+import { forbidden } from "next/navigation";
 import { db } from "@/db";
 import { DataTable, type Column } from "@/components/ui/table";
 import { ResendButton } from "@/components/mail/resend-button";
-import { Refusal } from "@/components/shell/refusal";
 import { forPage, refused, requireAdmin } from "@/lib/auth/access";
 import { outboxSummary } from "@/lib/mail/outbox";
 
@@ -21,7 +21,7 @@ const dayColumns: Column<Day>[] = [
 
 export default async function OutboxPage() {
   const user = await forPage(requireAdmin(), "/admin/outbox");
-  if (refused(user)) return <Refusal message={user.refused} backHref="/" />;
+  if (refused(user)) forbidden();
   const { days, failures } = await outboxSummary(db);
   return (
     <>

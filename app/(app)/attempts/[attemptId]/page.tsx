@@ -3,7 +3,7 @@ import { asJson } from "@/lib/api-client";
 import { forPage, isStaff, refused } from "@/lib/auth/access";
 import { attemptAccess, attemptsFor, attemptsUsed, HELD_NOTICE, presentAttempt } from "@/lib/labs/service";
 import Link from "next/link";
-import { Refusal } from "@/components/shell/refusal";
+import { forbidden } from "next/navigation";
 import { FeedbackView } from "@/components/labs/feedback/feedback-view";
 import { typeset } from "@/components/labs/feedback/typeset";
 
@@ -12,7 +12,7 @@ export const metadata: Metadata = { title: "Feedback" };
 export default async function AttemptPage({ params }: { params: Promise<{ attemptId: string }> }) {
   const { attemptId } = await params;
   const found = await forPage(attemptAccess(attemptId), `/attempts/${attemptId}`);
-  if (refused(found)) return <Refusal message={found.refused} backHref="/" />;
+  if (refused(found)) forbidden();
   const { attempt, lab, access } = found;
   const staff = isStaff(access.role);
   const isOwner = attempt.userId === access.user.id;

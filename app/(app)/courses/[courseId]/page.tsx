@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { forbidden } from "next/navigation";
 import { Suspense } from "react";
 import { db } from "@/db";
 import { ownGrades } from "@/db/queries/gradebook";
@@ -9,13 +10,12 @@ import { openReviewCount } from "@/lib/labs/review";
 import { labsForCourse } from "@/lib/labs/service";
 import { roleLabel } from "@/lib/roles";
 import { NextLabDue, OpenLabs, Panel, when } from "@/components/course/home-parts";
-import { Refusal } from "@/components/shell/refusal";
 import { DataTable, type Column } from "@/components/ui/table";
 
 export default async function CoursePage({ params }: { params: Promise<{ courseId: string }> }) {
   const { courseId } = await params;
   const access = await forPage(requireCourseRole(courseId), `/courses/${courseId}`);
-  if (refused(access)) return <Refusal message={access.refused} backHref="/" />;
+  if (refused(access)) forbidden();
   const { course, role } = access;
   const staff = isStaff(role);
   const now = new Date();

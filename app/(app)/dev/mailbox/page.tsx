@@ -1,6 +1,5 @@
 import type { Metadata } from "next";
-import { notFound } from "next/navigation";
-import { Refusal } from "@/components/shell/refusal";
+import { forbidden, notFound } from "next/navigation";
 import { forPage, refused, requireAdmin } from "@/lib/auth/access";
 import { mailboxAvailable, readMailbox } from "@/lib/mail/mailbox";
 
@@ -15,7 +14,7 @@ export const dynamic = "force-dynamic";
 export default async function MailboxPage({ searchParams }: { searchParams: Promise<{ to?: string }> }) {
   if (!mailboxAvailable()) notFound();
   const user = await forPage(requireAdmin(), "/dev/mailbox");
-  if (refused(user)) return <Refusal message={user.refused} backHref="/" />;
+  if (refused(user)) forbidden();
   const { to } = await searchParams;
   const messages = await readMailbox({ to: to?.trim() || undefined, limit: 50 });
   return (

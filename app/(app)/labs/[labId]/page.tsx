@@ -1,11 +1,11 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { forbidden } from "next/navigation";
 import { forPage, isStaff, refused } from "@/lib/auth/access";
 import { templates } from "@/lib/grader";
 import { handoutFor } from "@/lib/labs/handout";
 import { closeOf, expectedWhenText, isClosed, isOpen, lateDays } from "@/lib/labs/policy";
 import { attemptsFor, HELD_NOTICE, labAccess, type Lab } from "@/lib/labs/service";
-import { Refusal } from "@/components/shell/refusal";
 import { DataTable, type Column } from "@/components/ui/table";
 import { HoldGrades } from "@/components/mail/hold-grades";
 import { Handout } from "@/components/labs/handout";
@@ -65,7 +65,7 @@ export default async function LabPage({ params }: { params: Promise<{ labId: str
   const { labId } = await params;
   const here = `/labs/${labId}`;
   const found = await forPage(labAccess(labId), here);
-  if (refused(found)) return <Refusal message={found.refused} backHref="/" />;
+  if (refused(found)) forbidden();
   const { lab, access } = found;
   const attempts = await attemptsFor(lab, access);
   const back = (

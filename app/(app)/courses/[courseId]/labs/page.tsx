@@ -1,10 +1,10 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { forbidden } from "next/navigation";
 import { forPage, isStaff, refused, requireCourseRole } from "@/lib/auth/access";
 import { templates } from "@/lib/grader";
 import { closeOf } from "@/lib/labs/policy";
 import { labsForCourse } from "@/lib/labs/service";
-import { Refusal } from "@/components/shell/refusal";
 import { DataTable, type Column } from "@/components/ui/table";
 import { labState, STATE_LABEL } from "@/lib/labs/schedule";
 
@@ -78,7 +78,7 @@ export default async function LabsPage({ params, searchParams }: { params: Promi
   const { courseId } = await params;
   const sp = await searchParams;
   const access = await forPage(requireCourseRole(courseId), `/courses/${courseId}/labs`);
-  if (refused(access)) return <Refusal message={access.refused} backHref="/" />;
+  if (refused(access)) forbidden();
   const staff = isStaff(access.role);
   const instructor = access.role === "instructor";
   const labs = await labsForCourse(access);

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { forbidden } from "next/navigation";
 import { LessonPlanEditor } from "@/components/course/lesson-plan-editor";
-import { Refusal } from "@/components/shell/refusal";
 import { forPage, refused, requireCourseRole } from "@/lib/auth/access";
 import { coursePlan, lessonsForStudents } from "@/lib/course-lessons";
 
@@ -12,7 +12,7 @@ const dateFmt = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyl
 export default async function CourseLessonsPage({ params }: { params: Promise<{ courseId: string }> }) {
   const { courseId } = await params;
   const access = await forPage(requireCourseRole(courseId), `/courses/${courseId}/lessons`);
-  if (refused(access)) return <Refusal message={access.refused} backHref="/" />;
+  if (refused(access)) forbidden();
   const lessons = await lessonsForStudents(courseId);
   const instructor = access.role === "instructor";
   const plan = instructor ? await coursePlan(courseId) : [];

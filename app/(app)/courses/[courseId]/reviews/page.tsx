@@ -1,10 +1,10 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { forbidden } from "next/navigation";
 import { db } from "@/db";
 import { listSections } from "@/db/queries/reviews";
 import { forPage, refused, requireCourseRole, STAFF } from "@/lib/auth/access";
 import { labsForCourse } from "@/lib/labs/service";
-import { Refusal } from "@/components/shell/refusal";
 import { ReviewQueue } from "@/components/review/review-queue";
 
 export const metadata: Metadata = { title: "Review queue" };
@@ -14,7 +14,7 @@ export const metadata: Metadata = { title: "Review queue" };
 export default async function ReviewQueuePage({ params }: { params: Promise<{ courseId: string }> }) {
   const { courseId } = await params;
   const access = await forPage(requireCourseRole(courseId, STAFF), `/courses/${courseId}/reviews`);
-  if (refused(access)) return <Refusal message={access.refused} backHref={`/courses/${courseId}`} />;
+  if (refused(access)) forbidden();
   const [labs, sections] = await Promise.all([labsForCourse(access), listSections(db, access.course.id)]);
   return (
     <>

@@ -1,18 +1,18 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { forbidden } from "next/navigation";
 import { db } from "@/db";
 import { listMembers } from "@/db/queries/courses";
 import { forPage, refused, requireCourseRole, STAFF } from "@/lib/auth/access";
 import { RosterEditor } from "@/components/course/roster-editor";
 import { RosterImport } from "@/components/course/roster-import";
-import { Refusal } from "@/components/shell/refusal";
 
 export const metadata: Metadata = { title: "Roster" };
 
 export default async function RosterPage({ params }: { params: Promise<{ courseId: string }> }) {
   const { courseId } = await params;
   const access = await forPage(requireCourseRole(courseId, STAFF), `/courses/${courseId}/roster`);
-  if (refused(access)) return <Refusal message={access.refused} backHref={`/courses/${courseId}`} />;
+  if (refused(access)) forbidden();
   const members = await listMembers(db, courseId);
   const counts = { instructor: 0, ta: 0, student: 0 };
   for (const m of members) counts[m.role]++;

@@ -1,18 +1,18 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { forbidden } from "next/navigation";
 import { db } from "@/db";
 import { labWeights } from "@/db/queries/gradebook";
 import { forPage, refused, requireCourseRole } from "@/lib/auth/access";
 import { WeightsForm } from "@/components/gradebook/weights-form";
 import { CopyCourseForm, CourseSettingsForm, JoinCodePanel } from "@/components/course/settings-form";
-import { Refusal } from "@/components/shell/refusal";
 
 export const metadata: Metadata = { title: "Course settings" };
 
 export default async function CourseSettingsPage({ params, searchParams }: { params: Promise<{ courseId: string }>; searchParams: Promise<{ copied?: string }> }) {
   const { courseId } = await params;
   const access = await forPage(requireCourseRole(courseId, ["instructor"]), `/courses/${courseId}/settings`);
-  if (refused(access)) return <Refusal message="Only the course's instructors change its settings." backHref={`/courses/${courseId}`} />;
+  if (refused(access)) forbidden();
   const { course } = access;
   const copied = (await searchParams).copied;
   const weights = await labWeights(db, courseId);

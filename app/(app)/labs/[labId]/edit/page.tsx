@@ -1,12 +1,12 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { forbidden } from "next/navigation";
 import { db } from "@/db";
 import { countLabAttempts } from "@/db/queries/attempts";
 import { forPage, refused } from "@/lib/auth/access";
 import { labAsInput } from "@/lib/labs/edit";
 import { latestRegrade } from "@/lib/labs/regrade";
 import { labAccess } from "@/lib/labs/service";
-import { Refusal } from "@/components/shell/refusal";
 import { LabBuilder, type StoredLabInput } from "@/components/labs/builder/lab-builder";
 import { RegradeProgress } from "@/components/labs/regrade-progress";
 
@@ -21,7 +21,7 @@ export default async function EditLabPage({ params, searchParams }: { params: Pr
   const { labId } = await params;
   const sp = await searchParams;
   const found = await forPage(labAccess(labId, ["instructor"]), `/labs/${labId}/edit`);
-  if (refused(found)) return <Refusal message="Only the course's instructors build and edit labs." backHref="/" />;
+  if (refused(found)) forbidden();
   const { lab } = found;
   const attemptCount = await countLabAttempts(db, lab.id);
   const regrade = await latestRegrade(lab.id);

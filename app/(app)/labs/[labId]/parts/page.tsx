@@ -1,17 +1,17 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { forbidden } from "next/navigation";
 import { forPage, refused, STAFF } from "@/lib/auth/access";
 import { benchParts } from "@/lib/labs/bench";
 import { labAccess } from "@/lib/labs/service";
 import { PrintButton } from "@/components/labs/print-button";
-import { Refusal } from "@/components/shell/refusal";
 
 export const metadata: Metadata = { title: "Bench parts list" };
 
 export default async function PartsPage({ params }: { params: Promise<{ labId: string }> }) {
   const { labId } = await params;
   const got = await forPage(labAccess(labId, STAFF), `/labs/${labId}/parts`);
-  if (refused(got)) return <Refusal message="Only the course staff see the bench parts list." backHref={`/labs/${labId}`} />;
+  if (refused(got)) forbidden();
   const { lab, access } = got;
   const list = await benchParts(lab);
   const total = list.rows.reduce((a, r) => a + r.total, 0);

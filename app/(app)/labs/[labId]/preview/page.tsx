@@ -1,10 +1,10 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { forbidden } from "next/navigation";
 import { forPage, refused, STAFF } from "@/lib/auth/access";
 import { drawVariant } from "@/lib/grader";
 import { handoutFromParams } from "@/lib/labs/handout";
 import { labAccess } from "@/lib/labs/service";
-import { Refusal } from "@/components/shell/refusal";
 import { Handout } from "@/components/labs/handout";
 
 export const metadata: Metadata = { title: "Lab preview" };
@@ -18,7 +18,7 @@ export default async function LabPreviewPage({ params, searchParams }: { params:
   const { labId } = await params;
   const n = sampleNumber((await searchParams).sample);
   const found = await forPage(labAccess(labId, STAFF), `/labs/${labId}/preview`);
-  if (refused(found)) return <Refusal message="Only the course staff can preview labs." backHref="/" />;
+  if (refused(found)) forbidden();
   const { lab, access } = found;
   let handout: ReturnType<typeof handoutFromParams> | null = null;
   let problem: string | null = null;

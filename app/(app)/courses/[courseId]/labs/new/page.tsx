@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { forbidden } from "next/navigation";
 import { forPage, refused, requireCourseRole } from "@/lib/auth/access";
-import { Refusal } from "@/components/shell/refusal";
 import { LabBuilder } from "@/components/labs/builder/lab-builder";
 
 export const metadata: Metadata = { title: "New lab" };
@@ -9,7 +9,7 @@ export const metadata: Metadata = { title: "New lab" };
 export default async function NewLabPage({ params }: { params: Promise<{ courseId: string }> }) {
   const { courseId } = await params;
   const access = await forPage(requireCourseRole(courseId, ["instructor"]), `/courses/${courseId}/labs/new`);
-  if (refused(access)) return <Refusal message="Only the course's instructors build and edit labs." backHref={`/courses/${courseId}`} />;
+  if (refused(access)) forbidden();
   return (
     <>
       <p className="text-sm">

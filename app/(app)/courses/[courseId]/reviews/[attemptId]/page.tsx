@@ -1,10 +1,9 @@
 import type { Metadata } from "next";
-import { notFound } from "next/navigation";
+import { forbidden, notFound } from "next/navigation";
 import { asJson } from "@/lib/api-client";
 import { forPage, refused } from "@/lib/auth/access";
 import { staffAttemptAccess } from "@/lib/labs/review";
 import { attemptsFor, attemptsUsed, presentAttempt } from "@/lib/labs/service";
-import { Refusal } from "@/components/shell/refusal";
 import { FeedbackView } from "@/components/labs/feedback/feedback-view";
 import { typeset } from "@/components/labs/feedback/typeset";
 
@@ -16,7 +15,7 @@ export default async function ReviewAttemptPage({ params }: { params: Promise<{ 
   const { courseId, attemptId } = await params;
   const here = `/courses/${courseId}/reviews/${attemptId}`;
   const found = await forPage(staffAttemptAccess(attemptId), here);
-  if (refused(found)) return <Refusal message={found.refused} backHref={`/courses/${courseId}`} />;
+  if (refused(found)) forbidden();
   const { attempt, lab, access } = found;
   if (lab.courseId !== courseId) notFound();
   const presented = presentAttempt(attempt, lab, true, await attemptsUsed(attempt));

@@ -1,0 +1,5 @@
+import { Refusal } from "@/components/shell/refusal";
+
+export default function Forbidden() {
+  return <Refusal message="Only the course's instructors change its settings." />;
+}
