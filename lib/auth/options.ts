@@ -29,6 +29,16 @@ export const authOptions: NextAuthOptions = {
     }),
   ],
   callbacks: {
+    // Only ever somewhere on this site: a callbackUrl that is not a URL (next-auth's own check would throw,
+    // a 500) or that names another origin goes home.
+    async redirect({ url, baseUrl }) {
+      try {
+        const target = new URL(url, baseUrl);
+        return target.origin === new URL(baseUrl).origin ? target.toString() : baseUrl;
+      } catch {
+        return baseUrl;
+      }
+    },
     async jwt({ token, user }) {
       // `at`: when this sign-in happened. next-auth renews `iat` whenever it re-issues the cookie, so the
       // sign-in time travels separately; sessions signed in before a password reset are refused below.

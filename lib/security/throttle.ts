@@ -24,6 +24,10 @@ export const LIMITS = {
 
 export type LimitName = keyof typeof LIMITS;
 
+/** A counter's key as stored: lower case, without control characters (PostgreSQL text cannot hold NUL). */
+// eslint-disable-next-line no-control-regex
+const keyOf = (key: string) => key.toLowerCase().replace(/[\u0000-\u001f\u007f]/g, "");
+
 const WHAT: Record<string, string> = {
   signIn: "sign-in attempts",
   signUp: "sign-up attempts",
@@ -70,7 +74,7 @@ export class TooManyRequests extends AppError {
  * empty are skipped.
  */
 export async function throttle(counters: [LimitName, string | null | undefined][]): Promise<void> {
-  const results = await Promise.allSettled(counters.filter(([, key]) => key).map(([name, key]) => limiter(name).consume(key!.toLowerCase())));
+  const results = await Promise.allSettled(counters.filter(([, key]) => key).map(([name, key]) => limiter(name).consume(keyOf(key!))));
   let wait = 0;
   for (const r of results) {
     if (r.status === "rejected") {
@@ -90,7 +94,7 @@ export async function refuseIfUsedUp(counters: [LimitName, string | null | undef
   let wait = 0;
   for (const [name, key] of counters) {
     if (!key) continue;
-    const res = await limiter(name).get(key.toLowerCase());
+    const res = await limiter(name).get(keyOf(key));
     if (res && res.consumedPoints >= LIMITS[name].points) wait = Math.max(wait, res.msBeforeNext);
   }
   if (wait > 0) throw new TooManyRequests(Math.ceil(wait / 1000), WHAT.signIn);
@@ -98,12 +102,12 @@ export async function refuseIfUsedUp(counters: [LimitName, string | null | undef
 
 /** Counts one failed try against every counter (a refusal is already handled by refuseIfUsedUp). */
 export async function countFailure(counters: [LimitName, string | null | undefined][]): Promise<void> {
-  await Promise.allSettled(counters.filter(([, key]) => key).map(([name, key]) => limiter(name).consume(key!.toLowerCase())));
+  await Promise.allSettled(counters.filter(([, key]) => key).map(([name, key]) => limiter(name).consume(keyOf(key!))));
 }
 
 /** Forgets a counter (a successful sign-in clears its account's failures). */
 export async function forgive(name: LimitName, key: string | null | undefined): Promise<void> {
-  if (key) await limiter(name).delete(key.toLowerCase());
+  if (key) await limiter(name).delete(keyOf(key));
 }
 
 /**

@@ -74,13 +74,19 @@ describe("state-changing JSON routes", () => {
   it("cut a body over 256 KB at the limit, with or without Content-Length (413)", async () => {
     const big = JSON.stringify({ email: "x@test.example", role: "student", section: "s".repeat(300 * 1024) });
     const json = { "content-type": "application/json" };
-    const declared = await instructor.streamPost(path(), { ...json, "content-length": String(Buffer.byteLength(big)) }, [Buffer.from(big)]);
+    const declared = await instructor.streamPost(path(), { ...json, "content-length": String(Buffer.byteLength(big)) }, () => [Buffer.from(big)]);
     expect(declared.status).toBe(413);
     expect(declared.body.error.code).toBe("payload_too_large");
     // chunked: no Content-Length, the server must count the bytes as they come
-    const chunked = await instructor.streamPost(path(), json, (function* () {
-      for (let i = 0; i < 40; i++) yield Buffer.from("x".repeat(16 * 1024));
-    })());
+    // 320 KB sent and the request left open: the answer cannot wait for the body's end
+    const chunked = await instructor.streamPost(
+      path(),
+      json,
+      function* () {
+        for (let i = 0; i < 40; i++) yield Buffer.from("x".repeat(16 * 1024));
+      },
+      { holdAfter: 320 * 1024 },
+    );
     expect(chunked.status).toBe(413);
   });
 
@@ -133,19 +139,22 @@ describe("sessions", () => {
 
 describe("uploads", () => {
   // a multipart-looking body of `mb` megabytes, streamed without a Content-Length
-  const chunks = function* (mb: number) {
-    yield Buffer.from("--b\r\ncontent-disposition: form-data; name=\"file\"; filename=\"big.png\"\r\n\r\n");
-    for (let i = 0; i < mb * 16; i++) yield Buffer.alloc(64 * 1024, 1);
-  };
+  const chunks = (mb: number) =>
+    function* () {
+      yield Buffer.from("--b\r\ncontent-disposition: form-data; name=\"file\"; filename=\"big.png\"\r\n\r\n");
+      for (let i = 0; i < mb * 16; i++) yield Buffer.alloc(64 * 1024, 1);
+    };
+  // every byte sent and the request left open: the answer cannot wait for the body's end
+  const held = (mb: number) => ({ holdAfter: mb * 1024 * 1024 });
   const multipart = { "content-type": "multipart/form-data; boundary=b" };
 
   it("refuse an anonymous caller before reading the body (401)", async () => {
-    const r = await new Client().streamPost("/api/uploads", multipart, chunks(1));
+    const r = await new Client().streamPost("/api/uploads", multipart, chunks(1), held(1));
     expect(r.status).toBe(401);
   });
 
   it("cut a streamed body without Content-Length at the limit (413 naming file)", async () => {
-    const r = await instructor.streamPost("/api/uploads", multipart, chunks(11));
+    const r = await instructor.streamPost("/api/uploads", multipart, chunks(11), held(11));
     expect(r.status).toBe(413);
     expect(r.body.error.fields).toHaveProperty("file");
   });

@@ -50,11 +50,23 @@ export class Client {
   }
 
   /**
-   * POSTs chunks as a streamed body, without a Content-Length unless `headers` gives one. A server that
-   * answers before the body ends (413) and closes the connection is read as its answer: the write error
-   * the client then meets (EPIPE, reset) is what any client sees and is not the result.
+   * POSTs chunks as a streamed body, without a Content-Length unless `headers` gives one. With `holdAfter`,
+   * writing stops once that many bytes are sent and the request stays open, unended, until the server
+   * answers: a server that cuts a body at a limit must answer without waiting for its end. A server that
+   * answers before the body ends (413) and closes the connection is read as its answer; the write error the
+   * client may then meet (EPIPE, reset) is what any client sees and is not the result. A write can still
+   * race the server's close and lose an answer that was sent: then the request is sent once more.
    */
-  streamPost(path: string, headers: Record<string, string>, chunks: Iterable<Buffer>): Promise<{ status: number; body: any }> {
+  async streamPost(path: string, headers: Record<string, string>, chunks: () => Iterable<Buffer>, opts: { holdAfter?: number } = {}): Promise<{ status: number; body: any }> {
+    try {
+      return await this.streamOnce(path, headers, chunks(), opts.holdAfter ?? Infinity);
+    } catch (e) {
+      if (!["EPIPE", "ECONNRESET"].includes((e as NodeJS.ErrnoException).code ?? "")) throw e;
+      return this.streamOnce(path, headers, chunks(), opts.holdAfter ?? Infinity);
+    }
+  }
+
+  private streamOnce(path: string, headers: Record<string, string>, chunks: Iterable<Buffer>, holdAfter: number): Promise<{ status: number; body: any }> {
     return new Promise((resolve, reject) => {
       const all: Record<string, string> = { origin: new URL(baseURL).origin, ...headers };
       if (!("content-length" in all)) all["transfer-encoding"] = "chunked";
@@ -63,9 +75,7 @@ export class Client {
       const req = httpRequest(baseURL + path, { method: "POST", headers: all }, (res) => {
         answered = true;
         let text = "";
-        res.setEncoding("utf8");
-        res.on("data", (d) => (text += d));
-        res.on("end", () => {
+        const done = () => {
           let body: unknown = null;
           try {
             body = JSON.parse(text);
@@ -73,18 +83,26 @@ export class Client {
             body = null;
           }
           resolve({ status: res.statusCode ?? 0, body });
-        });
-        res.on("error", reject);
+          req.destroy();
+        };
+        res.setEncoding("utf8");
+        res.on("data", (d) => (text += d));
+        res.on("end", done);
+        // the connection closed right after the answer: what arrived is the answer
+        res.on("error", done);
       });
       req.on("error", (e) => {
         if (!answered) reject(e);
       });
       const it = chunks[Symbol.iterator]();
+      let sent = 0;
       const pump = () => {
         for (;;) {
           if (answered || req.destroyed) return;
+          if (sent >= holdAfter) return; // wait, unended, for the answer
           const n = it.next();
           if (n.done) return void req.end();
+          sent += n.value.length;
           if (!req.write(n.value)) return void req.once("drain", pump);
         }
       };

@@ -1,14 +1,19 @@
-// Fuzzing the upload route through HTTP: fast-check generates multipart bodies for POST /api/uploads, the
-// one mutation that takes a file instead of JSON, and the trace reader behind it (a CSV of time and current
-// is analysed as it is accepted). Files are logged traces a student might export (headers with and without
-// units, decimal commas, semicolons, tabs, blank and broken rows, a byte-order mark, huge and odd numbers),
-// images with and without a real signature, and random bytes; names with paths, Unicode and odd lengths; the
-// lab named by a good id, a stranger's id, text or not at all; the form's own structure broken at times.
-// No answer may be a 5xx; a 201 carries the stored upload; every 4xx is `{ error: { code, message, fields } }`
-// naming a field.
+// Fuzzing through HTTP the two mutations that take no JSON.
 //
-// `npm test` sends a tenth of SHUNTWISE_FUZZ_RUNS (1,000 unless set) with a fixed seed; `npm run fuzz` a
-// tenth of 10,000. SHUNTWISE_FUZZ_SEED=<seed> replays a failure.
+// Uploads: fast-check generates multipart bodies for POST /api/uploads and the trace reader behind it (a CSV
+// of time and current is analysed as it is accepted). Files are logged traces a student might export
+// (headers with and without units, decimal commas, semicolons, tabs, blank and broken rows, a byte-order
+// mark, huge and odd numbers), images with and without a real signature, and random bytes; names with
+// paths, Unicode and odd lengths; the lab named by a good id, a stranger's id, text or not at all; the
+// form's own structure broken at times. No answer may be a 5xx; a 201 carries the stored upload; every 4xx
+// is `{ error: { code, message, fields } }` naming a field.
+//
+// Sign-in: URL-encoded forms to the credentials sign-in (odd e-mails and passwords, very long ones,
+// missing or wrong CSRF tokens, repeated and unknown fields). No answer may be a 5xx, a 429 carries
+// Retry-After, and no such form ever gets a session.
+//
+// `npm test` sends a tenth of SHUNTWISE_FUZZ_RUNS (1,000 unless set) to each with a fixed seed; `npm run
+// fuzz` a tenth of 10,000. SHUNTWISE_FUZZ_SEED=<seed> replays a failure.
 import fc from "fast-check";
 import { beforeAll, describe, expect, it } from "vitest";
 import { baseURL, Client } from "../support/http";
@@ -173,5 +178,56 @@ describe(`fuzzing uploads through HTTP (${RUNS} bodies, seed ${SEED})`, () => {
     const refused = await student.json("/api/uploads", { method: "POST", body: stranger });
     expect(refused.status).toBe(404);
     expect(Object.keys(refused.body.error.fields)).toEqual(["labId"]);
+  });
+});
+
+// --- sign-in
+
+const RUN_TAG = Math.random().toString(36).slice(2, 8);
+const text = fc.oneof(
+  fc.string({ maxLength: 60 }),
+  fc.string({ unit: "grapheme", maxLength: 30 }),
+  fc.constantFrom("", " ", "a@b", "@", "x@y.z", "ADMIN@EXAMPLE.EXAMPLE", "' or 1=1 --", "%00", "\u0000", "a".repeat(5000), "é@ü.example"),
+);
+const signInCase = fc.record({
+  email: fc.oneof(text, fc.nat().map((n) => `fuzz.${n}@test.example`)),
+  password: fc.oneof(text, fc.constant("x".repeat(100_000))),
+  csrf: fc.constantFrom("good", "good", "good", "wrong", "missing"),
+  extra: fc.option(fc.dictionary(fc.constantFrom("email", "password", "callbackUrl", "json", "redirect", "role", "isAdmin"), text, { maxKeys: 3 })),
+});
+
+describe(`fuzzing sign-in through HTTP (${RUNS} forms, seed ${SEED})`, () => {
+  it("answers no form with a 5xx, sends Retry-After with a 429, and never signs anyone in", { timeout: 600_000 }, async () => {
+    const all = fc.sample(signInCase, { numRuns: RUNS, seed: SEED + 1 });
+    const statuses: Record<number, number> = {};
+    const faults: string[] = [];
+    let next = 0;
+    await Promise.all(
+      Array.from({ length: CONCURRENCY }, async () => {
+        while (next < all.length) {
+          const n = next++;
+          const c = all[n];
+          const client = new Client();
+          const csrf = await client.json("/api/auth/csrf");
+          const form = new URLSearchParams();
+          if (c.csrf !== "missing") form.append("csrfToken", c.csrf === "good" ? csrf.body.csrfToken : "0".repeat(64));
+          // an e-mail made unique per form, so the per-account throttle of one does not decide another's answer
+          form.append("email", c.email.includes("@test.example") ? c.email.replace("@", `.${RUN_TAG}.${n}@`) : c.email);
+          form.append("password", c.password);
+          form.append("json", "true");
+          for (const [k, v] of Object.entries(c.extra ?? {})) form.append(k, v);
+          const res = await client.fetch("/api/auth/callback/credentials", { method: "POST", headers: { "content-type": "application/x-www-form-urlencoded" }, body: form.toString() });
+          await res.arrayBuffer();
+          statuses[res.status] = (statuses[res.status] ?? 0) + 1;
+          const session = res.headers.getSetCookie().some((k) => /next-auth\.session-token=[^;]/.test(k));
+          const sent = `csrf ${c.csrf}, e-mail ${JSON.stringify(c.email.slice(0, 60))}, password of ${c.password.length} characters, extra ${JSON.stringify(c.extra)?.slice(0, 120)}`;
+          if (res.status >= 500) faults.push(`answered ${res.status}\n    sent: ${sent}`);
+          if (res.status === 429 && !(Number(res.headers.get("retry-after")) > 0)) faults.push(`answered 429 without Retry-After\n    sent: ${sent}`);
+          if (session) faults.push(`answered with a session\n    sent: ${sent}`);
+        }
+      }),
+    );
+    console.log(`fuzz sign-in: ${all.length} forms: ${Object.entries(statuses).map(([k, v]) => `${k}×${v}`).join(" ")}`);
+    expect(faults.slice(0, 20), `${faults.length} of ${all.length} answers are wrong (replay with SHUNTWISE_FUZZ_SEED=${SEED})`).toEqual([]);
   });
 });
