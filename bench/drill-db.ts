@@ -4,16 +4,19 @@
 // stand-ins and the production build on a free port; seeds one course with STUDENTS students and a
 // published lab; signs them in; then CONCURRENCY clients submit SUBMISSIONS attempts in all. Once a
 // third of them are stored it stops PostgreSQL (`pg_ctl stop -m fast`), keeps it down OUTAGE_MS, and
-// starts it again. A client that gets 503 waits for its Retry-After (at most 1 s here, to keep the
+// starts it again; the last third is sent only once PostgreSQL is down, so that even a short burst on a
+// fast machine meets the outage. A client that gets 503 waits for its Retry-After (at most 1 s here, to keep the
 // drill short) and sends the same request again with the same idempotency key, as the app's forms do.
 //
 // Asserts: every answer was 2xx or 503 with Retry-After (never a 500, never a dropped connection);
 // at least one 503 was seen; the app answered again without a restart (same process); every key that
 // got a 2xx is stored exactly once, as one attempt with its one "graded" grade event and its one
 // queued e-mail (no attempt half-written); every graded e-mail reaches the SMTP stand-in (the job
-// workers came back too). Prints its figures and stops everything it started, also on Ctrl-C.
+// workers came back too); the app logged the outage without an uncaught exception or a stack trace.
+// Prints its figures and stops everything it started, also on Ctrl-C.
 //
-// Run: npm run drill:db  (SHUNTWISE_DRILL_STUDENTS, _SUBMISSIONS, _CONCURRENCY, _OUTAGE_MS to change the size)
+// Run: npm run drill:db  (SHUNTWISE_DRILL_STUDENTS, _SUBMISSIONS, _CONCURRENCY, _OUTAGE_MS to change the
+// size). `npm test` runs a short one after the other tiers, on the build they used (.next-test).
 import { type ChildProcess, spawn } from "node:child_process";
 import fs from "node:fs";
 import path from "node:path";
@@ -157,7 +160,13 @@ async function main(): Promise<number> {
   // a mail job cut off by the outage stays "active" until it expires; a short expiry keeps the drill short
   const env = { ...appEnv(cfg, url), SHUNTWISE_PER_ADDRESS_FACTOR: "100", SHUNTWISE_MAIL_EXPIRE_SECONDS: "30", SHUNTWISE_MAIL_RETRY_DELAY: "2" };
   await buildIfStale(".next-test", env);
-  server = startNext({ distDir: ".next-test", port: cfg.appPort, host: cfg.appHost, env, quiet: true });
+  server = startNext({ distDir: ".next-test", port: cfg.appPort, host: cfg.appHost, env, quiet: true, pipeErrors: true });
+  // what the app logs goes on to this process's standard error, and is kept for the checks
+  let appLog = "";
+  server.stderr!.on("data", (d: Buffer) => {
+    appLog += d.toString();
+    process.stderr.write(d);
+  });
   const appUrl = `http://${cfg.appHost}:${cfg.appPort}`;
   await waitForHttp(`${appUrl}/api/health`, server);
   const serverPid = server.pid;
@@ -180,15 +189,25 @@ async function main(): Promise<number> {
   let withoutRetryAfter = 0;
   let networkErrors = 0;
   let next = 0;
+  let finished = 0;
   const unexpected: string[] = [];
   const outage: { stoppedAt?: number; startedAt?: number; firstOkAfter?: number } = {};
   const count = (s: string) => statuses.set(s, (statuses.get(s) ?? 0) + 1);
 
+  // the last third of the submissions waits until PostgreSQL is down (or could not be stopped)
+  const held = Math.ceil((2 * SUBMISSIONS) / 3);
+  let down!: () => void;
+  const isDown = new Promise<void>((r) => (down = r));
   const outageDone = (async () => {
-    while (stored.size < SUBMISSIONS / 3) await new Promise((r) => setTimeout(r, 20));
-    console.log(`${stored.size} stored: stopping PostgreSQL…`);
-    await stopPostgresAsync(pgInfo.dataDir);
-    outage.stoppedAt = Date.now();
+    try {
+      // a third stored, or everything before the held third answered (a failing burst still ends)
+      while (stored.size < SUBMISSIONS / 3 && finished < held) await new Promise((r) => setTimeout(r, 20));
+      console.log(`${stored.size} stored: stopping PostgreSQL…`);
+      await stopPostgresAsync(pgInfo.dataDir);
+      outage.stoppedAt = Date.now();
+    } finally {
+      down();
+    }
     await new Promise((r) => setTimeout(r, OUTAGE_MS));
     console.log("starting PostgreSQL again…");
     await ensurePostgres(cfg, { fast: true });
@@ -235,7 +254,11 @@ async function main(): Promise<number> {
   const started = Date.now();
   await Promise.all(
     Array.from({ length: CONCURRENCY }, async () => {
-      for (let i = next++; i < SUBMISSIONS; i = next++) await submitOne(i);
+      for (let i = next++; i < SUBMISSIONS; i = next++) {
+        if (i >= held) await isDown;
+        await submitOne(i);
+        finished++;
+      }
     }),
   );
   await outageDone;
@@ -277,6 +300,12 @@ async function main(): Promise<number> {
     const mailStates = await sql<{ state: string; n: number }>`select state, count(*)::int as n from pgboss.job where name = 'mail-send' group by state`.execute(db);
     console.log(`mail jobs: ${mailStates.rows.map((r) => `${r.state} × ${r.n}`).join(", ")}`);
     check((await sent()) === rows.length && delivered === rows.length, `every graded e-mail was sent once after the restart (${delivered} messages for ${rows.length} attempts)`, failures);
+    const lost = appLog.match(/^PostgreSQL connection lost/gm)?.length ?? 0;
+    check(
+      lost > 0 && !/uncaughtException|unhandledRejection|^\s+at /m.test(appLog),
+      `the app logged the outage in ${lost} line(s), without an uncaught exception or a stack trace`,
+      failures,
+    );
   } finally {
     await db.destroy();
   }

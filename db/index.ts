@@ -1,6 +1,6 @@
 // The one Kysely instance of the application. It connects lazily, on first use, from DATABASE_URL.
 import { Kysely, PostgresDialect } from "kysely";
-import pg from "pg";
+import { newPool } from "./pool";
 import type { Database } from "./types";
 
 export type { Database } from "./types";
@@ -8,11 +8,7 @@ export type { Database } from "./types";
 const globalForDb = globalThis as unknown as { shuntwiseDb?: Kysely<Database> };
 
 export function createDb(connectionString: string, max = 10): Kysely<Database> {
-  const pool = new pg.Pool({ connectionString, max });
-  // An idle connection closed by the server (a restart, a dropped database) must not crash the process;
-  // the pool replaces it on the next query.
-  pool.on("error", (e) => console.warn(`database connection closed: ${e.message}`));
-  return new Kysely<Database>({ dialect: new PostgresDialect({ pool }) });
+  return new Kysely<Database>({ dialect: new PostgresDialect({ pool: newPool(connectionString, max) }) });
 }
 
 function connectionString(): string {

@@ -68,7 +68,9 @@ export function isDatabaseUnavailable(e: unknown, depth = 0): boolean {
   if (!e || typeof e !== "object" || depth > 4) return false;
   const code = (e as { code?: unknown }).code;
   if (typeof code === "string" && (PG_UNAVAILABLE.has(code) || NET_UNAVAILABLE.has(code))) return true;
-  if (e instanceof Error && MESSAGE_UNAVAILABLE.test(e.message)) return true;
+  // pg-boss reports a worker's failure as a copy of the error's fields, not an Error
+  const message = (e as { message?: unknown }).message;
+  if (typeof message === "string" && MESSAGE_UNAVAILABLE.test(message)) return true;
   if (e instanceof AggregateError && e.errors.some((x) => isDatabaseUnavailable(x, depth + 1))) return true;
   return isDatabaseUnavailable((e as { cause?: unknown }).cause, depth + 1);
 }

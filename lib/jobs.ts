@@ -3,7 +3,9 @@
 // does no harm.
 import { CompiledQuery, type Transaction } from "kysely";
 import PgBoss from "pg-boss";
+import { connectionLost } from "@/db/pool";
 import type { Database } from "@/db/types";
+import { isDatabaseUnavailable } from "@/lib/errors";
 
 export const QUEUES = { regrade: "lab-regrade", mail: "mail-send", uploadSweep: "uploads-sweep" } as const;
 
@@ -17,7 +19,8 @@ export function boss(connectionString = process.env.DATABASE_URL): Promise<PgBos
   if (g.shuntwiseBoss) return g.shuntwiseBoss;
   const starting = (async () => {
     const b = new PgBoss({ connectionString, schema: "pgboss", max: 3 });
-    b.on("error", (e) => console.error("job queue error", e));
+    // its pool and workers report a database outage as the app's pools do: once, in one line
+    b.on("error", (e) => (isDatabaseUnavailable(e) ? connectionLost(e) : console.error("job queue error", e)));
     try {
       await b.start();
       for (const q of Object.values(QUEUES)) await b.createQueue(q);

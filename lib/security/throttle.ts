@@ -4,8 +4,9 @@
 // account's e-mail (whether or not an account has it: the answer and the time taken never tell) and the
 // caller's address.
 import "server-only";
-import pg from "pg";
+import type pg from "pg";
 import { RateLimiterPostgres, RateLimiterRes } from "rate-limiter-flexible";
+import { newPool } from "@/db/pool";
 import { AppError } from "@/lib/errors";
 
 const MIN = 60;
@@ -40,9 +41,7 @@ const limiters = new Map<LimitName, RateLimiterPostgres>();
 
 function limiter(name: LimitName): RateLimiterPostgres {
   if (!pool) {
-    pool = new pg.Pool({ connectionString: process.env.DATABASE_URL, max: 4 });
-    // an idle connection closed by the server (a restart) must not crash the process; the pool replaces it
-    pool.on("error", (e) => console.warn(`throttle database connection closed: ${e.message}`));
+    pool = newPool(process.env.DATABASE_URL, 4);
   }
   let l = limiters.get(name);
   if (!l) {

@@ -15,14 +15,15 @@ export function portInUse(port: number, host = "127.0.0.1"): Promise<boolean> {
   });
 }
 
-export function startNext(opts: { distDir: string; port: number; host: string; env: NodeJS.ProcessEnv; quiet?: boolean }): ChildProcess {
+/** `quiet` drops the server's standard output; `pipeErrors` hands its standard error to the caller (`child.stderr`). */
+export function startNext(opts: { distDir: string; port: number; host: string; env: NodeJS.ProcessEnv; quiet?: boolean; pipeErrors?: boolean }): ChildProcess {
   return spawn(
     process.execPath,
     [path.join(root, "node_modules/next/dist/bin/next"), "start", "-H", opts.host, "-p", String(opts.port)],
     {
       cwd: root,
       env: { ...opts.env, SHUNTWISE_DIST_DIR: opts.distDir, NEXT_TELEMETRY_DISABLED: "1" },
-      stdio: opts.quiet ? ["ignore", "ignore", "inherit"] : "inherit",
+      stdio: ["ignore", opts.quiet ? "ignore" : "inherit", opts.pipeErrors ? "pipe" : "inherit"],
     },
   );
 }
