@@ -1,5 +1,6 @@
 // `npm test`: the same set-up as `npm start` on a separate PostgreSQL cluster, then every test tier
-// (unit, integration against real PostgreSQL, HTTP and browser tests against a production build).
+// (unit, integration against real PostgreSQL, HTTP and browser tests against a production build), and
+// after them a short PostgreSQL outage drill (bench/drill-db.ts) on the same build, counted as one test.
 // The last line is always `summary: N passed, N failed, N skipped`.
 //
 // It stops everything it started, also when a test fails or the run is interrupted (Ctrl-C, SIGTERM):
@@ -49,6 +50,7 @@ interface Counts {
 
 // What has to be undone, newest first, and by whom (the normal end or a signal, whichever comes first).
 const children = new Set<ChildProcess>();
+let drill: ChildProcess | undefined;
 let pgStartedByUs = false;
 let standIns: Awaited<ReturnType<typeof startStandIns>> | undefined;
 let cleaning: Promise<void> | undefined;
@@ -61,6 +63,8 @@ function track(child: ChildProcess): ChildProcess {
 
 function cleanUp(): Promise<void> {
   cleaning ??= (async () => {
+    // the drill stops its own PostgreSQL cluster, server and stand-ins when asked: give it the time
+    if (drill?.pid && drill.exitCode === null) await stopPids([drill.pid], 30_000);
     await stopPids([...children].map((c) => c.pid!).filter(Boolean));
     await standIns?.close();
     if (pgStartedByUs) {
@@ -122,6 +126,34 @@ async function runVitest(env: NodeJS.ProcessEnv, extra: string[]): Promise<Count
   return counts;
 }
 
+/** The short outage drill: sizes from the drill's own variables when set. */
+const DRILL_SIZE = { SHUNTWISE_DRILL_STUDENTS: "20", SHUNTWISE_DRILL_SUBMISSIONS: "80", SHUNTWISE_DRILL_CONCURRENCY: "10", SHUNTWISE_DRILL_OUTAGE_MS: "1500" };
+/** Far above its usual minute on a loaded machine; a drill that hangs must not hang the run. */
+const DRILL_LIMIT_MS = 12 * 60_000;
+
+/**
+ * PostgreSQL stopped and started in the middle of a submission burst (bench/drill-db.ts): its own
+ * cluster, stand-ins and server, on the build the other tiers used (up to date, so not built again).
+ */
+async function runDrill(): Promise<Counts> {
+  console.log("\nOutage drill (bench/drill-db.ts): PostgreSQL stopped and started during a submission burst…");
+  const env = { ...process.env };
+  for (const [key, value] of Object.entries(DRILL_SIZE)) env[key] ||= value;
+  drill = track(spawn(process.execPath, [path.join(root, "node_modules/tsx/dist/cli.mjs"), "bench/drill-db.ts"], { cwd: root, stdio: ["ignore", "inherit", "inherit"], env }));
+  const child = drill;
+  let overtime = false;
+  const limit = setTimeout(() => {
+    overtime = true;
+    console.error(`The drill did not end within ${DRILL_LIMIT_MS / 60_000} minutes: stopping it.`);
+    void stopPids([child.pid!], 30_000);
+  }, DRILL_LIMIT_MS);
+  const code = await new Promise<number | null>((resolve) => child.on("exit", (status) => resolve(status)));
+  clearTimeout(limit);
+  const ok = code === 0 && !overtime;
+  console.log(ok ? "Outage drill passed." : "Outage drill FAILED (see its checks above).");
+  return { passed: ok ? 1 : 0, failed: ok ? 0 : 1, skipped: 0 };
+}
+
 async function main(): Promise<Counts> {
   const extra = process.argv.slice(2);
   await cleanUpAfterKilledRun();
@@ -162,7 +194,7 @@ async function main(): Promise<Counts> {
   const url = `http://${cfg.appHost}:${cfg.appPort}`;
   await waitForHttp(`${url}/api/health`, server);
   console.log(`App under test on ${url}.`);
-  return await runVitest(
+  const tiers = await runVitest(
     {
       ...env,
       NODE_ENV: "test",
@@ -175,6 +207,12 @@ async function main(): Promise<Counts> {
     },
     extra,
   );
+  // a run of chosen tests (arguments after --) leaves the drill out; the whole suite ends with it, the
+  // app under test stopped first to leave the machine to it
+  if (extra.length > 0 || interrupted) return tiers;
+  await stopPids([server.pid!]);
+  const drilled = await runDrill();
+  return { passed: tiers.passed + drilled.passed, failed: tiers.failed + drilled.failed, skipped: tiers.skipped };
 }
 
 function finish(c: Counts, code: number): never {
