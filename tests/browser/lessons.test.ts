@@ -37,6 +37,23 @@ async function plotPixels(page: Page, testId: string): Promise<string> {
   return canvas.evaluate((c: HTMLCanvasElement) => c.toDataURL());
 }
 
+/** Signed in as `email`, each lesson answers 200 and axe finds no serious or critical violation once its calculators are in. */
+async function noSeriousViolations(email: string, slugs: string[]): Promise<void> {
+  const { context, page } = await newPage(browser);
+  try {
+    await signIn(page, email);
+    for (const slug of slugs) {
+      expect((await page.goto(`/lessons/${slug}`))?.status(), slug).toBe(200);
+      await revealAll(page);
+      const results = await new AxeBuilder({ page }).analyze();
+      const serious = results.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
+      expect(serious.map((v) => `${slug}: ${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`)).toEqual([]);
+    }
+  } finally {
+    await context.close();
+  }
+}
+
 describe("lessons in the browser", () => {
   it("a student changes the duty-cycle calculator and sees the average, the life and the plot change", async () => {
     const { context, page } = await newPage(browser);
@@ -146,38 +163,12 @@ describe("lessons in the browser", () => {
   });
 
   it("a lesson page has no serious or critical accessibility violations", async () => {
-    const context = await browser.newContext({ baseURL: process.env.SHUNTWISE_TEST_URL ?? "http://127.0.0.1:3100" });
-    const page = await context.newPage();
-    try {
-      await signIn(page, demo.student);
-      for (const slug of ["duty-cycled-loads", "bench-safety"]) {
-        await page.goto(`/lessons/${slug}`);
-        await revealAll(page);
-        const results = await new AxeBuilder({ page }).analyze();
-        const serious = results.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
-        expect(serious.map((v) => `${slug}: ${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`)).toEqual([]);
-      }
-    } finally {
-      await context.close();
-    }
+    await noSeriousViolations(demo.student, ["duty-cycled-loads", "bench-safety"]);
   });
 
   it("the nanoamp, microvolt and sampling lessons and the budget table have no serious or critical accessibility violations", async () => {
-    const context = await browser.newContext({ baseURL: process.env.SHUNTWISE_TEST_URL ?? "http://127.0.0.1:3100" });
-    const page = await context.newPage();
-    try {
-      // read as the TA: the demo course opens the last three lessons to students later (db/seed/demo.ts)
-      await signIn(page, demo.ta);
-      for (const slug of ["leakage-and-guarding", "sampling-short-bursts", "uncertainty-budget"]) {
-        expect((await page.goto(`/lessons/${slug}`))?.status(), slug).toBe(200);
-        await revealAll(page);
-        const results = await new AxeBuilder({ page }).analyze();
-        const serious = results.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
-        expect(serious.map((v) => `${slug}: ${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`)).toEqual([]);
-      }
-    } finally {
-      await context.close();
-    }
+    // read as the TA: the demo course opens the last three lessons to students later (db/seed/demo.ts)
+    await noSeriousViolations(demo.ta, ["leakage-and-guarding", "sampling-short-bursts", "uncertainty-budget"]);
   });
 
   it("the page's math is typeset but no KaTeX script reaches the browser", async () => {

@@ -17,7 +17,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { questions as lessonQuestions } from "@/lib/lessons/questions";
 import { e2eDb } from "../support/db";
 import { Client } from "../support/http";
-import { addPerson, clientFor, courseWithPeople, serverActionIds } from "./fixtures";
+import { addPerson, attemptWithReview, clientFor, courseWithPeople, fixedCircuitLab, publishedLab, sendAs, serverActionIds } from "./fixtures";
 
 const ROLES = ["anonymous", "outsider", "student", "peer", "ta", "instructor", "admin"] as const;
 type Role = (typeof ROLES)[number];
@@ -99,31 +99,6 @@ const as = {} as Record<Role, Client>;
 /** Unique marks in the student's and the other student's data; who may see whose is asserted per cell. */
 const MARK = { student: `mark-s-${Math.random().toString(36).slice(2, 10)}`, peer: `mark-p-${Math.random().toString(36).slice(2, 10)}` };
 
-const DAY = 24 * 3600 * 1000;
-const labBody = () => ({
-  title: "Matrix lab",
-  templateKey: "shunt-burden",
-  spec: {
-    template: "shunt-burden",
-    parameters: {
-      supplyVoltage: { mode: "list", values: [3.3, 5] },
-      loadResistance: { mode: "range", min: 100, max: 470, series: "E24", tolerancePercent: 1 },
-      shuntResistance: { mode: "range", min: 22, max: 47, series: "E12", tolerancePercent: 1 },
-    },
-  },
-  questions: [{ quantity: "indicatedCurrent", kind: "prediction", points: 4 }],
-  policy: { relativeTolerance: 0.01 },
-  attemptsAllowed: 3,
-  counting: "best",
-  opensAt: new Date(Date.now() - DAY).toISOString(),
-  dueAt: new Date(Date.now() + 7 * DAY).toISOString(),
-  latePenaltyPercentPerDay: 10,
-  lateFloorPercent: 50,
-  showExpected: "after_attempt",
-  instructions: "Measure it.",
-  safetyNotes: "Set the current limit first.",
-});
-
 // the eight-byte PNG signature (ISO/IEC 15948, 5.2) followed by an IHDR chunk, as in labs.test.ts
 const PNG = new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0, 13, 0x49, 0x48, 0x44, 0x52, 0, 0, 0, 1, 0, 0, 0, 1, 8, 2, 0, 0, 0, 0x90, 0x77, 0x53, 0xde]);
 
@@ -158,21 +133,11 @@ beforeAll(async () => {
   [as.outsider, as.student, as.peer, as.ta, as.instructor, as.admin] = signedIn;
   as.anonymous = new Client();
 
-  const created = await as.instructor.post(`/api/courses/${f.courseId}/labs`, labBody());
-  expect(created.status).toBe(201);
-  const labId = created.body.lab.id as string;
-  const pub = await as.instructor.json(`/api/labs/${labId}`, { method: "PATCH", headers: { "content-type": "application/json" }, body: JSON.stringify({ status: "published" }) });
-  expect(pub.status).toBe(200);
+  const labId = await publishedLab(sendAs(as.instructor), f.courseId, fixedCircuitLab({ title: "Matrix lab" }));
 
   // both students submit and ask for a review with their mark in the message; the student uploads a file
   // named with their mark
-  const submit = async (c: Client, mark: string) => {
-    const a = await c.post(`/api/labs/${labId}/attempts`, { idempotencyKey: `matrix-${mark}`, readings: { [pub.body.lab.questions[0].id]: "1 mA" } });
-    expect(a.status).toBe(201);
-    const r = await c.post(`/api/attempts/${a.body.attempt.id}/review`, { message: `Please look again (${mark}).` });
-    expect(r.status).toBe(201);
-    return a.body.attempt.id as string;
-  };
+  const submit = (c: Client, mark: string) => attemptWithReview(sendAs(c), labId, `Please look again (${mark}).`);
   const [attemptId, peerAttemptId] = await Promise.all([submit(as.student, MARK.student), submit(as.peer, MARK.peer)]);
   const up = await as.student.json("/api/uploads", { method: "POST", body: uploadForm(labId, PNG, `${MARK.student}.png`) });
   expect(up.status).toBe(201);

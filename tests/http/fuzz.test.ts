@@ -10,12 +10,11 @@
 import fc from "fast-check";
 import { beforeAll, describe, expect, it } from "vitest";
 import { Client } from "../support/http";
-import { addPerson, clientFor, courseWithPeople, serverActionIds } from "./fixtures";
+import { addPerson, clientFor, courseWithPeople, fixedCircuitLab, serverActionIds } from "./fixtures";
 
 const RUNS = Number(process.env.SHUNTWISE_FUZZ_RUNS ?? 1000);
 const SEED = Number(process.env.SHUNTWISE_FUZZ_SEED ?? 20261202);
 const CONCURRENCY = 20;
-const DAY = 24 * 3600 * 1000;
 
 type Who = "student" | "ta" | "instructor" | "admin" | "anonymous";
 interface Target {
@@ -316,10 +315,13 @@ const TARGETS: Target[] = [
   { name: "GET /api/courses/{courseId}/gradebook?…", who: "ta", method: "GET", query: true, path: () => `/api/courses/${w.courseId}/gradebook`, valid: () => ({ format: "json" }), weight: 1 },
 ];
 
+/**
+ * The fixtures' lab with more of the lab schema for near-valid bodies to change: a list and two ranges
+ * (series, tolerances) instead of fixed values, a bench question, 20 attempts and a late penalty.
+ */
 function labBody() {
-  return {
+  return fixedCircuitLab({
     title: "Fuzz lab",
-    templateKey: "shunt-burden",
     spec: {
       template: "shunt-burden",
       parameters: {
@@ -333,17 +335,10 @@ function labBody() {
       { quantity: "trueCurrent", kind: "prediction", points: 3 },
       { quantity: "burdenVoltage", kind: "bench", points: 3 },
     ],
-    policy: { relativeTolerance: 0.01 },
     attemptsAllowed: 20,
-    counting: "best",
-    opensAt: new Date(Date.now() - DAY).toISOString(),
-    dueAt: new Date(Date.now() + 7 * DAY).toISOString(),
     latePenaltyPercentPerDay: 10,
     lateFloorPercent: 50,
-    showExpected: "after_attempt",
-    instructions: "Measure it.",
-    safetyNotes: "Set the current limit first.",
-  };
+  });
 }
 
 beforeAll(async () => {

@@ -11,6 +11,7 @@ import type { CourseAccess } from "@/lib/auth/access";
 import { findLab } from "@/db/queries/labs";
 import { toLab, withIds } from "@/lib/labs/grading";
 import type { VariantSpec } from "@/lib/grader";
+import { fixedCircuitLab } from "../http/fixtures";
 
 export function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {
@@ -76,25 +77,9 @@ export const FIXED_QUESTIONS = [
   { quantity: "indicatedCurrent", kind: "prediction", points: 3 },
 ] as const;
 
-/** A lab on the fixed circuit as the API takes it: open since yesterday, due in a week, no late penalty. */
+/** A lab on the mail tests' circuit as the API takes it: open since yesterday, due in a week, no late penalty. */
 export function fixedLabBody(title: string) {
-  const day = 24 * 3600 * 1000;
-  return {
-    title,
-    templateKey: "shunt-burden",
-    spec: FIXED_SPEC,
-    questions: FIXED_QUESTIONS,
-    policy: { relativeTolerance: 0.01 },
-    attemptsAllowed: 3,
-    counting: "best",
-    opensAt: new Date(Date.now() - day).toISOString(),
-    dueAt: new Date(Date.now() + 7 * day).toISOString(),
-    latePenaltyPercentPerDay: 0,
-    lateFloorPercent: 0,
-    showExpected: "after_attempt",
-    instructions: "Measure it.",
-    safetyNotes: "Set the bench supply's current limit first.",
-  };
+  return fixedCircuitLab({ title, spec: FIXED_SPEC, questions: FIXED_QUESTIONS, safetyNotes: "Set the bench supply's current limit first." });
 }
 
 /**
