@@ -130,8 +130,12 @@ describe("who may read the mailbox and the outbox", () => {
     expect(bad.body.error.fields).toHaveProperty("to");
     const ok = await admin.json("/api/dev/mail?to=nobody@nowhere.example");
     expect(ok.body).toEqual({ messages: [] });
-    expect((await as.student.fetch("/dev/mailbox")).status).toBe(200); // the shell renders a refusal
-    expect(await (await as.student.fetch("/dev/mailbox")).text()).toContain("Only a site administrator");
+    // the page refuses with 403; the browser draws app/(app)/dev/forbidden.tsx inside the app's shell
+    const refused = await as.student.fetch("/dev/mailbox");
+    expect(refused.status).toBe(403);
+    const page = await refused.text();
+    expect(page).toContain("NEXT_HTTP_ERROR_FALLBACK;403");
+    expect(page).toContain("Only a site administrator");
   });
 
   it("the outbox shows counts and failures to admins; a failed message can be sent again and then arrives", async () => {
