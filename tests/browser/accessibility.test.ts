@@ -258,6 +258,8 @@ describe("flow 1 with the keyboard alone", () => {
       await page.waitForURL(`**/labs/${keyboardLabId}`);
       expect(await page.getByRole("heading", { level: 1 }).textContent()).toBe(TITLE);
       await page.getByTestId("submission-form").waitFor();
+      // the form registers its fields when it hydrates (the button is enabled then): type after that
+      await expect.poll(() => page.getByRole("button", { name: "Submit for grading" }).isEnabled(), { timeout: 20_000 }).toBe(true);
 
       // the readings, typed into each field reached with Tab; Shift+Tab goes back to the first
       await tabTo(page, "the first reading", (f) => f.tag === "input" && /^1\. Current the meter shows/.test(f.label));

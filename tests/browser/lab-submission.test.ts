@@ -102,6 +102,8 @@ describe("lab submission in the browser (flow 1)", () => {
       expect(await page.getByTestId(`value-${p.key}`).textContent()).toBe(p.shown);
     }
     expect(await page.getByTestId("attempts-left").textContent()).toBe("3 of 3 attempts left.");
+    const submit = page.getByRole("button", { name: "Submit for grading" });
+    await expect.poll(() => submit.isEnabled(), { timeout: 20_000 }).toBe(true); // hydrated: typing is kept
 
     // a wrong dimension is refused as it is typed, with a message naming what is wanted
     const average = page.getByLabel("1. Average current");
@@ -145,7 +147,6 @@ describe("lab submission in the browser (flow 1)", () => {
     expect(await traceField.textContent()).toMatch(/bad rows? skipped/);
 
     // a double click makes one attempt
-    const submit = page.getByRole("button", { name: "Submit for grading" });
     await submit.dblclick();
     await page.waitForURL(/\/attempts\/[0-9a-f-]{36}$/, { timeout: 30_000 });
     attemptId = page.url().split("/").pop()!;
@@ -198,9 +199,11 @@ describe("lab submission in the browser (flow 1)", () => {
   it("an answer that does not read is refused before sending, naming the field and keeping what was typed", async () => {
     const { context, page } = student;
     await page.goto(`/labs/${labId}`);
+    const submit = page.getByRole("button", { name: "Submit for grading" });
+    await expect.poll(() => submit.isEnabled(), { timeout: 20_000 }).toBe(true); // hydrated: typing is kept
     const average = page.getByLabel("1. Average current");
     await average.fill("9.1");
-    await page.getByRole("button", { name: "Submit for grading" }).click();
+    await submit.click();
     const alert = page.getByTestId("submission-form").getByRole("alert").first();
     await expect.poll(() => alert.textContent()).toMatch(/Check this answer before submitting: Average current/);
     expect(await average.inputValue()).toBe("9.1");

@@ -46,10 +46,13 @@ describe("flow 4: graded e-mail", () => {
   it("from a submission to the message in the development mailbox and its link back to the attempt", async () => {
     const page = student.page;
     await page.goto(`/labs/${labId}`);
+    // the form registers its fields when it hydrates (the button is enabled then): type after that
+    const submit = page.getByRole("button", { name: "Submit for grading" });
+    await expect.poll(() => submit.isEnabled(), { timeout: 20_000 }).toBe(true);
     // Ohm's law on the fixed circuit: 3.3 V / 1 kΩ = 3.3 mA (2 points); "1 A" for the metered current is wrong (0 of 3)
     await page.getByLabel("1. Current without the meter").fill("3.3 mA");
     await page.getByLabel("2. Current the meter shows").fill("1 A");
-    await page.getByRole("button", { name: "Submit for grading" }).click();
+    await submit.click();
     await page.waitForURL(/\/attempts\/[0-9a-f-]{36}$/, { timeout: 30_000 });
     const attemptPath = new URL(page.url()).pathname;
 

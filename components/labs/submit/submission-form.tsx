@@ -9,6 +9,7 @@ import { useMemo, useRef, useState, type FormEvent } from "react";
 import { useForm, useWatch, type Control, type UseFormRegisterReturn } from "react-hook-form";
 import type { z } from "zod";
 import { FieldMessage, FormMessage, QuantityInput } from "@/components/ui/field";
+import { useHydrated } from "@/components/ui/use-hydrated";
 import { api, isApiError } from "@/lib/api-client";
 import { attemptInputSchema, type AttemptInput } from "@/lib/validation/attempts";
 import { FileField } from "./file-field";
@@ -158,6 +159,7 @@ export function SubmissionForm({ labId, questions, components }: { labId: string
   };
 
   const submitting = formState.isSubmitting || sent;
+  const hydrated = useHydrated();
 
   return (
     <form onSubmit={onSubmit} onFocus={loadReader} noValidate aria-labelledby="submit-heading" data-testid="submission-form">
@@ -275,7 +277,7 @@ export function SubmissionForm({ labId, questions, components }: { labId: string
       </fieldset>
 
       <div className="flex flex-wrap items-center gap-3">
-        <button type="submit" className="btn-primary" disabled={submitting || uploading} aria-describedby="submit-note">
+        <button type="submit" className="btn-primary" disabled={submitting || uploading || !hydrated} aria-describedby="submit-note">
           {submitting ? "Submitting…" : "Submit for grading"}
         </button>
         <p id="submit-note" className="text-sm text-ink-soft" aria-live="polite">
