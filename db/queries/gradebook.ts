@@ -51,12 +51,19 @@ const iso = (col: string) => sql.raw(`to_char(${col} at time zone 'UTC', 'YYYY-M
  * The common part: the course's published labs with their points and effective weight, its students,
  * and for each (lab, student) pair with attempts the counted attempt (best score, ties to the later
  * attempt; or the last one) with the attempt count and whether a review is open.
+ * `gc` holds every person's counted attempts in the course's labs (the document keeps the students' as
+ * it joins them to `gs`), or with `studentsOnly` only the current students' (for the statistics).
  * `onlyUser` narrows it to one student; `hideHeld` (the student's own view) leaves out the scores of labs
  * whose grades are held back (they neither show nor count in the total).
  */
-function gradebookCtes(courseId: string, onlyUser?: string, hideHeld = false) {
+function gradebookCtes(courseId: string, onlyUser?: string, hideHeld = false, studentsOnly = false) {
   const userFilter = onlyUser ? sql`and m.user_id = ${onlyUser}` : sql``;
+  const attemptUser = onlyUser ? sql`and a.user_id = ${onlyUser}` : sql``;
+  const studentAttempts = studentsOnly ? sql`and a.user_id in (select gs.user_id from gs)` : sql``;
   const released = hideHeld ? sql`not gl.grades_held` : sql`true`;
+  // the course's (released) labs as an array: an index condition on attempts_gradebook_idx that reads
+  // only these labs' attempts, in index order (lab, student, number)
+  const labIds = sql`array(select gl.id from gl where ${released})`;
   return sql`
     gl as (
       select l.id, l.title, l.due_at, l.created_at, l.weight, l.counting, l.grades_held,
@@ -71,21 +78,24 @@ function gradebookCtes(courseId: string, onlyUser?: string, hideHeld = false) {
       where m.course_id = ${courseId} and m.role = 'student' ${userFilter}
     ),
     gk as (
-      -- one pass over the attempts, grouped without sorting: the count, an open review on any attempt,
-      -- and the number of the counted one. max() over [score, number] arrays orders like
-      -- "score desc, number desc" (best; ties to the later attempt); with the score left at 0 it is the
-      -- last attempt.
+      -- one pass over the labs' attempts from the covering index, already in (lab, student) order, so
+      -- grouped without hashing or sorting: the count, an open review on any attempt, and the number of
+      -- the counted one. max() over [score, number] arrays orders like "score desc, number desc" (best;
+      -- ties to the later attempt); with the score left at 0 it is the last attempt.
       select a.lab_id, a.user_id, count(*)::int as attempts, bool_or(${REVIEW_OPEN}) as review_open,
-        (max(array[case when gl.counting = 'best' then a.score::float8 else 0 end, a.number::float8]))[2]::int as number
+        (max(array[case when a.lab_id = any(array(select gl.id from gl where gl.counting = 'best')) then a.score::float8 else 0 end,
+          a.number::float8]))[2]::int as number
       from attempts a
-      join gl on gl.id = a.lab_id and ${released}
-      join gs on gs.user_id = a.user_id
+      where a.lab_id = any(${labIds}) ${attemptUser} ${studentAttempts}
       group by a.lab_id, a.user_id
     ),
     gc as (
+      -- the counted attempt's columns: merged with a second scan of the same index in the same order
+      -- (no hash of the attempts, no read of the table)
       select gk.lab_id, gk.user_id, a.id as attempt_id, a.score, a.max_score, a.late_days,
         ${CHANGED_BY_STAFF} as changed_by_staff, gk.attempts, gk.review_open
       from gk join attempts a on a.lab_id = gk.lab_id and a.user_id = gk.user_id and a.number = gk.number
+      where a.lab_id = any(${labIds}) ${attemptUser}
     )`;
 }
 
@@ -162,23 +172,6 @@ export interface LabStatistics {
   percents: number[];
 }
 
-/** Per lab: how many students submitted, how many did not, mean and median of counted scores. */
-export async function labStatistics(db: Db, courseId: string): Promise<LabStatistics[]> {
-  const r = await sql<LabStatistics>`
-    with ${gradebookCtes(courseId)}
-    select gl.id as "labId",
-      count(gc.attempt_id)::int as submitted,
-      ((select count(*) from gs) - count(gc.attempt_id))::int as missing,
-      round(avg(gc.score)::numeric, 2)::float8 as mean,
-      round((percentile_cont(0.5) within group (order by gc.score))::numeric, 2)::float8 as median,
-      coalesce(array_agg(round((100 * gc.score::float8 / nullif(gc.max_score, 0))::numeric, 1)::float8 order by gc.score)
-        filter (where gc.attempt_id is not null), '{}') as percents
-    from gl left join gc on gc.lab_id = gl.id
-    group by gl.id, gl.due_at, gl.created_at
-    order by gl.due_at nulls last, gl.created_at`.execute(db);
-  return r.rows;
-}
-
 export interface QuestionStatistics {
   labId: string;
   questionId: string;
@@ -198,12 +191,29 @@ export interface QuestionStatistics {
 }
 
 /**
- * Per question of each published lab, verdicts of the counted attempts (unit counts as wrong; a student
- * who did not submit counts as missing) and the most frequent recognised mistake.
+ * The gradebook's statistics in one statement, so the counted attempts are found once: per lab, how many
+ * students submitted, how many did not, mean and median of counted scores; per question of each published
+ * lab, verdicts of the counted attempts (unit counts as wrong; a student who did not submit counts as
+ * missing) and the most frequent recognised mistake. Only the course's current students count.
  */
-export async function questionStatistics(db: Db, courseId: string): Promise<QuestionStatistics[]> {
-  const r = await sql<QuestionStatistics>`
-    with ${gradebookCtes(courseId)},
+export async function gradebookStatistics(db: Db, courseId: string): Promise<{ labs: LabStatistics[]; questions: QuestionStatistics[] }> {
+  return (await gradebookStatisticsQuery(courseId).execute(db)).rows[0];
+}
+
+export function gradebookStatisticsQuery(courseId: string) {
+  return sql<{ labs: LabStatistics[]; questions: QuestionStatistics[] }>`
+    with ${gradebookCtes(courseId, undefined, false, true)},
+    ls as (
+      select gl.ord, gl.id as "labId",
+        count(gc.attempt_id)::int as submitted,
+        ((select count(*) from gs) - count(gc.attempt_id))::int as missing,
+        round(avg(gc.score)::numeric, 2)::float8 as mean,
+        round((percentile_cont(0.5) within group (order by gc.score))::numeric, 2)::float8 as median,
+        coalesce(array_agg(round((100 * gc.score::float8 / nullif(gc.max_score, 0))::numeric, 1)::float8 order by gc.score)
+          filter (where gc.attempt_id is not null), '{}') as percents
+      from gl left join gc on gc.lab_id = gl.id
+      group by gl.id, gl.ord
+    ),
     ca as (
       select gc.lab_id, a.result from gc join attempts a on a.id = gc.attempt_id
     ),
@@ -221,21 +231,24 @@ export async function questionStatistics(db: Db, courseId: string): Promise<Ques
       from vs where verdict = 'mistake' and mistake is not null
       group by lab_id, position, mistake
       order by lab_id, position, count(*) desc, mistake
+    ),
+    qst as (
+      select qs.lab_id as "labId", qs.question_id as "questionId", qs.quantity, qs.position, qs.template_key as "templateKey",
+        count(*) filter (where vs.verdict = 'correct')::int as correct,
+        count(*) filter (where vs.verdict = 'close')::int as close,
+        count(*) filter (where vs.verdict = 'mistake')::int as mistake,
+        count(*) filter (where vs.verdict in ('wrong', 'unit'))::int as wrong,
+        (count(*) filter (where vs.verdict = 'missing') + (select count(*) from gs) - count(vs.verdict))::int as missing,
+        ((select count(*) from gs) - count(vs.verdict))::int as "notSubmitted",
+        tm.mistake as "topMistake", coalesce(tm.n, 0)::int as "topMistakeCount"
+      from qs
+      left join vs on vs.lab_id = qs.lab_id and vs.position = qs.position
+      left join tm on tm.lab_id = qs.lab_id and tm.position = qs.position
+      group by qs.lab_id, qs.question_id, qs.quantity, qs.position, qs.template_key, tm.mistake, tm.n
     )
-    select qs.lab_id as "labId", qs.question_id as "questionId", qs.quantity, qs.position, qs.template_key as "templateKey",
-      count(*) filter (where vs.verdict = 'correct')::int as correct,
-      count(*) filter (where vs.verdict = 'close')::int as close,
-      count(*) filter (where vs.verdict = 'mistake')::int as mistake,
-      count(*) filter (where vs.verdict in ('wrong', 'unit'))::int as wrong,
-      (count(*) filter (where vs.verdict = 'missing') + (select count(*) from gs) - count(vs.verdict))::int as missing,
-      ((select count(*) from gs) - count(vs.verdict))::int as "notSubmitted",
-      tm.mistake as "topMistake", coalesce(tm.n, 0)::int as "topMistakeCount"
-    from qs
-    left join vs on vs.lab_id = qs.lab_id and vs.position = qs.position
-    left join tm on tm.lab_id = qs.lab_id and tm.position = qs.position
-    group by qs.lab_id, qs.question_id, qs.quantity, qs.position, qs.template_key, tm.mistake, tm.n
-    order by qs.lab_id, qs.position`.execute(db);
-  return r.rows;
+    select
+      coalesce((select jsonb_agg(to_jsonb(ls) - 'ord' order by ls.ord) from ls), '[]') as labs,
+      coalesce((select jsonb_agg(qst order by qst."labId", qst.position) from qst), '[]') as questions`;
 }
 
 /** The course's published labs with their stored weight (null = by points) and points, for the weights form. */

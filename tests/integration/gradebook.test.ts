@@ -6,7 +6,7 @@ import Papa from "papaparse";
 import { sql } from "kysely";
 import { describe, expect, it } from "vitest";
 import { db } from "@/db";
-import { gradebook, labStatistics, ownGrades, questionStatistics, setLabWeights } from "@/db/queries/gradebook";
+import { gradebook, gradebookStatistics, ownGrades, setLabWeights } from "@/db/queries/gradebook";
 import { gradebookCsv } from "@/lib/gradebook/csv";
 
 const DAY = 24 * 3600 * 1000;
@@ -240,12 +240,11 @@ describe("the gradebook query", () => {
 
   it("computes per-lab and per-question statistics over counted attempts", async () => {
     const f = await fixture();
-    const labs = await labStatistics(db, f.courseId);
+    const { labs, questions: qs } = await gradebookStatistics(db, f.courseId);
     // Lab A: counted 8 (Ada) and 9 ("=1+1"); Idle missing. Mean 8.5, median 8.5.
     expect(labs[0]).toEqual({ labId: f.labA, submitted: 2, missing: 1, mean: 8.5, median: 8.5, percents: [80, 90] });
     expect(labs[1]).toMatchObject({ labId: f.labB, submitted: 1, missing: 2, mean: 3, median: 3, percents: [60] });
 
-    const qs = await questionStatistics(db, f.courseId);
     const a1 = qs.find((q) => q.labId === f.labA && q.questionId === "q1")!;
     const a2 = qs.find((q) => q.labId === f.labA && q.questionId === "q2")!;
     // Counted attempts of lab A: Ada #2 (correct, close), "=1+1" #2 (correct, unit → wrong); Idle missing both.

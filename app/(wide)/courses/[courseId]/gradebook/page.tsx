@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { forbidden } from "next/navigation";
 import { db } from "@/db";
-import { gradebookOutline, labStatistics, questionStatistics } from "@/db/queries/gradebook";
+import { gradebookOutline, gradebookStatistics } from "@/db/queries/gradebook";
 import { forPage, refused, requireCourseRole, STAFF } from "@/lib/auth/access";
 import { listLessons } from "@/lib/lessons";
 import { GradebookStatistics } from "@/components/gradebook/statistics";
@@ -11,13 +11,13 @@ import { GradebookTable } from "@/components/gradebook/gradebook-table";
 export const metadata: Metadata = { title: "Gradebook" };
 
 // The instructor's gradebook (TAs read it): the table is fetched in the browser from the gradebook API;
-// the statistics and the weights form are rendered here. Students get 403, outsiders 404.
+// the statistics (one statement) are rendered here. Students get 403, outsiders 404.
 export default async function GradebookPage({ params }: { params: Promise<{ courseId: string }> }) {
   const { courseId } = await params;
   const access = await forPage(requireCourseRole(courseId, STAFF), `/courses/${courseId}/gradebook`);
   if (refused(access)) forbidden();
   const isInstructor = access.role === "instructor";
-  const [book, labStats, questionStats] = await Promise.all([gradebookOutline(db, courseId), labStatistics(db, courseId), questionStatistics(db, courseId)]);
+  const [book, stats] = await Promise.all([gradebookOutline(db, courseId), gradebookStatistics(db, courseId)]);
   return (
     <>
       <p className="text-sm">
@@ -36,7 +36,7 @@ export default async function GradebookPage({ params }: { params: Promise<{ cour
         )}
       </p>
       <GradebookTable courseId={courseId} canExport={isInstructor} />
-      <GradebookStatistics labs={book.labs} labStats={labStats} questionStats={questionStats} lessons={listLessons()} />
+      <GradebookStatistics labs={book.labs} labStats={stats.labs} questionStats={stats.questions} lessons={listLessons()} />
     </>
   );
 }
