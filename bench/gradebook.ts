@@ -6,8 +6,15 @@
 // `npm run bench:gradebook -- --explain` seeds the same data and prints EXPLAIN (ANALYZE, BUFFERS) of the
 // gradebook statement instead (no build, no server).
 // The machine may be shared: the load average is printed beside the figures, and the ratio (route over
-// SQL alone, measured in the same run) is the figure to compare between runs on a loaded machine.
+// SQL alone, measured in the same run) is the figure to compare between runs on a loaded machine, with
+// the CPU time per call of PostgreSQL (for the SQL alone) and of the app's server process (for the route).
+// "SQL alone" is the very statement the route runs (db/queries/gradebook.ts), which returns the JSON
+// document as text; the route adds the sign-in check, the compression and the transfer.
+// The client asks for the encodings a browser asks for (Accept-Encoding "gzip, deflate, br, zstd", as
+// chromium sends), so the route's time includes compressing what a browser would get; the figure is taken
+// when the whole body is read and decoded.
 import fs from "node:fs";
+import http from "node:http";
 import os from "node:os";
 import { chromium } from "playwright-core";
 import { hash } from "@node-rs/argon2";
@@ -34,6 +41,45 @@ const EMAIL = "instructor@bench.example";
 
 /** Linux's USER_HZ, the unit of the CPU times in /proc/<pid>/stat. */
 const CLOCK_TICKS = 100;
+/** What chromium asks for. */
+const BROWSER_ACCEPT_ENCODING = "gzip, deflate, br, zstd";
+
+/** CPU time (user + system, ms) a process has used so far, from /proc (the local machine). */
+function cpuMsOf(pid: number): number {
+  const f = fs.readFileSync(`/proc/${pid}/stat`, "utf8").split(") ")[1].split(" ");
+  return ((Number(f[11]) + Number(f[12])) * 1000) / CLOCK_TICKS;
+}
+
+/** The process and every process below it (the app server may run in a child of the one started). */
+function processTree(root: number): number[] {
+  const children = new Map<number, number[]>();
+  for (const d of fs.readdirSync("/proc")) {
+    if (!/^\d+$/.test(d)) continue;
+    try {
+      const ppid = Number(fs.readFileSync(`/proc/${d}/stat`, "utf8").split(") ")[1].split(" ")[1]);
+      children.set(ppid, [...(children.get(ppid) ?? []), Number(d)]);
+    } catch {
+      // the process ended meanwhile
+    }
+  }
+  const out = [root];
+  for (let i = 0; i < out.length; i++) out.push(...(children.get(out[i]) ?? []));
+  return out;
+}
+
+/** One raw request: the bytes sent on the wire and their Content-Encoding. */
+function wireSize(url: string, headers: Record<string, string>): Promise<{ bytes: number; encoding: string }> {
+  return new Promise((resolve, reject) => {
+    http
+      .get(url, { headers }, (res) => {
+        let bytes = 0;
+        res.on("data", (c: Buffer) => (bytes += c.length));
+        res.on("end", () => resolve({ bytes, encoding: String(res.headers["content-encoding"] ?? "identity") }));
+        res.on("error", reject);
+      })
+      .on("error", reject);
+  });
+}
 
 const cfg = serviceConfig("dev");
 const port = Number(process.env.SHUNTWISE_BENCH_PORT ?? cfg.appPort + 7);
@@ -219,17 +265,20 @@ async function main() {
     // Route and SQL alone alternate, call by call, so that a change of load on a shared machine weighs on
     // both alike; the SQL runs on one connection whose server process's CPU time is read from /proc
     // (the local cluster), a figure the load barely changes.
+    const appPids = processTree(server.pid!);
+    const appCpu = () => appPids.reduce((t, p) => t + cpuMsOf(p), 0);
+    let appCpuMs = 0;
+    const headers = { cookie, "accept-encoding": BROWSER_ACCEPT_ENCODING };
     await db.connection().execute(async (conn) => {
       const pid = (await sql<{ pid: number }>`select pg_backend_pid() as pid`.execute(conn)).rows[0].pid;
-      const cpu = () => {
-        const f = fs.readFileSync(`/proc/${pid}/stat`, "utf8").split(") ")[1].split(" ");
-        return ((Number(f[11]) + Number(f[12])) * 1000) / CLOCK_TICKS;
-      };
+      const cpu = () => cpuMsOf(pid);
       for (let i = 0; i < WARMUP + RUNS; i++) {
+        const a0 = appCpu();
         let t0 = performance.now();
-        const res = await fetch(`${base}/api/courses/${courseId}/gradebook`, { headers: { cookie } });
+        const res = await fetch(`${base}/api/courses/${courseId}/gradebook`, { headers });
         const body = await res.text();
         const routeMs = performance.now() - t0;
+        if (i >= WARMUP) appCpuMs += appCpu() - a0;
         if (res.status !== 200) throw new Error(`gradebook answered ${res.status}: ${body.slice(0, 200)}`);
         if (i === 0) {
           const g = JSON.parse(body) as { labs: unknown[]; students: unknown[] };
@@ -250,8 +299,15 @@ async function main() {
     });
     const a = p50(route);
     const b = p50(alone);
-    console.log(`${RUNS} calls each (route and SQL alone alternating) after ${WARMUP} warm-up calls; response ${(bytes / 1e6).toFixed(2)} MB.`);
-    console.log(`route min/max ${Math.min(...route).toFixed(1)}/${Math.max(...route).toFixed(1)} ms; sql min/max ${Math.min(...alone).toFixed(1)}/${Math.max(...alone).toFixed(1)} ms; PostgreSQL CPU per SQL call ${(cpuMs / RUNS).toFixed(1)} ms.`);
+    const wire = await wireSize(`${base}/api/courses/${courseId}/gradebook`, headers);
+    console.log(
+      `${RUNS} calls each (route and SQL alone alternating) after ${WARMUP} warm-up calls; response ${(bytes / 1e6).toFixed(2)} MB, ` +
+        `${(wire.bytes / 1e6).toFixed(2)} MB on the wire (${wire.encoding}).`,
+    );
+    console.log(
+      `route min/max ${Math.min(...route).toFixed(1)}/${Math.max(...route).toFixed(1)} ms; sql min/max ${Math.min(...alone).toFixed(1)}/${Math.max(...alone).toFixed(1)} ms; ` +
+        `PostgreSQL CPU per SQL call ${(cpuMs / RUNS).toFixed(1)} ms; app server CPU per route call ${(appCpuMs / RUNS).toFixed(1)} ms.`,
+    );
     if (process.argv.includes("--browser")) await scrollInBrowser(base, courseId);
     console.log(`Machine: ${load()} (before the runs: ${loadBefore}).`);
     console.log(`gradebook p50 ${a.toFixed(1)} ms; sql alone p50 ${b.toFixed(1)} ms; ratio ${(a / b).toFixed(2)}`);
