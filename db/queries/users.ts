@@ -11,10 +11,11 @@ export interface PublicUser {
 
 type Db = Kysely<Database>;
 
-export async function findUserById(db: Db, id: string): Promise<PublicUser | undefined> {
+/** The user a session cookie names, with the time before which their sessions are void (null: all valid). */
+export async function findSessionUser(db: Db, id: string): Promise<(PublicUser & { sessionsValidAfter: Date | null }) | undefined> {
   return db
     .selectFrom("users")
-    .select(["id", "email", "name", "is_admin as isAdmin"])
+    .select(["id", "email", "name", "is_admin as isAdmin", "sessions_valid_after as sessionsValidAfter"])
     .where("id", "=", id)
     .executeTakeFirst();
 }
@@ -49,12 +50,6 @@ export async function insertUser(
     })
     .returning(["id", "email", "name", "is_admin as isAdmin"])
     .executeTakeFirstOrThrow();
-}
-
-/** Sessions signed in before this time are void; null when all are valid. */
-export async function sessionsValidAfter(db: Db, id: string): Promise<Date | null> {
-  const r = await db.selectFrom("users").select("sessions_valid_after as at").where("id", "=", id).executeTakeFirst();
-  return r?.at ?? null;
 }
 
 /** Ends every session of the user signed in until `at` (sign out on every device). */

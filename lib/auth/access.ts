@@ -1,33 +1,30 @@
 // The one set of authorization helpers. Every page, server action and route handler asks these; the
 // proxy only redirects early. Course roles are read from the database on every call.
 import "server-only";
-import { getServerSession } from "next-auth";
+import { getToken } from "next-auth/jwt";
 import { cache } from "react";
+import { cookies } from "next/headers";
 import { notFound as pageNotFound, redirect } from "next/navigation";
 import { db } from "@/db";
-import { findCourse, findMembership } from "@/db/queries/courses";
-import { findUserById, sessionsValidAfter, type PublicUser } from "@/db/queries/users";
+import { findCourseForMember, type CourseRow } from "@/db/queries/courses";
+import type { PublicUser } from "@/db/queries/users";
 import type { Role } from "@/db/types";
 import { AppError, forbidden, notFound, unauthorized } from "@/lib/errors";
 import { uuidSchema } from "@/lib/validation/common";
-import { authOptions } from "./options";
+import { authOptions, sessionUser } from "./options";
+import { decodeSessionToken } from "./session-token";
 
 export const STAFF: Role[] = ["ta", "instructor"];
 export const EVERYONE: Role[] = ["student", "ta", "instructor"];
 
-/** The signed-in user, read once per request (the layout and the page share it). */
+/**
+ * The signed-in user, read once per request (the layout and the page share it): the session cookie is
+ * decrypted here and the user, with the time their sessions were revoked, is one query. (next-auth's
+ * getServerSession would also run its callbacks and sign a renewed cookie that a server component cannot set.)
+ */
 export const currentUser = cache(async (): Promise<PublicUser | null> => {
-  const session = await getServerSession(authOptions);
-  const id = (session?.user as { id?: string } | undefined)?.id;
-  if (!id || !uuidSchema.safeParse(id).success) return null;
-  // the session callback could not reach the database: check the revocation here, where an error
-  // still reaches the caller (503 in a route) instead of reading as "signed out"
-  const unchecked = (session as { uncheckedSince?: number } | null)?.uncheckedSince;
-  if (typeof unchecked === "number") {
-    const validAfter = await sessionsValidAfter(db, id);
-    if (validAfter && unchecked < validAfter.getTime()) return null;
-  }
-  return (await findUserById(db, id)) ?? null;
+  const token = await getToken({ req: { cookies: await cookies(), headers: {} } as unknown as Parameters<typeof getToken>[0]["req"], secureCookie: authOptions.useSecureCookies, decode: decodeSessionToken });
+  return sessionUser(token);
 });
 
 export async function requireUser(): Promise<PublicUser> {
@@ -38,7 +35,7 @@ export async function requireUser(): Promise<PublicUser> {
 
 export interface CourseAccess {
   user: PublicUser;
-  course: NonNullable<Awaited<ReturnType<typeof findCourse>>>;
+  course: CourseRow;
   /** The member's role; a site admin who is not a member acts as instructor. */
   role: Role;
   section: string | null;
@@ -51,8 +48,9 @@ export interface CourseAccess {
 export async function requireCourseRole(courseId: string, allowed: Role[] = EVERYONE): Promise<CourseAccess> {
   const user = await requireUser();
   if (!uuidSchema.safeParse(courseId).success) throw notFound("That course");
-  const [course, membership] = await Promise.all([findCourse(db, courseId), findMembership(db, courseId, user.id)]);
-  if (!course) throw notFound("That course");
+  const found = await findCourseForMember(db, courseId, user.id);
+  if (!found) throw notFound("That course");
+  const { course, membership } = found;
   const role: Role | undefined = membership?.role ?? (user.isAdmin ? "instructor" : undefined);
   if (!role) throw notFound("That course");
   const access = { user, course, role, section: membership?.section ?? null };

@@ -1,16 +1,18 @@
 // next-auth configuration: e-mail and password, JWT sessions that carry only the user id.
 import type { NextAuthOptions } from "next-auth";
+import type { JWT } from "next-auth/jwt";
 import CredentialsProvider from "next-auth/providers/credentials";
 import { db } from "@/db";
-import { findCredentials, sessionsValidAfter } from "@/db/queries/users";
-import { isDatabaseUnavailable } from "@/lib/errors";
+import { findCredentials, findSessionUser, type PublicUser } from "@/db/queries/users";
 import { uuidSchema } from "@/lib/validation/common";
 import { isHttps } from "@/lib/security/headers";
 import { signInSchema } from "@/lib/validation/auth";
 import { checkPassword } from "./password";
+import { decodeSessionToken } from "./session-token";
 
 export const authOptions: NextAuthOptions = {
   session: { strategy: "jwt", maxAge: 14 * 24 * 3600 },
+  jwt: { decode: decodeSessionToken },
   // `Secure` cookies (and the __Secure- prefix) whenever the public address is https.
   useSecureCookies: isHttps(process.env.NEXTAUTH_URL),
   pages: { signIn: "/signin", error: "/signin" },
@@ -49,19 +51,31 @@ export const authOptions: NextAuthOptions = {
       return { sub: token.sub, at, iat: token.iat, exp: token.exp, jti: token.jti };
     },
     async session({ session, token }) {
-      const raw = (token.at as number | undefined) ?? (token.iat as number | undefined) ?? 0;
-      const at = raw < 1e11 ? raw * 1000 : raw; // tokens from before `at` was in milliseconds carry seconds
-      let validAfter: Date | null;
-      try {
-        validAfter = token.sub && uuidSchema.safeParse(token.sub).success ? await sessionsValidAfter(db, token.sub) : null;
-      } catch (e) {
-        // next-auth turns an error here into "signed out" (401); with the database out of reach the
-        // session stays unchecked instead, and the server's currentUser checks it (and answers 503)
-        if (!isDatabaseUnavailable(e)) throw e;
-        return { expires: session.expires, user: { id: token.sub }, uncheckedSince: at } as typeof session;
-      }
-      if (validAfter && at < validAfter.getTime()) return { expires: session.expires } as typeof session;
-      return { expires: session.expires, user: { id: token.sub } } as typeof session;
+      // next-auth's own /api/auth/session; the app's pages and routes read the cookie through currentUser
+      // (lib/auth/access.ts), with the same rule
+      const user = await sessionUser(token);
+      return (user ? { expires: session.expires, user: { id: user.id } } : { expires: session.expires }) as typeof session;
     },
   },
 };
+
+/** When the token's holder signed in, in milliseconds (tokens from before `at` was in milliseconds carry seconds). */
+function signedInAt(token: JWT): number {
+  const raw = (token.at as number | undefined) ?? (token.iat as number | undefined) ?? 0;
+  return raw < 1e11 ? raw * 1000 : raw;
+}
+
+/**
+ * The user a session token names, read with one query, or null: no token, no such user, or a session
+ * signed in before the user's `sessions_valid_after` (signed out everywhere, a new password). A database
+ * out of reach throws (a route answers 503), it never reads as "signed out".
+ */
+export async function sessionUser(token: JWT | null): Promise<PublicUser | null> {
+  const id = token?.sub;
+  if (!token || !id || !uuidSchema.safeParse(id).success) return null;
+  const found = await findSessionUser(db, id);
+  if (!found) return null;
+  const { sessionsValidAfter, ...user } = found;
+  if (sessionsValidAfter && signedInAt(token) < sessionsValidAfter.getTime()) return null;
+  return user;
+}
