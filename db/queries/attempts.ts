@@ -97,31 +97,74 @@ export interface AttemptWrite {
   submittedAt: Date;
 }
 
+function attemptValues(a: AttemptWrite) {
+  return {
+    lab_id: a.labId,
+    user_id: a.userId,
+    number: a.number,
+    idempotency_key: a.idempotencyKey,
+    readings: JSON.stringify(a.readings),
+    measured: JSON.stringify(a.measured),
+    upload_ids: a.uploadIds,
+    result: JSON.stringify(a.result),
+    raw_score: a.rawScore,
+    max_score: a.maxScore,
+    late_days: a.lateDays,
+    penalty_percent: a.penaltyPercent,
+    score: a.score,
+    grader_version: a.graderVersion,
+    lab_version: a.labVersion,
+    submitted_at: a.submittedAt,
+    graded_at: a.submittedAt,
+  };
+}
+
 export async function insertAttempt(db: Db, a: AttemptWrite): Promise<string> {
-  const row = await db
-    .insertInto("attempts")
-    .values({
-      lab_id: a.labId,
-      user_id: a.userId,
-      number: a.number,
-      idempotency_key: a.idempotencyKey,
-      readings: JSON.stringify(a.readings),
-      measured: JSON.stringify(a.measured),
-      upload_ids: a.uploadIds,
-      result: JSON.stringify(a.result),
-      raw_score: a.rawScore,
-      max_score: a.maxScore,
-      late_days: a.lateDays,
-      penalty_percent: a.penaltyPercent,
-      score: a.score,
-      grader_version: a.graderVersion,
-      lab_version: a.labVersion,
-      submitted_at: a.submittedAt,
-      graded_at: a.submittedAt,
-    })
-    .returning("id")
-    .executeTakeFirstOrThrow();
+  const row = await db.insertInto("attempts").values(attemptValues(a)).returning("id").executeTakeFirstOrThrow();
   return row.id;
+}
+
+/**
+ * A submission's reads after its lock (lockStudentLab), in one statement: the attempt already made with
+ * this idempotency key (null when none), how many attempts the student has made at the lab, their stored
+ * circuit values (null until drawn), whether the lab's grades are held and whether the student takes
+ * graded-attempt e-mails.
+ */
+export async function submissionState(trx: Transaction<Database>, labId: string, userId: string, key: string) {
+  const row = await trx
+    .selectFrom(sql<{ one: number }>`(values (1))`.as("one"))
+    .leftJoin("attempts as a", (j) => j.on("a.lab_id", "=", labId).on("a.user_id", "=", userId).on("a.idempotency_key", "=", key))
+    .select(ATTEMPT_COLUMNS)
+    .select((eb) => [
+      eb.selectFrom("attempts").select(sql<number>`count(*)::int`.as("n")).where("lab_id", "=", labId).where("user_id", "=", userId).as("used"),
+      eb.selectFrom("lab_variants").select("params").where("lab_id", "=", labId).where("user_id", "=", userId).as("params"),
+      eb.selectFrom("labs").select("grades_held").where("id", "=", labId).as("gradesHeld"),
+      eb.selectFrom("users").select("grade_mail").where("id", "=", userId).as("gradeMail"),
+    ])
+    .executeTakeFirstOrThrow();
+  const { used, params, gradesHeld, gradeMail, ...attempt } = row;
+  return {
+    previous: attempt.id === null ? null : (attempt as AttemptRow),
+    used: used ?? 0,
+    params: params ?? null,
+    gradesHeld: gradesHeld ?? false,
+    gradeMail: gradeMail ?? true,
+  };
+}
+
+/** A new attempt and its first grade event (graded by the grader), in one statement; answers the stored attempt. */
+export async function insertGradedAttempt(trx: Transaction<Database>, a: AttemptWrite): Promise<AttemptRow> {
+  return trx
+    .with("inserted", (db) => db.insertInto("attempts").values(attemptValues(a)).returningAll())
+    .with("event", (db) =>
+      db
+        .insertInto("grade_events")
+        .columns(["attempt_id", "kind", "points_after", "score_after", "grader_version"])
+        .expression((eb) => eb.selectFrom("inserted").select(["id", sql.lit("graded").as("kind"), "raw_score", "score", "grader_version"])),
+    )
+    .selectFrom("inserted as a")
+    .select(ATTEMPT_COLUMNS)
+    .executeTakeFirstOrThrow();
 }
 
 /** The attempt, locked until the transaction ends: concurrent grade changes to one attempt run one after another. */

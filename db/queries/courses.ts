@@ -33,22 +33,35 @@ export async function listCoursesForUser(db: Db, userId: string): Promise<Course
     .execute();
 }
 
+const COURSE_COLUMNS = [
+  "c.id",
+  "c.code",
+  "c.title",
+  "c.term",
+  "c.institution",
+  "c.join_code as joinCode",
+  "c.joining_open as joiningOpen",
+  "c.default_late_penalty_percent_per_day as defaultLatePenaltyPercentPerDay",
+  "c.default_late_floor_percent as defaultLateFloorPercent",
+] as const;
+
 export async function findCourse(db: Db, courseId: string) {
-  return db
-    .selectFrom("courses")
-    .select([
-      "id",
-      "code",
-      "title",
-      "term",
-      "institution",
-      "join_code as joinCode",
-      "joining_open as joiningOpen",
-      "default_late_penalty_percent_per_day as defaultLatePenaltyPercentPerDay",
-      "default_late_floor_percent as defaultLateFloorPercent",
-    ])
-    .where("id", "=", courseId)
+  return db.selectFrom("courses as c").select(COURSE_COLUMNS).where("c.id", "=", courseId).executeTakeFirst();
+}
+
+export type CourseRow = NonNullable<Awaited<ReturnType<typeof findCourse>>>;
+
+/** The course and the user's membership of it (null when not a member), in one query; undefined when no such course. */
+export async function findCourseForMember(db: Db, courseId: string, userId: string): Promise<{ course: CourseRow; membership: { role: Role; section: string | null } | null } | undefined> {
+  const row = await db
+    .selectFrom("courses as c")
+    .leftJoin("memberships as m", (j) => j.onRef("m.course_id", "=", "c.id").on("m.user_id", "=", userId))
+    .select([...COURSE_COLUMNS, "m.role", "m.section"])
+    .where("c.id", "=", courseId)
     .executeTakeFirst();
+  if (!row) return undefined;
+  const { role, section, ...course } = row;
+  return { course, membership: role ? { role, section } : null };
 }
 
 export async function findCourseByJoinCode(db: Db, joinCode: string) {

@@ -31,3 +31,5 @@ export async function gradeMailContext(db: Db, attemptId: string) {
     .where("a.id", "=", attemptId)
     .executeTakeFirst();
 }
+
+export type GradeMailContext = NonNullable<Awaited<ReturnType<typeof gradeMailContext>>>;

@@ -107,12 +107,13 @@ export async function findVariant(db: Db, labId: string, userId: string) {
 
 /** Stores the drawn values unless another request stored them first; returns what is stored. */
 export async function storeVariant(db: Db, labId: string, userId: string, seed: string, params: unknown) {
-  await labsDb(db)
+  const stored = await labsDb(db)
     .insertInto("labVariants")
     .values({ labId, userId, seed, params: JSON.stringify(params) })
     .onConflict((oc) => oc.columns(["labId", "userId"]).doNothing())
-    .execute();
-  return (await findVariant(db, labId, userId))!;
+    .returning(["seed", "params"])
+    .executeTakeFirst();
+  return stored ?? (await findVariant(db, labId, userId))!;
 }
 
 export async function deleteVariants(db: Db, labId: string) {

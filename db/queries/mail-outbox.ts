@@ -11,13 +11,15 @@ export interface OutboxInsert {
   to: string;
   subject?: string | null;
   data: unknown;
+  /** the id of the job that sends it, when chosen before the job is queued */
+  jobId?: string | null;
 }
 
 /** Inserts the row unless its key is already there; returns the new id, or null for a known key. */
 export async function insertOutbox(db: Db, m: OutboxInsert): Promise<string | null> {
   const row = await db
     .insertInto("mail_outbox")
-    .values({ key: m.key, kind: m.kind, to_address: m.to, subject: m.subject ?? null, data: JSON.stringify(m.data ?? {}) })
+    .values({ key: m.key, kind: m.kind, to_address: m.to, subject: m.subject ?? null, data: JSON.stringify(m.data ?? {}), job_id: m.jobId ?? null })
     .onConflict((oc) => oc.column("key").doNothing())
     .returning("id")
     .executeTakeFirst();

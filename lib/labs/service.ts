@@ -4,16 +4,7 @@ import "server-only";
 import { db } from "@/db";
 import type { Database, Role } from "@/db/types";
 import type { Kysely, Transaction } from "kysely";
-import {
-  countAttempts,
-  findAttempt,
-  findAttemptByKey,
-  insertAttempt,
-  listAttempts,
-  lockStudentLab,
-  type AttemptRow,
-} from "@/db/queries/attempts";
-import { insertGradeEvent } from "@/db/queries/grade-events";
+import { countAttempts, findAttempt, insertGradedAttempt, listAttempts, lockStudentLab, submissionState, type AttemptRow } from "@/db/queries/attempts";
 import { findLab, findVariant, insertLab, listLabs, storeVariant } from "@/db/queries/labs";
 import { findUploads, lockUploadsForAttempt } from "@/db/queries/uploads";
 import { assertRole, EVERYONE, isStaff, requireCourseRole, type CourseAccess } from "@/lib/auth/access";
@@ -53,7 +44,11 @@ export async function createLab(access: CourseAccess, data: LabData, status: "dr
 /** The caller's own circuit values: drawn once with the seed `${labId}:${userId}` and stored. */
 export async function variantFor(lab: Lab, userId: string, conn: Kysely<Database> | Transaction<Database> = db): Promise<Params> {
   const stored = await findVariant(conn, lab.id, userId);
-  if (stored) return stored.params as Params;
+  return stored ? (stored.params as Params) : drawVariantFor(lab, userId, conn);
+}
+
+/** Draws the caller's circuit values and stores them, unless another request stored them first (then those count). */
+async function drawVariantFor(lab: Lab, userId: string, conn: Kysely<Database> | Transaction<Database>): Promise<Params> {
   const seed = `${lab.id}:${userId}`;
   return (await storeVariant(conn, lab.id, userId, seed, drawVariant(lab.spec, seed))).params as Params;
 }
@@ -67,9 +62,15 @@ export interface SubmitInput {
 
 /**
  * Submits and grades an attempt in one transaction. A retry with the same idempotency key returns
- * the attempt already made (`created: false`).
+ * the attempt already made (`created: false`). Answers the stored attempt and how many attempts the
+ * student has made at the lab, as the transaction saw them, so the caller reads nothing again.
  */
-export async function submitAttempt(lab: Lab, access: CourseAccess, input: SubmitInput, now = new Date()): Promise<{ attemptId: string; created: boolean }> {
+export async function submitAttempt(
+  lab: Lab,
+  access: CourseAccess,
+  input: SubmitInput,
+  now = new Date(),
+): Promise<{ attemptId: string; created: boolean; attempt: AttemptRow; attemptsUsed: number }> {
   if (lab.status !== "published") throw new AppError("conflict", "This lab is not published yet.");
   const known = new Set(lab.questions.map((q) => q.id));
   const unknown = Object.keys(input.readings).filter((k) => !known.has(k));
@@ -92,20 +93,19 @@ export async function submitAttempt(lab: Lab, access: CourseAccess, input: Submi
     if ((await lockUploadsForAttempt(trx, uploads.map((u) => u.id))) !== uploads.length) {
       throw new AppError("bad_request", "One of the attached files is no longer stored; upload it again.", { uploadIds: ["Upload the file again."] });
     }
-    const previous = await findAttemptByKey(trx, lab.id, userId, input.idempotencyKey);
-    if (previous) return { attemptId: previous.id, created: false };
+    const state = await submissionState(trx, lab.id, userId, input.idempotencyKey);
+    if (state.previous) return { attemptId: state.previous.id, created: false, attempt: state.previous, attemptsUsed: state.used };
     if (!isOpen(lab, now)) throw new AppError("conflict", `This lab opens on ${lab.opensAt!.toISOString().slice(0, 16).replace("T", " ")} UTC.`);
     if (isClosed(lab, now)) throw new AppError("conflict", `This lab closed on ${closeOf(lab)!.toISOString().slice(0, 16).replace("T", " ")} UTC and accepts no more attempts.`);
-    const used = await countAttempts(trx, lab.id, userId);
-    if (used >= lab.attemptsAllowed) {
+    if (state.used >= lab.attemptsAllowed) {
       throw new AppError("conflict", `You have used all ${lab.attemptsAllowed} attempt${lab.attemptsAllowed === 1 ? "" : "s"} of this lab.`);
     }
-    const params = await variantFor(lab, userId, trx);
+    const params = (state.params as Params | null) ?? (await drawVariantFor(lab, userId, trx));
     const result = gradeForLab(lab, params, input.readings, measured, traces);
     const record = attemptRecord({
       lab,
       userId,
-      number: used + 1,
+      number: state.used + 1,
       idempotencyKey: input.idempotencyKey,
       readings: input.readings,
       measured: { typed: input.measured, values: measured },
@@ -114,14 +114,34 @@ export async function submitAttempt(lab: Lab, access: CourseAccess, input: Submi
       result,
       submittedAt: now,
     });
-    const attemptId = await insertAttempt(trx, record);
-    await insertGradeEvent(trx, { attemptId, kind: "graded", pointsAfter: record.rawScore, scoreAfter: record.score, graderVersion: record.graderVersion });
-    // the message is queued in this transaction: no grade without its e-mail job, no job without its grade
-    await queueGradeMail(trx, { attemptId, eventKey: `graded:${attemptId}`, kind: "graded" });
-    return { attemptId, created: true };
+    // the attempt and its "graded" event are one statement
+    const attempt = await insertGradedAttempt(trx, record);
+    // the message is queued in this transaction: no grade without its e-mail job, no job without its grade.
+    // Everything it says was read or written above in this transaction.
+    await queueGradeMail(
+      trx,
+      { attemptId: attempt.id, eventKey: `graded:${attempt.id}`, kind: "graded" },
+      {
+        attemptId: attempt.id,
+        number: attempt.number,
+        score: attempt.score,
+        maxScore: attempt.maxScore,
+        penaltyPercent: attempt.penaltyPercent,
+        result: attempt.result,
+        labId: lab.id,
+        labTitle: lab.title,
+        templateKey: lab.templateKey,
+        gradesHeld: state.gradesHeld,
+        courseCode: access.course.code,
+        courseTitle: access.course.title,
+        email: access.user.email,
+        studentName: access.user.name,
+        gradeMail: state.gradeMail,
+      },
+    );
+    return { attemptId: attempt.id, created: true, attempt, attemptsUsed: state.used + 1 };
   });
 }
-
 
 /** An attempt as the caller may see it: the owner and the course staff only; anyone else gets 404. */
 export async function attemptAccess(attemptId: string) {

@@ -3,7 +3,7 @@
 // message says at that moment and queues it with queueMail under the event's key.
 import type { Transaction } from "kysely";
 import type { Database } from "@/db/types";
-import { gradeMailContext } from "@/db/queries/grade-mail";
+import { gradeMailContext, type GradeMailContext } from "@/db/queries/grade-mail";
 import type { TemplateKey } from "@/lib/grader";
 import { presentResults, type StoredResult } from "@/lib/labs/present";
 import { queueMail } from "./queue";
@@ -32,8 +32,12 @@ async function actorName(trx: Transaction<Database>, id: string | null | undefin
   return (await trx.selectFrom("users").select("name").where("id", "=", id).executeTakeFirst())?.name ?? null;
 }
 
-export async function queueGradeMail(trx: Transaction<Database>, e: GradeMailEvent): Promise<GradeMailOutcome> {
-  const c = await gradeMailContext(trx, e.attemptId);
+/**
+ * Queues the message of one grade event in `trx`. `known` is what the message needs when the caller has
+ * just read or written all of it in this transaction (a new attempt); otherwise it is read here.
+ */
+export async function queueGradeMail(trx: Transaction<Database>, e: GradeMailEvent, known?: GradeMailContext): Promise<GradeMailOutcome> {
+  const c = known ?? (await gradeMailContext(trx, e.attemptId));
   if (!c) return { queued: false, why: "no-attempt" };
   // While a lab's grades are held nothing goes out; releasing sends each student their counted score.
   if (c.gradesHeld && e.kind !== "released") return { queued: false, why: "held" };

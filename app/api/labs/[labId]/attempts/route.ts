@@ -1,8 +1,6 @@
-import { db } from "@/db";
-import { findAttempt } from "@/db/queries/attempts";
 import { json, jsonBody, route } from "@/lib/api";
 import { isStaff } from "@/lib/auth/access";
-import { attemptsFor, attemptsUsed, heldAttempt, labAccess, submitAttempt, viewAttempt } from "@/lib/labs/service";
+import { attemptsFor, heldAttempt, labAccess, submitAttempt, viewAttempt } from "@/lib/labs/service";
 import { attemptInputSchema } from "@/lib/validation/attempts";
 import { uuidSchema } from "@/lib/validation/common";
 import { AppError } from "@/lib/errors";
@@ -27,7 +25,6 @@ export const GET = route<Params>(async (req, { labId }) => {
 export const POST = route<Params>(async (req, { labId }) => {
   const { lab, access } = await labAccess(labId);
   const input = await jsonBody(req, attemptInputSchema);
-  const { attemptId, created } = await submitAttempt(lab, access, input);
-  const attempt = (await findAttempt(db, attemptId))!;
-  return json({ attempt: viewAttempt(attempt, lab, isStaff(access.role), await attemptsUsed(attempt)) }, created ? 201 : 200);
+  const { attempt, created, attemptsUsed } = await submitAttempt(lab, access, input);
+  return json({ attempt: viewAttempt(attempt, lab, isStaff(access.role), attemptsUsed) }, created ? 201 : 200);
 });
