@@ -10,7 +10,7 @@ import { hash } from "@node-rs/argon2";
 import { sql } from "kysely";
 import { createDb } from "../db";
 import { migrateToLatest } from "../db/migrator";
-import { atEnd, benchEnv, build, percentile, roundRobin, runBench, scratchDatabase, sessionCookie, startApp, stopChild, type App } from "./lib";
+import { atEnd, benchEnv, build, cpuMsOfTree, percentile, postmasterPid, roundRobin, runBench, scratchDatabase, sessionCookie, startApp, stopChild, type App } from "./lib";
 
 const STUDENTS = 500;
 const CONCURRENCY = 50;
@@ -77,13 +77,36 @@ async function createLab(app: App, instructorCookie: string, courseId: string, t
 }
 
 type Run = { ok: number; errors: number; p95: number; perSecond: number; seconds: number; statuses: Record<string, number> };
-type Outcome = { label: string; run: Run; lost: number; health: number };
+/** CPU time per request (ms) of the app processes, of PostgreSQL, and of this process (load generator and proxy). */
+type Cpu = { app: number; postgres: number; generator: number };
+type Outcome = { label: string; run: Run; lost: number; health: number; cpu: Cpu; healthCpu: Cpu };
+
+/** Measures the CPU time that `work` costs each process group, per request (`requests` of them). */
+async function withCpu<T>(pids: { apps: number[]; postgres: number }, work: () => Promise<T>, requests: (r: T) => number): Promise<[T, Cpu]> {
+  const total = () => ({ app: pids.apps.reduce((sum, pid) => sum + cpuMsOfTree(pid), 0), postgres: cpuMsOfTree(pids.postgres) });
+  const before = total();
+  const mine = process.cpuUsage();
+  const result = await work();
+  const after = total();
+  const used = process.cpuUsage(mine);
+  const n = requests(result);
+  return [result, { app: (after.app - before.app) / n, postgres: (after.postgres - before.postgres) / n, generator: (used.user + used.system) / 1000 / n }];
+}
+
+const cpuText = (c: Cpu) => `app ${c.app.toFixed(2)} ms, PostgreSQL ${c.postgres.toFixed(2)} ms, load generator and proxy ${c.generator.toFixed(2)} ms`;
 
 /** `count` students (from `first`) each submit once, `CONCURRENCY` at a time, through `base`. */
 async function burst(base: string, labId: string, cookies: string[], count: number, tag: string): Promise<Run> {
+  // every request is built before the clock starts, so the load generator spends its time sending
+  // mixed answers: right, a prefix slip (a wrong unit dimension is refused before grading, so is not used)
+  const requests = Array.from({ length: count }, (_, k) => ({
+    headers: { "content-type": "application/json", origin: base, cookie: cookies[k % cookies.length] },
+    body: JSON.stringify({ idempotencyKey: `${tag}-${k}`, readings: { q1: k % 3 ? "10.42 mA" : "10.42 A", q2: "0.1042 V", q3: "10.6 mA" } }),
+  }));
   let i = 0;
   const times: number[] = [];
   const statuses: Record<string, number> = {};
+  let lastAnswer = 0;
   const instance = autocannon({
     url: base,
     connections: CONCURRENCY,
@@ -93,34 +116,28 @@ async function burst(base: string, labId: string, cookies: string[], count: numb
       {
         method: "POST",
         path: `/api/labs/${labId}/attempts`,
-        setupRequest: (req: CannonRequest) => {
-          const k = i++;
-          return {
-            ...req,
-            headers: { "content-type": "application/json", origin: base, cookie: cookies[k % cookies.length] },
-            // mixed answers: right, a prefix slip, a wrong unit dimension is refused before grading so is not used
-            body: JSON.stringify({ idempotencyKey: `${tag}-${k}`, readings: { q1: k % 3 ? "10.42 mA" : "10.42 A", q2: "0.1042 V", q3: "10.6 mA" } }),
-          };
-        },
+        setupRequest: (req: CannonRequest) => ({ ...req, ...requests[i++ % count] }),
       },
     ],
   });
   instance.on("response", (_client: unknown, status: number, _bytes: number, ms: number) => {
     statuses[status] = (statuses[status] ?? 0) + 1;
     times.push(ms);
+    lastAnswer = performance.now();
   });
   const t0 = performance.now();
   const result = await instance;
-  const seconds = (performance.now() - t0) / 1000;
+  // autocannon resolves on its next one-second tick after the last answer: the burst ends at that answer
+  const seconds = ((lastAnswer || performance.now()) - t0) / 1000;
   const ok = result["2xx"];
   // every request that did not end in a 2xx answer: other statuses, connection errors, time-outs
   return { ok, errors: count - ok, p95: percentile(times, 95), perSecond: count / seconds, seconds, statuses };
 }
 
-async function health(base: string): Promise<number> {
+async function health(base: string): Promise<{ perSecond: number; total: number }> {
   const result = await autocannon({ url: `${base}/api/health`, connections: CONCURRENCY, duration: HEALTH_SECONDS });
   if (result.non2xx || result.errors) throw new Error(`the health route failed ${result.non2xx + result.errors} times`);
-  return result.requests.average;
+  return { perSecond: result.requests.average, total: result["2xx"] };
 }
 
 async function stored(db: Db, labId: string): Promise<{ attempts: number; students: number; halfWritten: number }> {
@@ -136,6 +153,7 @@ runBench(async () => {
   const db = createDb(url, 2);
   atEnd(() => db.destroy());
   const { courseId, instructorId, students } = await seed(db);
+  const postgres = await postmasterPid(db);
   console.log(`Seeded one course with ${students.length} students.`);
 
   const env = benchEnv(url);
@@ -155,8 +173,9 @@ runBench(async () => {
     const warmLab = await createLab(apps[0], instructorCookie, courseId, `Warm-up lab ${processes}`);
     // warm-up: each process compiles and caches its code paths and fills its connection pool
     await burst(base, warmLab, cookies.slice(0, 100), 100, `warm-${processes}`);
-    const h = await health(base);
-    const run = await burst(base, labId, cookies, STUDENTS, `burst-${processes}`);
+    const pids = { apps: apps.map((a) => a.process.pid!), postgres };
+    const [h, healthCpu] = await withCpu(pids, () => health(base), (r) => r.total);
+    const [run, cpu] = await withCpu(pids, () => burst(base, labId, cookies, STUDENTS, `burst-${processes}`), () => STUDENTS);
     const s = await stored(db, labId);
     // a 2xx answer whose attempt is not stored exactly once (one attempt per student, each submitted once)
     const lost = Math.max(0, run.ok - s.attempts) + (s.attempts - s.students) + s.halfWritten;
@@ -167,9 +186,10 @@ runBench(async () => {
     );
     console.log(
       `${label}: errors ${run.errors}, lost ${lost}, p95 ${run.p95.toFixed(0)} ms, throughput ${run.perSecond.toFixed(1)} submissions/s; ` +
-        `health ${h.toFixed(0)} requests/s; ratio to health ${((100 * run.perSecond) / h).toFixed(1)} %`,
+        `health ${h.perSecond.toFixed(0)} requests/s; ratio to health ${((100 * run.perSecond) / h.perSecond).toFixed(1)} %`,
     );
-    results.push({ label, run, lost, health: h });
+    console.log(`${label}: CPU per submission: ${cpuText(cpu)}; per health request: ${cpuText(healthCpu)}`);
+    results.push({ label, run, lost, health: h.perSecond, cpu, healthCpu });
     for (const a of apps) await stopChild(a.process);
     await proxyHolder.close();
   }

@@ -2,9 +2,12 @@
 // (SHUNTWISE_DATA_DIR, SHUNTWISE_PG_PORT), the production build, app processes on free ports that are
 // stopped at the end (also on Ctrl-C), and session cookies for seeded users.
 import type { ChildProcess } from "node:child_process";
+import fs from "node:fs";
 import net from "node:net";
+import { sql, type Kysely } from "kysely";
 import { encode } from "next-auth/jwt";
 import pg from "pg";
+import type { Database } from "../db";
 import { appEnv } from "../scripts/lib/app-env";
 import { buildIfStale } from "../scripts/lib/build";
 import { databaseUrl, serviceConfig } from "../scripts/lib/config";
@@ -149,4 +152,46 @@ export function percentile(xs: number[], p: number): number {
   const s = [...xs].sort((a, b) => a - b);
   if (s.length === 0) return NaN;
   return s[Math.min(s.length - 1, Math.ceil((p / 100) * s.length) - 1)];
+}
+
+/** Linux's USER_HZ, the unit of the CPU times in /proc/<pid>/stat. */
+const CLOCK_TICKS = 100;
+
+function procStat(pid: number): { ppid: number; ownMs: number; childrenMs: number } | null {
+  try {
+    const f = fs.readFileSync(`/proc/${pid}/stat`, "utf8").split(") ")[1].split(" ");
+    return { ppid: Number(f[1]), ownMs: ((Number(f[11]) + Number(f[12])) * 1000) / CLOCK_TICKS, childrenMs: ((Number(f[13]) + Number(f[14])) * 1000) / CLOCK_TICKS };
+  } catch {
+    return null; // the process ended meanwhile
+  }
+}
+
+/**
+ * CPU time (user + system, ms) used so far by a process and every process below it, read from /proc:
+ * the figure a shared machine's load barely changes. Children that ended count through their parent.
+ */
+export function cpuMsOfTree(root: number): number {
+  const parents = new Map<number, number>();
+  for (const name of fs.readdirSync("/proc")) {
+    if (!/^\d+$/.test(name)) continue;
+    const s = procStat(Number(name));
+    if (s) parents.set(Number(name), s.ppid);
+  }
+  let total = 0;
+  for (const pid of parents.keys()) {
+    let p: number | undefined = pid;
+    while (p !== undefined && p > 1 && p !== root) p = parents.get(p);
+    if (p !== root) continue;
+    const s = procStat(pid);
+    if (s) total += s.ownMs + (pid === root ? s.childrenMs : 0);
+  }
+  return total;
+}
+
+/** The PostgreSQL server's main process (the parent of a connection's backend). */
+export async function postmasterPid(db: Kysely<Database>): Promise<number> {
+  const backend = (await sql<{ pid: number }>`select pg_backend_pid() as pid`.execute(db)).rows[0].pid;
+  const s = procStat(backend);
+  if (!s) throw new Error("cannot read the database server's process (is it on this machine?)");
+  return s.ppid;
 }
