@@ -5,7 +5,6 @@ const BASE = "http://shuntwise.invalid";
 
 export function safeNext(next: string | null | undefined, fallback = "/"): string {
   if (typeof next !== "string" || !next.startsWith("/") || next.length > 2000) return fallback;
-  // eslint-disable-next-line no-control-regex
   if (/[\\\u0000-\u001f\u007f]/.test(next)) return fallback;
   if (next.startsWith("//")) return fallback;
   let url: URL;

@@ -9,7 +9,6 @@ import { listGradeEvents, type GradeEventRow } from "@/db/queries/grade-events";
 import { countOpenReviews, listReviews } from "@/db/queries/reviews";
 import { findUploads } from "@/db/queries/uploads";
 import { assertRole, isStaff, requireCourseRole, STAFF, type CourseAccess } from "@/lib/auth/access";
-import { AppError } from "@/lib/errors";
 import { templates } from "@/lib/grader";
 import { queueGradeMail } from "@/lib/mail/grade";
 import { parseRegrade, reviewAnswerSchema, reviewQuerySchema } from "@/lib/validation/reviews";

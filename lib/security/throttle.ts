@@ -26,7 +26,6 @@ export const LIMITS = {
 export type LimitName = keyof typeof LIMITS;
 
 /** A counter's key as stored: lower case, without control characters (PostgreSQL text cannot hold NUL). */
-// eslint-disable-next-line no-control-regex
 const keyOf = (key: string) => key.toLowerCase().replace(/[\u0000-\u001f\u007f]/g, "");
 
 const WHAT: Record<string, string> = {
