@@ -45,6 +45,11 @@ async function measure(port: number, url: string, cookie: string) {
   }
   if (process.env.SHUNTWISE_LIGHTHOUSE_LIST) {
     for (const s of [...items].sort((a, b) => (b.transferSize ?? 0) - (a.transferSize ?? 0))) console.log(`  ${((s.transferSize ?? 0) / 1024).toFixed(1)} KB ${s.url}`);
+    // where the main thread's time went (simulated 4× slower CPU): by kind of work, and by script
+    const work = (lhr.audits["mainthread-work-breakdown"]?.details as { items?: { groupLabel: string; duration: number }[] } | undefined)?.items ?? [];
+    console.log(`  main thread: ${work.map((w) => `${w.groupLabel} ${w.duration.toFixed(0)} ms`).join(", ")}`);
+    const boot = (lhr.audits["bootup-time"]?.details as { items?: { url: string; total: number; scripting: number; scriptParseCompile: number }[] } | undefined)?.items ?? [];
+    for (const b of boot) console.log(`  ${b.total.toFixed(0)} ms (scripting ${b.scripting.toFixed(0)}, parse ${b.scriptParseCompile.toFixed(0)}) ${b.url}`);
   }
   return {
     score: Math.round((lhr.categories.performance.score ?? 0) * 100),
