@@ -1,9 +1,14 @@
-// How a typed reading is read, exactly as the grader will read it, and the form's checks built on it.
-// They need the grader's units library (most of the lab page's JavaScript), so the submission form
-// loads this module when one of its fields is first focused or the form is submitted
+// How a typed reading is read, exactly as the grader will read it, and the form's checks built on it:
+// the attempt's zod schema (the one the route handler parses with) plus a check per field that its text
+// reads. They need the grader's units library and zod (most of the lab page's JavaScript), so the
+// submission form loads this module when one of its fields is first focused or the form is submitted
 // (use-quantity-reader.ts), not with the page.
+import { zodResolver } from "@hookform/resolvers/zod";
+import type { Resolver } from "react-hook-form";
+import type { z } from "zod";
 import { formatQuantity } from "@/lib/grader/format";
 import { parseQuantity } from "@/lib/grader/units";
+import { attemptInputSchema } from "@/lib/validation/attempts";
 import type { Echo, FormMeasured, FormQuestion } from "./read";
 
 const UNIT_SYMBOL: Record<string, string> = { ohm: "Ω" };
@@ -58,3 +63,20 @@ export function measuredProblems(components: FormMeasured[], measured: Record<st
   return out;
 }
 
+/** The form's values: every field as typed (the schema trims nothing; toPayload does before sending). */
+export type SubmissionValues = { idempotencyKey: string; readings: Record<string, string>; measured: Record<string, string>; uploadIds: string[] };
+
+/**
+ * The submission form's resolver: the attempt's schema, shared with POST /api/labs/{labId}/attempts, and
+ * on top of it the same reading of each answer the grader does, so that text with the wrong kind of unit
+ * is named under its field before anything is sent.
+ */
+export function submissionResolver(questions: FormQuestion[], components: FormMeasured[]): Resolver<SubmissionValues, unknown, z.output<typeof attemptInputSchema>> {
+  const schema = attemptInputSchema.superRefine((v, ctx) => {
+    const readings = Object.fromEntries(Object.entries(v.readings).map(([k, t]) => [k, t ?? ""]));
+    for (const [qid, msg] of Object.entries(readingProblems(questions, readings))) ctx.addIssue({ code: "custom", path: ["readings", qid], message: msg });
+    const measured = Object.fromEntries(Object.entries(v.measured ?? {}).map(([k, t]) => [k, t ?? ""]));
+    for (const [key, msg] of Object.entries(measuredProblems(components, measured))) ctx.addIssue({ code: "custom", path: ["measured", key], message: msg });
+  });
+  return zodResolver(schema) as never;
+}

@@ -2,22 +2,25 @@
 // The student's submission: one field per question that echoes how the value was read as they type,
 // optional measured component values, optional files with upload progress, and one idempotency key per
 // form so that a double click or a retry makes a single attempt.
-import { zodResolver } from "@hookform/resolvers/zod";
-import { useMutation } from "@tanstack/react-query";
+//
+// The page renders it on the server and hydrates it with react-hook-form alone: the checks (the attempt's
+// zod schema and the units library) load when a field first takes the focus or the form is submitted
+// (use-quantity-reader.ts). The attempt is sent with api() itself, not a react-query mutation: it is sent
+// once and the page moves on, so nothing here is cached, and the lab page needs no query client.
 import { useRouter } from "next/navigation";
-import { useMemo, useRef, useState, type FormEvent } from "react";
-import { useForm, useWatch, type Control, type UseFormRegisterReturn } from "react-hook-form";
+import { useCallback, useRef, useState, type FormEvent } from "react";
+import { useForm, useWatch, type Control, type Resolver, type UseFormRegisterReturn } from "react-hook-form";
 import type { z } from "zod";
 import { FieldMessage, FormMessage, QuantityInput } from "@/components/ui/field";
 import { useHydrated } from "@/components/ui/use-hydrated";
 import { api, isApiError } from "@/lib/api-client";
-import { attemptInputSchema, type AttemptInput } from "@/lib/validation/attempts";
+import type { AttemptInput, attemptInputSchema } from "@/lib/validation/attempts";
 import { FileField } from "./file-field";
 import { mapServerFields, measuredPayload, newIdempotencyKey, submitErrorMessage, toPayload, type FormMeasured, type FormQuestion } from "./read";
-import { loadedReader, useQuantityReader, type QuantityReader } from "./use-quantity-reader";
+import type { SubmissionValues as FormValues } from "./read-quantities";
+import { useQuantityReader, type QuantityReader } from "./use-quantity-reader";
 import type { UploadedFile } from "./upload";
 
-type FormValues = { idempotencyKey: string; readings: Record<string, string>; measured: Record<string, string>; uploadIds: string[] };
 type FormOutput = z.output<typeof attemptInputSchema>;
 
 function choiceLabel(choice: string): string {
@@ -77,26 +80,16 @@ export function SubmissionForm({ labId, questions, components }: { labId: string
   const [busyUploads, setBusyUploads] = useState({ image: false, trace: false });
   const [sent, setSent] = useState(false);
   const inFlight = useRef(false);
-  const submit = useMutation({ mutationFn: (body: AttemptInput) => api<{ attempt: { id: string } }>(`/api/labs/${labId}/attempts`, { method: "POST", body }) });
 
   const { reader, load: loadReader, ready: readerReady } = useQuantityReader();
-  const schema = useMemo(
-    () =>
-      attemptInputSchema.superRefine((v, ctx) => {
-        // the submit handler waits for the reader first, so the checks always have it
-        const r = loadedReader();
-        if (!r) return;
-        const { readingProblems, measuredProblems } = r;
-        const readings = Object.fromEntries(Object.entries(v.readings).map(([k, t]) => [k, t ?? ""]));
-        for (const [qid, msg] of Object.entries(readingProblems(questions, readings))) ctx.addIssue({ code: "custom", path: ["readings", qid], message: msg });
-        const measured = Object.fromEntries(Object.entries(v.measured ?? {}).map(([k, t]) => [k, t ?? ""]));
-        for (const [key, msg] of Object.entries(measuredProblems(components, measured))) ctx.addIssue({ code: "custom", path: ["measured", key], message: msg });
-      }),
-    [questions, components],
+  // The shared schema and the reading checks, from the module loaded on first use (waited for here).
+  const resolver = useCallback<Resolver<FormValues, unknown, FormOutput>>(
+    async (values, context, options) => (await readerReady()).submissionResolver(questions, components)(values, context, options),
+    [readerReady, questions, components],
   );
 
   const { register, handleSubmit, control, formState, setError, setValue, setFocus } = useForm<FormValues, unknown, FormOutput>({
-    resolver: zodResolver(schema) as never,
+    resolver,
     defaultValues: {
       idempotencyKey,
       readings: Object.fromEntries(questions.map((q) => [q.id, ""])),
@@ -121,7 +114,12 @@ export function SubmissionForm({ labId, questions, components }: { labId: string
 
   const onSubmit = async (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
-    await readerReady();
+    try {
+      await readerReady();
+    } catch {
+      setMessage("The form's checks could not be loaded. Check your connection and submit again: nothing you typed is lost.");
+      return;
+    }
     return handleSubmit(
       async (values) => {
         if (inFlight.current || uploading) return;
@@ -134,7 +132,7 @@ export function SubmissionForm({ labId, questions, components }: { labId: string
           uploadIds: [image?.id, trace?.id].filter((x): x is string => Boolean(x)),
         };
         try {
-          const { attempt } = await submit.mutateAsync(body);
+          const { attempt } = await api<{ attempt: { id: string } }>(`/api/labs/${labId}/attempts`, { method: "POST", body });
           setSent(true);
           router.push(`/attempts/${attempt.id}`);
           return;

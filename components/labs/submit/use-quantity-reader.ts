@@ -1,7 +1,8 @@
 "use client";
-// The submission form's reader of typed quantities (read-quantities.ts, with the units library), loaded
-// on first use instead of with the lab page: `load()` starts it (the form calls it when a field takes the
-// focus), `ready()` waits for it (the form calls it before checking and sending). Loaded once per page.
+// The submission form's reader of typed quantities and its checks (read-quantities.ts, with the units
+// library and zod), loaded on first use instead of with the lab page: `load()` starts it (the form calls it
+// when a field takes the focus), `ready()` waits for it (the form's resolver and submit handler call it).
+// Loaded once per page; a load that failed (no connection) is tried again on the next use.
 import { useCallback, useState } from "react";
 
 export type QuantityReader = typeof import("./read-quantities");
@@ -9,13 +10,14 @@ export type QuantityReader = typeof import("./read-quantities");
 let loading: Promise<QuantityReader> | null = null;
 let loaded: QuantityReader | null = null;
 
-/** The reader when it has loaded, else null. */
-export function loadedReader(): QuantityReader | null {
-  return loaded;
-}
-
 function loadReader(): Promise<QuantityReader> {
-  loading ??= import("./read-quantities").then((m) => (loaded = m));
+  loading ??= import("./read-quantities").then(
+    (m) => (loaded = m),
+    (e: unknown) => {
+      loading = null;
+      throw e;
+    },
+  );
   return loading;
 }
 
@@ -27,7 +29,7 @@ export function useQuantityReader(): { reader: QuantityReader | null; load: () =
     return m;
   }, []);
   const load = useCallback(() => {
-    if (!reader) void ready();
+    if (!reader) ready().catch(() => undefined); // the submit handler says so if it still fails then
   }, [reader, ready]);
   return { reader, load, ready };
 }

@@ -1,7 +1,7 @@
 // The submission form's pure helpers: the "read as" echo, payloads, server field errors, messages.
 import { describe, expect, it } from "vitest";
 import { echoText, mapServerFields, measuredPayload, newIdempotencyKey, submitErrorMessage, toPayload, uploadErrorMessage, type FormQuestion } from "@/components/labs/submit/read";
-import { echoReading, measuredProblems, readingProblems } from "@/components/labs/submit/read-quantities";
+import { echoReading, measuredProblems, readingProblems, submissionResolver } from "@/components/labs/submit/read-quantities";
 import { utcDate } from "@/lib/dates";
 import { attemptsLeftText, lateRuleText } from "@/lib/labs/wording";
 
@@ -71,6 +71,27 @@ describe("client-side checks", () => {
     const comps = [{ key: "loadResistance", label: "Load resistance", unit: "ohm", displayUnit: "kΩ", shown: "1.00 kΩ" }];
     expect(measuredProblems(comps, { loadResistance: "0 ohm" }).loadResistance).toMatch(/greater than zero/);
     expect(measuredProblems(comps, { loadResistance: "" })).toEqual({});
+  });
+});
+
+describe("the form's resolver", () => {
+  const comps = [{ key: "loadResistance", label: "Load resistance", unit: "ohm", displayUnit: "kΩ", shown: "1.00 kΩ" }];
+  const values = (readings: Record<string, string>, measured: Record<string, string> = {}) => ({ idempotencyKey: "form-key-0001", readings, measured, uploadIds: [] });
+  const resolve = (v: ReturnType<typeof values>) =>
+    submissionResolver([current, range], comps)(v, undefined, { fields: {}, shouldUseNativeValidation: false });
+
+  it("passes readings that read, with the schema's output", async () => {
+    const r = await resolve(values({ q1: "9.1 uA", q2: "uA" }, { loadResistance: "1.02 kΩ" }));
+    expect(r.errors).toEqual({});
+    expect(r.values).toMatchObject({ readings: { q1: "9.1 uA", q2: "uA" }, measured: { loadResistance: "1.02 kΩ" }, uploadIds: [] });
+  });
+
+  it("names each field that does not read, and applies the route's schema (its length limit)", async () => {
+    const r = await resolve(values({ q1: "9.1 mV", q2: "x".repeat(201) }, { loadResistance: "0 ohm" }));
+    const errors = r.errors as { readings?: Record<string, { message?: string }>; measured?: Record<string, { message?: string }> };
+    expect(errors.readings?.q1?.message).toMatch(/asks for a current/);
+    expect(errors.readings?.q2?.message).toBe("Use at most 200 characters.");
+    expect(errors.measured?.loadResistance?.message).toMatch(/greater than zero/);
   });
 });
 
