@@ -1,7 +1,9 @@
 "use client";
-// The @tanstack/react-query client for every signed-in page (the (app) layout and the lessons layout
-// render it). One client per server render, one for the whole browser session, as Next.js's guide to
-// TanStack Query sets it up. Queries fetch through lib/api-client.ts.
+// The @tanstack/react-query client. Not in a layout: each page whose client components query or mutate
+// wraps them in <QueryProvider> (the server page renders it around them), so a page without any, such as
+// a student's lab page or a lesson, loads no react-query code. One client per server render, one for the
+// whole browser session (shared by every provider on the page), as Next.js's guide to TanStack Query sets
+// it up. Queries fetch through lib/api-client.ts.
 import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
 import type { ReactNode } from "react";
 import { isApiError } from "@/lib/api-client";

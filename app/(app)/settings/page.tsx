@@ -3,6 +3,7 @@ import { db } from "@/db";
 import { findPreferences } from "@/db/queries/users";
 import { ChangePasswordForm, GradeMailForm, SignOutEverywhere } from "@/components/mail/settings-forms";
 import { forPage, requireUser } from "@/lib/auth/access";
+import { QueryProvider } from "@/components/providers/query-provider";
 
 export const metadata: Metadata = { title: "Settings" };
 export const dynamic = "force-dynamic";
@@ -17,9 +18,11 @@ export default async function SettingsPage() {
       <p className="mt-1 text-sm text-ink-soft">
         Signed in as <span className="font-mono text-xs">{user.email}</span>.
       </p>
-      <GradeMailForm initial={prefs?.gradeMail ?? true} />
-      <ChangePasswordForm email={user.email} />
-      <SignOutEverywhere />
+      <QueryProvider>
+        <GradeMailForm initial={prefs?.gradeMail ?? true} />
+        <ChangePasswordForm email={user.email} />
+        <SignOutEverywhere />
+      </QueryProvider>
     </>
   );
 }

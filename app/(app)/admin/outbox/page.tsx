@@ -5,6 +5,7 @@ import { DataTable, type Column } from "@/components/ui/table";
 import { ResendButton } from "@/components/mail/resend-button";
 import { forPage, refused, requireAdmin } from "@/lib/auth/access";
 import { outboxSummary } from "@/lib/mail/outbox";
+import { QueryProvider } from "@/components/providers/query-provider";
 
 export const metadata: Metadata = { title: "Outbox" };
 export const dynamic = "force-dynamic";
@@ -49,7 +50,9 @@ export default async function OutboxPage() {
             </p>
             <p className="mt-1 font-mono text-xs text-verdict-wrong">{f.error ?? "no answer recorded"}</p>
             <div className="mt-2">
-              <ResendButton mailId={f.id} />
+              <QueryProvider>
+                <ResendButton mailId={f.id} />
+              </QueryProvider>
             </div>
           </li>
         ))}

@@ -6,6 +6,7 @@ import Link from "next/link";
 import { forbidden } from "next/navigation";
 import { FeedbackView } from "@/components/labs/feedback/feedback-view";
 import { typeset } from "@/components/labs/feedback/typeset";
+import { QueryProvider } from "@/components/providers/query-provider";
 
 export const metadata: Metadata = { title: "Feedback" };
 
@@ -44,13 +45,15 @@ export default async function AttemptPage({ params }: { params: Promise<{ attemp
     studentName = all.find((a) => a.id === attempt.id)?.studentName ?? null;
   }
   return (
-    <FeedbackView
-      attempt={asJson(presented)}
-      studentId={attempt.userId}
-      studentName={studentName}
-      isOwner={isOwner}
-      typed={(attempt.readings ?? {}) as Record<string, string | null>}
-      solutionHtml={typeset(lines)}
-    />
+    <QueryProvider>
+      <FeedbackView
+        attempt={asJson(presented)}
+        studentId={attempt.userId}
+        studentName={studentName}
+        isOwner={isOwner}
+        typed={(attempt.readings ?? {}) as Record<string, string | null>}
+        solutionHtml={typeset(lines)}
+      />
+    </QueryProvider>
   );
 }

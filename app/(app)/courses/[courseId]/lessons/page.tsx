@@ -4,6 +4,7 @@ import { forbidden } from "next/navigation";
 import { LessonPlanEditor } from "@/components/course/lesson-plan-editor";
 import { forPage, refused, requireCourseRole } from "@/lib/auth/access";
 import { coursePlan, lessonsForStudents } from "@/lib/course-lessons";
+import { QueryProvider } from "@/components/providers/query-provider";
 
 export const metadata: Metadata = { title: "Lessons" };
 
@@ -44,10 +45,12 @@ export default async function CourseLessonsPage({ params }: { params: Promise<{ 
             Lesson plan
           </h2>
           <p className="mb-4 text-sm text-ink-soft">Tick the lessons this course shows, put them in order and set when each opens (leave empty to open at once).</p>
-          <LessonPlanEditor
-            courseId={courseId}
-            initial={plan.map((l) => ({ slug: l.slug, title: l.title, visible: l.visible, opensAt: l.opensAt ? l.opensAt.toISOString() : null }))}
-          />
+          <QueryProvider>
+            <LessonPlanEditor
+              courseId={courseId}
+              initial={plan.map((l) => ({ slug: l.slug, title: l.title, visible: l.visible, opensAt: l.opensAt ? l.opensAt.toISOString() : null }))}
+            />
+          </QueryProvider>
         </section>
       ) : null}
     </>

@@ -6,6 +6,7 @@ import { listSections } from "@/db/queries/reviews";
 import { forPage, refused, requireCourseRole, STAFF } from "@/lib/auth/access";
 import { labsForCourse } from "@/lib/labs/service";
 import { ReviewQueue } from "@/components/review/review-queue";
+import { QueryProvider } from "@/components/providers/query-provider";
 
 export const metadata: Metadata = { title: "Review queue" };
 
@@ -23,7 +24,9 @@ export default async function ReviewQueuePage({ params }: { params: Promise<{ co
       </p>
       <h1 className="mt-2 text-3xl">Review queue</h1>
       <p className="mt-1 text-sm text-ink-soft">Students&apos; requests to look at a grade again. Open a request to see the attempt beside the expected values, change points with a reason, and answer.</p>
-      <ReviewQueue courseId={access.course.id} labs={labs.map((l) => ({ id: l.id, title: l.title }))} sections={sections} />
+      <QueryProvider>
+        <ReviewQueue courseId={access.course.id} labs={labs.map((l) => ({ id: l.id, title: l.title }))} sections={sections} />
+      </QueryProvider>
     </>
   );
 }

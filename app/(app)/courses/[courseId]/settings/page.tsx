@@ -6,6 +6,7 @@ import { labWeights } from "@/db/queries/gradebook";
 import { forPage, refused, requireCourseRole } from "@/lib/auth/access";
 import { WeightsForm } from "@/components/gradebook/weights-form";
 import { CopyCourseForm, CourseSettingsForm, JoinCodePanel } from "@/components/course/settings-form";
+import { QueryProvider } from "@/components/providers/query-provider";
 
 export const metadata: Metadata = { title: "Course settings" };
 
@@ -47,7 +48,9 @@ export default async function CourseSettingsPage({ params, searchParams }: { par
           <p className="mb-3 text-sm text-ink-soft">
             The gradebook&apos;s total and its export use these. <Link href={`/courses/${courseId}/gradebook`}>Open the gradebook</Link>
           </p>
-          <WeightsForm courseId={courseId} labs={weights} />
+          <QueryProvider>
+            <WeightsForm courseId={courseId} labs={weights} />
+          </QueryProvider>
         </section>
         <CopyCourseForm courseId={courseId} code={course.code} />
       </div>

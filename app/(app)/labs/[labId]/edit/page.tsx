@@ -9,6 +9,7 @@ import { latestRegrade } from "@/lib/labs/regrade";
 import { labAccess } from "@/lib/labs/service";
 import { LabBuilder, type StoredLabInput } from "@/components/labs/builder/lab-builder";
 import { RegradeProgress } from "@/components/labs/regrade-progress";
+import { QueryProvider } from "@/components/providers/query-provider";
 
 export const metadata: Metadata = { title: "Edit lab" };
 
@@ -34,8 +35,10 @@ export default async function EditLabPage({ params, searchParams }: { params: Pr
         <Link href={`/courses/${lab.courseId}/labs`}>← Bench labs</Link>
       </p>
       <h1 className="mt-2 mb-6 text-3xl">Edit lab: {lab.title}</h1>
-      {running ? <RegradeProgress labId={lab.id} regradeId={running.id} total={running.total} /> : null}
-      <LabBuilder courseId={lab.courseId} lab={{ id: lab.id, status: lab.status, attemptCount, input }} notice={notice} />
+      <QueryProvider>
+        {running ? <RegradeProgress labId={lab.id} regradeId={running.id} total={running.total} /> : null}
+        <LabBuilder courseId={lab.courseId} lab={{ id: lab.id, status: lab.status, attemptCount, input }} notice={notice} />
+      </QueryProvider>
     </>
   );
 }

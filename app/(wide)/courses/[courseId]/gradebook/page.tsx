@@ -7,6 +7,7 @@ import { forPage, refused, requireCourseRole, STAFF } from "@/lib/auth/access";
 import { listLessons } from "@/lib/lessons";
 import { GradebookStatistics } from "@/components/gradebook/statistics";
 import { GradebookTable } from "@/components/gradebook/gradebook-table";
+import { QueryProvider } from "@/components/providers/query-provider";
 
 export const metadata: Metadata = { title: "Gradebook" };
 
@@ -35,7 +36,9 @@ export default async function GradebookPage({ params }: { params: Promise<{ cour
           ". Teaching assistants read the gradebook; the instructor exports it and sets the weights."
         )}
       </p>
-      <GradebookTable courseId={courseId} canExport={isInstructor} />
+      <QueryProvider>
+        <GradebookTable courseId={courseId} canExport={isInstructor} />
+      </QueryProvider>
       <GradebookStatistics labs={book.labs} labStats={stats.labs} questionStats={stats.questions} lessons={listLessons()} />
     </>
   );

@@ -6,6 +6,7 @@ import { staffAttemptAccess } from "@/lib/labs/review";
 import { attemptsFor, attemptsUsed, presentAttempt } from "@/lib/labs/service";
 import { FeedbackView } from "@/components/labs/feedback/feedback-view";
 import { typeset } from "@/components/labs/feedback/typeset";
+import { QueryProvider } from "@/components/providers/query-provider";
 
 export const metadata: Metadata = { title: "Review an attempt" };
 
@@ -21,14 +22,16 @@ export default async function ReviewAttemptPage({ params }: { params: Promise<{ 
   const presented = presentAttempt(attempt, lab, true, await attemptsUsed(attempt));
   const studentName = (await attemptsFor(lab, access, new Date(), attempt.userId))[0]?.studentName ?? null;
   return (
-    <FeedbackView
-      attempt={asJson(presented)}
-      studentId={attempt.userId}
-      studentName={studentName}
-      isOwner={false}
-      typed={(attempt.readings ?? {}) as Record<string, string | null>}
-      solutionHtml={typeset(presented.results.flatMap((r) => r.solution ?? []))}
-      reviewQueueHref={`/courses/${courseId}/reviews`}
-    />
+    <QueryProvider>
+      <FeedbackView
+        attempt={asJson(presented)}
+        studentId={attempt.userId}
+        studentName={studentName}
+        isOwner={false}
+        typed={(attempt.readings ?? {}) as Record<string, string | null>}
+        solutionHtml={typeset(presented.results.flatMap((r) => r.solution ?? []))}
+        reviewQueueHref={`/courses/${courseId}/reviews`}
+      />
+    </QueryProvider>
   );
 }
