@@ -231,4 +231,20 @@ describe("lab submission in the browser (flow 1)", () => {
     await first.getByText("Worked solution with your numbers").click();
     expect(await first.getByTestId("worked-solution").locator(".katex").count()).toBeGreaterThan(0);
   });
+
+  it("the instructor holds the lab's grades from its page (the student then sees no score) and releases them", async () => {
+    const hold = staff.page.getByRole("region", { name: "Grades released as they are graded" });
+    await staff.page.goto(`/labs/${labId}`);
+    await hold.getByRole("button", { name: "Hold grades", exact: true }).click();
+    const held = staff.page.getByRole("region", { name: "Grades held" });
+    await expect.poll(() => held.getByRole("status").textContent(), { timeout: 20_000 }).toBe("Grades are held.");
+
+    await student.page.goto(`/labs/${labId}`);
+    expect(await student.page.getByRole("link", { name: "Attempt 1: graded, not yet released", exact: true }).getAttribute("href")).toBe(`/attempts/${attemptId}`);
+
+    await held.getByRole("button", { name: "Release grades", exact: true }).click();
+    await expect.poll(() => hold.getByRole("status").textContent(), { timeout: 20_000 }).toMatch(/^Released: \d+ messages? queued\.$/);
+    await student.page.goto(`/labs/${labId}`);
+    await expect.poll(() => student.page.getByRole("link", { name: /^Attempt 1: 4 of 4 points/ }).count()).toBe(1);
+  });
 });
