@@ -90,12 +90,9 @@ export function SubmissionForm({ labId, questions, components }: { labId: string
 
   const { register, handleSubmit, control, formState, setError, setValue, setFocus } = useForm<FormValues, unknown, FormOutput>({
     resolver,
-    defaultValues: {
-      idempotencyKey,
-      readings: Object.fromEntries(questions.map((q) => [q.id, ""])),
-      measured: Object.fromEntries(components.map((c) => [c.key, ""])),
-      uploadIds: [],
-    },
+    // No default text for the answers: each field's value is read from the page when it registers, so
+    // what was typed before the form hydrated is kept rather than cleared.
+    defaultValues: { idempotencyKey, readings: {}, measured: {}, uploadIds: [] },
     shouldFocusError: true,
   });
 
@@ -157,6 +154,7 @@ export function SubmissionForm({ labId, questions, components }: { labId: string
   };
 
   const submitting = formState.isSubmitting || sent;
+  // before hydration a click would send the form natively: a page load that sends nothing and clears what was typed
   const hydrated = useHydrated();
 
   return (
