@@ -4,7 +4,9 @@
 // total blocking time and largest contentful paint, the compressed JavaScript the page loads, and the
 // bytes of KaTeX JavaScript among it. Goal (issue 14): a score of at least 95 on both pages, 0 bytes of
 // KaTeX JavaScript, a lesson under 150 KB of compressed JavaScript. Chromium is Debian's
-// (/usr/bin/chromium, or CHROMIUM_PATH). SHUNTWISE_LIGHTHOUSE_LIST=1 lists each script with its size.
+// (/usr/bin/chromium, or CHROMIUM_PATH). SHUNTWISE_LIGHTHOUSE_LIST=1 lists each script with its size, the
+// main thread's time by kind of work and by script, the other metrics (a layout shift explains a low score
+// with little blocking), the long tasks and the size of the page's HTML.
 // Run: npm run bench:lighthouse
 import * as chromeLauncher from "chrome-launcher";
 import lighthouse from "lighthouse";
@@ -50,6 +52,13 @@ async function measure(port: number, url: string, cookie: string) {
     console.log(`  main thread: ${work.map((w) => `${w.groupLabel} ${w.duration.toFixed(0)} ms`).join(", ")}`);
     const boot = (lhr.audits["bootup-time"]?.details as { items?: { url: string; total: number; scripting: number; scriptParseCompile: number }[] } | undefined)?.items ?? [];
     for (const b of boot) console.log(`  ${b.total.toFixed(0)} ms (scripting ${b.scripting.toFixed(0)}, parse ${b.scriptParseCompile.toFixed(0)}) ${b.url}`);
+    const metric = (id: string) => lhr.audits[id]?.displayValue ?? "?";
+    console.log(`  first contentful paint ${metric("first-contentful-paint")}, speed index ${metric("speed-index")}, layout shift ${metric("cumulative-layout-shift")}`);
+    const long = (lhr.audits["long-tasks"]?.details as { items?: { url: string; duration: number; startTime: number }[] } | undefined)?.items ?? [];
+    console.log(`  long tasks: ${long.map((t) => `${t.duration.toFixed(0)} ms at ${t.startTime.toFixed(0)} (${t.url.replace(/^.*\//, "")})`).join(", ")}`);
+    const all = (lhr.audits["network-requests"]?.details as { items?: NetworkItem[] } | undefined)?.items ?? [];
+    const doc = all.find((i) => i.resourceType === "Document");
+    if (doc) console.log(`  page HTML: ${((doc.transferSize ?? 0) / 1024).toFixed(1)} KB compressed, ${((doc.resourceSize ?? 0) / 1024).toFixed(1)} KB`);
   }
   return {
     score: Math.round((lhr.categories.performance.score ?? 0) * 100),
