@@ -213,6 +213,35 @@ describe("lab submission in the browser (flow 1)", () => {
     expect(list.body.attempts).toHaveLength(1);
   });
 
+  it("what is typed before the page's scripts arrive is kept and checked; the submit button waits for them", async () => {
+    const page = await student.context.newPage();
+    let release: () => void = () => undefined;
+    const scriptsHeld = new Promise<void>((resolve) => (release = resolve));
+    await page.route("**/_next/static/chunks/*.js", async (route) => {
+      await scriptsHeld;
+      await route.continue();
+    });
+    try {
+      await page.goto(`/labs/${labId}`, { waitUntil: "domcontentloaded" });
+      const submit = page.getByRole("button", { name: "Submit for grading", exact: true });
+      expect(await submit.isDisabled()).toBe(true);
+      const average = page.getByLabel("1. Average current", { exact: true });
+      await average.fill("9.1");
+      release();
+      await expect.poll(() => submit.isEnabled(), { timeout: 30_000 }).toBe(true);
+      expect(await average.inputValue()).toBe("9.1");
+      await submit.click();
+      const alert = page.getByTestId("submission-form").getByRole("alert").first();
+      await expect.poll(() => alert.textContent(), { timeout: 20_000 }).toMatch(/Check this answer before submitting: Average current/);
+      expect(await page.getByTestId("echo-readings.q1").textContent()).toMatch(/Add a unit/);
+      const list = await apiJson(student.context, "GET", `/api/labs/${labId}/attempts`);
+      expect(list.body.attempts).toHaveLength(1);
+    } finally {
+      release();
+      await page.close();
+    }
+  });
+
   it("the instructor sees the attempt in the lab's table and opens its feedback", async () => {
     const { page } = staff;
     await page.goto(`/labs/${labId}`);
