@@ -3,9 +3,9 @@
 // lab schema (lib/validation/labs.ts) and no column list or mapper is kept by hand. The plugin is applied
 // to this module's queries only: the rest of the project's queries are written against the snake_case
 // tables of db/types.ts, and a global plugin would rename every one of them.
-import { CamelCasePlugin, type Insertable, type Kysely, type Transaction, type Updateable } from "kysely";
+import { CamelCasePlugin, sql, type Insertable, type Kysely, type Transaction, type Updateable } from "kysely";
 import { labFields, type LabData } from "../../lib/validation/labs";
-import type { Database, LabStatus, LabsTable, LabVariantsTable } from "../types";
+import type { CoursesTable, Database, LabStatus, LabsTable, LabVariantsTable, MembershipsTable, Role } from "../types";
 
 type Db = Kysely<Database> | Transaction<Database>;
 
@@ -16,6 +16,9 @@ type Camel<T> = { [K in keyof T as CamelName<K & string>]: T[K] };
 interface LabsDatabase {
   labs: Camel<LabsTable>;
   labVariants: Camel<LabVariantsTable>;
+  /** read only by findLabForMember, with the lab */
+  courses: Camel<CoursesTable>;
+  memberships: Camel<MembershipsTable>;
 }
 
 // JSON columns (spec, questions, policy, params) are read as stored: their keys are the grader's, not columns.
@@ -44,6 +47,61 @@ export type LabRow = Awaited<ReturnType<typeof findLab>> & {};
 
 export async function findLab(db: Db, labId: string) {
   return labsDb(db).selectFrom("labs").select(LAB_COLUMNS).where("id", "=", labId).executeTakeFirst();
+}
+
+/**
+ * The lab with its course and the user's membership of it (null when not a member, or no user), in one
+ * query; undefined when no such lab. The course has the columns of courses.ts's findCourse.
+ */
+export async function findLabForMember(db: Db, labId: string, userId: string | null) {
+  const row = await labsDb(db)
+    .selectFrom("labs as l")
+    .innerJoin("courses as c", "c.id", "l.courseId")
+    .leftJoin("memberships as m", (j) => {
+      const sameCourse = j.onRef("m.courseId", "=", "l.courseId");
+      return userId === null ? sameCourse.on(sql<boolean>`false`) : sameCourse.on("m.userId", "=", userId);
+    })
+    .select(LAB_COLUMNS.map((c) => `l.${c}` as const))
+    .select([
+      "c.code as courseCode",
+      "c.title as courseTitle",
+      "c.term as courseTerm",
+      "c.institution as courseInstitution",
+      "c.joinCode as courseJoinCode",
+      "c.joiningOpen as courseJoiningOpen",
+      "c.defaultLatePenaltyPercentPerDay as courseDefaultLatePenaltyPercentPerDay",
+      "c.defaultLateFloorPercent as courseDefaultLateFloorPercent",
+      "m.role as memberRole",
+      "m.section as memberSection",
+    ])
+    .where("l.id", "=", labId)
+    .executeTakeFirst();
+  if (!row) return undefined;
+  const {
+    courseCode,
+    courseTitle,
+    courseTerm,
+    courseInstitution,
+    courseJoinCode,
+    courseJoiningOpen,
+    courseDefaultLatePenaltyPercentPerDay,
+    courseDefaultLateFloorPercent,
+    memberRole,
+    memberSection,
+    ...lab
+  } = row;
+  const course = {
+    id: lab.courseId,
+    code: courseCode,
+    title: courseTitle,
+    term: courseTerm,
+    institution: courseInstitution,
+    joinCode: courseJoinCode,
+    joiningOpen: courseJoiningOpen,
+    defaultLatePenaltyPercentPerDay: courseDefaultLatePenaltyPercentPerDay,
+    defaultLateFloorPercent: courseDefaultLateFloorPercent,
+  };
+  return { lab: lab as LabRow, course, membership: memberRole ? { role: memberRole as Role, section: memberSection } : null };
 }
 
 export async function listLabs(db: Db, courseId: string, opts: { publishedOnly: boolean }) {

@@ -50,7 +50,11 @@ export async function requireCourseRole(courseId: string, allowed: Role[] = EVER
   if (!uuidSchema.safeParse(courseId).success) throw notFound("That course");
   const found = await findCourseForMember(db, courseId, user.id);
   if (!found) throw notFound("That course");
-  const { course, membership } = found;
+  return courseAccess(user, found.course, found.membership, allowed);
+}
+
+/** The access of a signed-in user to a course already read with their membership (see requireCourseRole). */
+export function courseAccess(user: PublicUser, course: CourseRow, membership: { role: Role; section: string | null } | null, allowed: Role[] = EVERYONE): CourseAccess {
   const role: Role | undefined = membership?.role ?? (user.isAdmin ? "instructor" : undefined);
   if (!role) throw notFound("That course");
   const access = { user, course, role, section: membership?.section ?? null };

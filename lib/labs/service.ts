@@ -5,10 +5,10 @@ import { db } from "@/db";
 import type { Database, Role } from "@/db/types";
 import type { Kysely, Transaction } from "kysely";
 import { countAttempts, findAttempt, insertGradedAttempt, listAttempts, lockStudentLab, submissionState, type AttemptRow } from "@/db/queries/attempts";
-import { findLab, findVariant, insertLab, listLabs, storeVariant } from "@/db/queries/labs";
+import { findLabForMember, findVariant, insertLab, listLabs, storeVariant } from "@/db/queries/labs";
 import { findUploads, lockUploadsForAttempt } from "@/db/queries/uploads";
-import { assertRole, EVERYONE, isStaff, requireCourseRole, type CourseAccess } from "@/lib/auth/access";
-import { AppError, notFound } from "@/lib/errors";
+import { assertRole, courseAccess, currentUser, EVERYONE, isStaff, type CourseAccess } from "@/lib/auth/access";
+import { AppError, notFound, unauthorized } from "@/lib/errors";
 import { queueGradeMail } from "@/lib/mail/grade";
 import { drawVariant, type Params } from "@/lib/grader";
 import { attemptRecord, checkReadings, gradeForLab, parseMeasured, toLab, withIds, type Lab, type StoredTrace } from "./grading";
@@ -23,10 +23,14 @@ import { uuidSchema } from "@/lib/validation/common";
 /** The lab and the caller's access to its course. Students never see drafts (404). */
 export async function labAccess(labId: string, allowed: Role[] = EVERYONE): Promise<{ lab: Lab; access: CourseAccess }> {
   if (!uuidSchema.safeParse(labId).success) throw notFound("That lab");
-  const row = await findLab(db, labId);
-  if (!row) throw notFound("That lab");
-  const access = await requireCourseRole(row.courseId, EVERYONE);
-  const lab = toLab(row);
+  // the lab, its course and the caller's membership in one query (a caller not signed in learns only
+  // whether the lab exists: 404, else 401)
+  const user = await currentUser();
+  const found = await findLabForMember(db, labId, user?.id ?? null);
+  if (!found) throw notFound("That lab");
+  if (!user) throw unauthorized();
+  const access = courseAccess(user, found.course, found.membership, EVERYONE);
+  const lab = toLab(found.lab);
   if (!isStaff(access.role) && lab.status !== "published") throw notFound("That lab");
   assertRole(access, allowed);
   return { lab, access };
