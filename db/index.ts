@@ -1,6 +1,6 @@
 // The one Kysely instance of the application. It connects lazily, on first use, from DATABASE_URL.
 import { Kysely, PostgresDialect } from "kysely";
-import { newPool } from "./pool";
+import { newPool, withNamedStatements } from "./pool";
 import type { Database } from "./types";
 
 export type { Database } from "./types";
@@ -8,7 +8,7 @@ export type { Database } from "./types";
 const globalForDb = globalThis as unknown as { shuntwiseDb?: Kysely<Database> };
 
 export function createDb(connectionString: string, max = 10): Kysely<Database> {
-  return new Kysely<Database>({ dialect: new PostgresDialect({ pool: newPool(connectionString, max) }) });
+  return new Kysely<Database>({ dialect: new PostgresDialect({ pool: withNamedStatements(newPool(connectionString, max)) }) });
 }
 
 /**
