@@ -37,16 +37,6 @@ export async function findAttempt(db: Db, attemptId: string) {
 
 export type AttemptRow = NonNullable<Awaited<ReturnType<typeof findAttempt>>>;
 
-export async function findAttemptByKey(db: Db, labId: string, userId: string, key: string) {
-  return db
-    .selectFrom("attempts as a")
-    .select(ATTEMPT_COLUMNS)
-    .where("a.lab_id", "=", labId)
-    .where("a.user_id", "=", userId)
-    .where("a.idempotency_key", "=", key)
-    .executeTakeFirst();
-}
-
 export async function listAttempts(db: Db, labId: string, userId?: string) {
   let q = db
     .selectFrom("attempts as a")

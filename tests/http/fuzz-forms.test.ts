@@ -17,6 +17,7 @@
 import fc from "fast-check";
 import { beforeAll, describe, expect, it } from "vitest";
 import { baseURL, Client } from "../support/http";
+import { pool } from "../support/pool";
 import { clientFor, courseWithPeople, fixedCircuitLab, publishedLab, sendAs } from "./fixtures";
 
 const RUNS = Math.max(50, Math.round(Number(process.env.SHUNTWISE_FUZZ_RUNS ?? 1000) / 10));
@@ -142,19 +143,13 @@ describe(`fuzzing uploads through HTTP (${RUNS} bodies, seed ${SEED})`, () => {
     const all = fc.sample(cases, { numRuns: RUNS, seed: SEED });
     const statuses: Record<number, number> = {};
     const faults: string[] = [];
-    let next = 0;
-    await Promise.all(
-      Array.from({ length: CONCURRENCY }, async () => {
-        while (next < all.length) {
-          const c = all[next++];
-          const { body, headers } = form(c);
-          const res = await student.json("/api/uploads", { method: "POST", body, headers });
-          statuses[res.status] = (statuses[res.status] ?? 0) + 1;
-          const f = fault(res.status, res.text);
-          if (f) faults.push(`${f}\n    sent: ${c.shape}, ${c.owner}, "${c.name.slice(0, 40)}", ${c.type || "no type"}, ${c.bytes.length} bytes: ${JSON.stringify(new TextDecoder().decode(c.bytes.slice(0, 120)))}\n    got: ${res.text.slice(0, 300)}`);
-        }
-      }),
-    );
+    await pool(all, CONCURRENCY, async (c) => {
+      const { body, headers } = form(c);
+      const res = await student.json("/api/uploads", { method: "POST", body, headers });
+      statuses[res.status] = (statuses[res.status] ?? 0) + 1;
+      const f = fault(res.status, res.text);
+      if (f) faults.push(`${f}\n    sent: ${c.shape}, ${c.owner}, "${c.name.slice(0, 40)}", ${c.type || "no type"}, ${c.bytes.length} bytes: ${JSON.stringify(new TextDecoder().decode(c.bytes.slice(0, 120)))}\n    got: ${res.text.slice(0, 300)}`);
+    });
     console.log(`fuzz uploads: ${all.length} bodies to ${baseURL}/api/uploads: ${Object.entries(statuses).map(([k, v]) => `${k}×${v}`).join(" ")}`);
     expect(faults.slice(0, 20), `${faults.length} of ${all.length} answers are wrong (replay with SHUNTWISE_FUZZ_SEED=${SEED})`).toEqual([]);
     // the generators reach both sides: some files are stored, some refused
@@ -201,32 +196,25 @@ describe(`fuzzing sign-in through HTTP (${RUNS} forms, seed ${SEED})`, () => {
     const all = fc.sample(signInCase, { numRuns: RUNS, seed: SEED + 1 });
     const statuses: Record<number, number> = {};
     const faults: string[] = [];
-    let next = 0;
-    await Promise.all(
-      Array.from({ length: CONCURRENCY }, async () => {
-        while (next < all.length) {
-          const n = next++;
-          const c = all[n];
-          const client = new Client();
-          const csrf = await client.json("/api/auth/csrf");
-          const form = new URLSearchParams();
-          if (c.csrf !== "missing") form.append("csrfToken", c.csrf === "good" ? csrf.body.csrfToken : "0".repeat(64));
-          // an e-mail made unique per form, so the per-account throttle of one does not decide another's answer
-          form.append("email", c.email.includes("@test.example") ? c.email.replace("@", `.${RUN_TAG}.${n}@`) : c.email);
-          form.append("password", c.password);
-          form.append("json", "true");
-          for (const [k, v] of Object.entries(c.extra ?? {})) form.append(k, v);
-          const res = await client.fetch("/api/auth/callback/credentials", { method: "POST", headers: { "content-type": "application/x-www-form-urlencoded" }, body: form.toString() });
-          await res.arrayBuffer();
-          statuses[res.status] = (statuses[res.status] ?? 0) + 1;
-          const session = res.headers.getSetCookie().some((k) => /next-auth\.session-token=[^;]/.test(k));
-          const sent = `csrf ${c.csrf}, e-mail ${JSON.stringify(c.email.slice(0, 60))}, password of ${c.password.length} characters, extra ${JSON.stringify(c.extra)?.slice(0, 120)}`;
-          if (res.status >= 500) faults.push(`answered ${res.status}\n    sent: ${sent}`);
-          if (res.status === 429 && !(Number(res.headers.get("retry-after")) > 0)) faults.push(`answered 429 without Retry-After\n    sent: ${sent}`);
-          if (session) faults.push(`answered with a session\n    sent: ${sent}`);
-        }
-      }),
-    );
+    await pool(all, CONCURRENCY, async (c, n) => {
+      const client = new Client();
+      const csrf = await client.json("/api/auth/csrf");
+      const form = new URLSearchParams();
+      if (c.csrf !== "missing") form.append("csrfToken", c.csrf === "good" ? csrf.body.csrfToken : "0".repeat(64));
+      // an e-mail made unique per form, so the per-account throttle of one does not decide another's answer
+      form.append("email", c.email.includes("@test.example") ? c.email.replace("@", `.${RUN_TAG}.${n}@`) : c.email);
+      form.append("password", c.password);
+      form.append("json", "true");
+      for (const [k, v] of Object.entries(c.extra ?? {})) form.append(k, v);
+      const res = await client.fetch("/api/auth/callback/credentials", { method: "POST", headers: { "content-type": "application/x-www-form-urlencoded" }, body: form.toString() });
+      await res.arrayBuffer();
+      statuses[res.status] = (statuses[res.status] ?? 0) + 1;
+      const session = res.headers.getSetCookie().some((k) => /next-auth\.session-token=[^;]/.test(k));
+      const sent = `csrf ${c.csrf}, e-mail ${JSON.stringify(c.email.slice(0, 60))}, password of ${c.password.length} characters, extra ${JSON.stringify(c.extra)?.slice(0, 120)}`;
+      if (res.status >= 500) faults.push(`answered ${res.status}\n    sent: ${sent}`);
+      if (res.status === 429 && !(Number(res.headers.get("retry-after")) > 0)) faults.push(`answered 429 without Retry-After\n    sent: ${sent}`);
+      if (session) faults.push(`answered with a session\n    sent: ${sent}`);
+    });
     console.log(`fuzz sign-in: ${all.length} forms: ${Object.entries(statuses).map(([k, v]) => `${k}×${v}`).join(" ")}`);
     expect(faults.slice(0, 20), `${faults.length} of ${all.length} answers are wrong (replay with SHUNTWISE_FUZZ_SEED=${SEED})`).toEqual([]);
   });

@@ -10,6 +10,7 @@
 import fc from "fast-check";
 import { beforeAll, describe, expect, it } from "vitest";
 import { Client } from "../support/http";
+import { pool } from "../support/pool";
 import { addPerson, clientFor, courseWithPeople, fixedCircuitLab, serverActionIds } from "./fixtures";
 
 const RUNS = Number(process.env.SHUNTWISE_FUZZ_RUNS ?? 1000);
@@ -419,20 +420,6 @@ function fault(t: Target, o: Outcome): string | null {
   if (!e || typeof e.code !== "string" || typeof e.message !== "string") return `answered ${o.status} without { error: { code, message } }`;
   if (!e.fields || typeof e.fields !== "object" || Object.keys(e.fields).length === 0) return `answered ${o.status} (${e.code}) naming no field`;
   return null;
-}
-
-async function pool<T, R>(items: T[], n: number, fn: (t: T) => Promise<R>): Promise<R[]> {
-  const out: R[] = new Array(items.length);
-  let next = 0;
-  await Promise.all(
-    Array.from({ length: n }, async () => {
-      while (next < items.length) {
-        const i = next++;
-        out[i] = await fn(items[i]);
-      }
-    }),
-  );
-  return out;
 }
 
 describe(`fuzzing the mutations through HTTP (${RUNS} bodies, seed ${SEED})`, () => {

@@ -1,12 +1,9 @@
 import type { Metadata } from "next";
-import { asJson } from "@/lib/api-client";
 import { forPage, isStaff, refused } from "@/lib/auth/access";
-import { attemptAccess, attemptsFor, attemptsUsed, HELD_NOTICE, presentAttempt } from "@/lib/labs/service";
+import { attemptAccess, HELD_NOTICE } from "@/lib/labs/service";
 import Link from "next/link";
 import { forbidden } from "next/navigation";
-import { FeedbackView } from "@/components/labs/feedback/feedback-view";
-import { typeset } from "@/components/labs/feedback/typeset";
-import { QueryProvider } from "@/components/providers/query-provider";
+import { AttemptFeedback } from "@/components/labs/feedback/attempt-feedback";
 
 export const metadata: Metadata = { title: "Feedback" };
 
@@ -16,7 +13,6 @@ export default async function AttemptPage({ params }: { params: Promise<{ attemp
   if (refused(found)) forbidden();
   const { attempt, lab, access } = found;
   const staff = isStaff(access.role);
-  const isOwner = attempt.userId === access.user.id;
   if (!staff && lab.gradesHeld) {
     return (
       <>
@@ -36,24 +32,5 @@ export default async function AttemptPage({ params }: { params: Promise<{ attemp
       </>
     );
   }
-  // The attempt as GET /api/attempts/{id} returns it; the server also typesets the solutions it may show.
-  const presented = presentAttempt(attempt, lab, staff, await attemptsUsed(attempt));
-  const lines = presented.results.flatMap((r) => r.solution ?? []);
-  let studentName: string | null = null;
-  if (staff && !isOwner) {
-    const all = await attemptsFor(lab, access);
-    studentName = all.find((a) => a.id === attempt.id)?.studentName ?? null;
-  }
-  return (
-    <QueryProvider>
-      <FeedbackView
-        attempt={asJson(presented)}
-        studentId={attempt.userId}
-        studentName={studentName}
-        isOwner={isOwner}
-        typed={(attempt.readings ?? {}) as Record<string, string | null>}
-        solutionHtml={typeset(lines)}
-      />
-    </QueryProvider>
-  );
+  return <AttemptFeedback attempt={attempt} lab={lab} access={access} />;
 }
