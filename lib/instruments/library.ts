@@ -136,6 +136,7 @@ export function libraryInstrument(key: string): LibraryInstrument | undefined {
 export function copyOfLibrary(key: string): InstrumentProfile | undefined {
   const i = libraryInstrument(key);
   if (!i) return undefined;
-  const { libraryKey: _k, ...profile } = structuredClone(i);
+  const profile: InstrumentProfile & { libraryKey?: string } = structuredClone(i);
+  delete profile.libraryKey;
   return profile;
 }
