@@ -2,6 +2,7 @@
 // the current it lets through, the size of one step, its bandwidth, time constant and noise.
 // PHYSICS.md §2 (burden), §4 (steps), §6 (RC low-pass), §7 (thermal noise).
 import { BOLTZMANN } from "@/lib/grader/constants";
+import { resolutionAmps, transimpedance } from "@/lib/instruments/profile";
 import type { BenchCircuit, SimInstrument, SimRange } from "./types";
 
 /** Temperature of the bench, K (the lessons' 300 K). */
@@ -13,9 +14,11 @@ export const OPEN_LOOP_GAIN = 1e5;
 /** The live display's readings per second. */
 export const DISPLAY_RATE_HZ = 4;
 
-/** Resistance the meter puts in series with the load on this range, Ω. */
+/**
+ * Resistance the meter puts in series with the load on this range, Ω: the shunt, or the stated burden at full
+ * scale over the full scale, or a feedback ammeter's R_F / A_OL.
+ */
 export function inputResistance(instrument: SimInstrument, range: SimRange): number {
-  if (instrument.kind === "feedback-ammeter" && range.feedbackOhms) return range.feedbackOhms / OPEN_LOOP_GAIN;
   if (range.shuntOhms !== undefined) return range.shuntOhms;
   if (range.burdenAtFullScale !== undefined) return range.burdenAtFullScale / range.fullScale;
   if (range.feedbackOhms) return range.feedbackOhms / OPEN_LOOP_GAIN;
@@ -33,18 +36,17 @@ export function loadedCurrent(supplyVoltage: number, loadResistance: number, rIn
   return supplyVoltage / (loadResistance + rIn);
 }
 
-/** Output sensitivity of a converter range, V/A (the profile's, or the reference over the full scale). */
+/** Output sensitivity of a range, V/A: the profile's (or its feedback resistor), else the reference over the full scale. */
 export function sensitivityOf(range: SimRange): number {
-  if (range.sensitivity) return range.sensitivity;
+  const s = transimpedance(range);
+  if (s) return s;
   if ("bits" in range.resolution) return range.resolution.referenceVolts / range.fullScale;
   return 1;
 }
 
-/** One step of the display or converter, in amperes. */
+/** One step of the display or converter, in amperes (lib/instruments/profile.ts). */
 export function stepOf(range: SimRange): number {
-  const r = range.resolution;
-  if ("counts" in r) return range.fullScale / r.counts;
-  return r.referenceVolts / 2 ** r.bits / sensitivityOf(range);
+  return resolutionAmps(range);
 }
 
 /** Cut-off of the low-pass in front of the reading, Hz. */

@@ -82,8 +82,12 @@ export function filteredCurrent(
   return y;
 }
 
-/** What the display shows for an analogue current x on a range: rounded to a step, null when it clips. */
-export function quantise(instrument: SimInstrument, range: SimRange, x: number): number | null {
+/**
+ * What the display shows for an analogue current x on a range, null when it clips. A display of counts rounds
+ * to a step. A converter truncates (lib/instruments/profile.ts converterCode) and the reading is the code's
+ * centre (PHYSICS.md §3 3f); its top code is clipped (§3). `bothWays` puts the output on the profile's offset.
+ */
+export function quantise(instrument: SimInstrument, range: SimRange, x: number, bothWays = false): number | null {
   const r = range.resolution;
   const step = stepOf(range);
   if ("counts" in r) {
@@ -92,26 +96,27 @@ export function quantise(instrument: SimInstrument, range: SimRange, x: number):
   }
   const s = sensitivityOf(range);
   const lsb = r.referenceVolts / 2 ** r.bits;
-  const offset = instrument.offset?.volts ?? 0;
+  const offset = bothWays ? (instrument.offset?.volts ?? 0) : 0;
   const top = 2 ** r.bits - 1;
-  let code = Math.round((offset + s * x) / lsb);
-  if (code >= top) return null; // the top code is clipped (PHYSICS.md §3)
-  if (code <= 0) {
-    if (offset > 0) return null; // below the offset's reach, as clipped as the top
-    code = 0;
+  let code = Math.floor((offset + s * x) / lsb);
+  if (code >= top) return null;
+  if (code < 0) {
+    if (bothWays) return null; // below the offset's reach, as clipped as the top
+    code = 0; // a converter without the offset reads a reversed current as zero
   }
-  return (code * lsb - offset) / s;
+  return ((code + 0.5) * lsb - offset) / s;
 }
 
 /** One reading on a range at time t of a run that started (or last switched) at t0. */
 function readOnce(
-  seed: string, instrument: SimInstrument, range: SimRange, circuit: BenchCircuit, filter: boolean, t0: number, t: number, tau?: number,
+  seed: string, instrument: SimInstrument, range: SimRange, circuit: BenchCircuit, run: ReadingRun, t0: number, t: number, tau?: number,
 ): number | null {
+  const filter = run.filter;
   const x = filteredCurrent(instrument, range, circuit, filter, t0, t, tau);
   const sigma = thermalNoiseCurrent(instrument, range, filter, circuit.loadResistance);
   const noisy = x + sigma * gaussian(`${seed}|noise|${range.key}|${filter ? 1 : 0}|${Math.round(t * 1e9)}`);
   const e = errorsOf(seed, range);
-  return quantise(instrument, range, noisy * (1 + e.gain) + e.offset);
+  return quantise(instrument, range, noisy * (1 + e.gain) + e.offset, run.bothWays);
 }
 
 /**
@@ -132,7 +137,7 @@ export function simulateReadings(seed: string, instrument: SimInstrument, circui
     if (!range) throw new Error(`no range ${run.range}`);
     for (let i = 0; i < run.count; i++) {
       const t = timeOf(i);
-      out.push({ t, value: readOnce(seed, instrument, range, circuit, run.filter, run.from, t), unit: "A", range: range.key });
+      out.push({ t, value: readOnce(seed, instrument, range, circuit, run, run.from, t), unit: "A", range: range.key });
     }
     return out;
   }
@@ -146,7 +151,7 @@ export function simulateReadings(seed: string, instrument: SimInstrument, circui
   for (let i = 0; i < run.count; i++) {
     const t = timeOf(i);
     const range = ranges[k];
-    const value = readOnce(seed, instrument, range, circuit, run.filter, since, t, tau);
+    const value = readOnce(seed, instrument, range, circuit, run, since, t, tau);
     out.push({ t, value, unit: "A", range: range.key });
     // readings taken while the output settles (to 0.1 %, 7τ) are shown but take no decision (PHYSICS.md §3)
     if (t - since < 7 * tau) continue;
@@ -161,15 +166,16 @@ export function simulateReadings(seed: string, instrument: SimInstrument, circui
 }
 
 /**
- * The auto-ranger's decision after one settled reading on range k: up when the reading is at or above the
- * up-fraction of this range's full scale (or clips), down when it is at or below the down-fraction of the next
- * more sensitive range's full scale (PHYSICS.md §3, both thresholds referred as the profile states them).
+ * The auto-ranger's decision after one settled reading on range k, with the thresholds of
+ * lib/instruments/profile.ts (autoRangeIndex): up when |reading| exceeds the up-fraction of this range's full
+ * scale (or it clips), down when it is below the down-fraction of this range's full scale.
  */
 export function autoRangeStep(instrument: SimInstrument, k: number, value: number | null): number {
   const auto = instrument.autoRange;
   const ranges = instrument.ranges;
   if (!auto) return k;
-  if (value === null || Math.abs(value) >= auto.upAtFractionOfFullScale * ranges[k].fullScale) return Math.min(k + 1, ranges.length - 1);
-  if (k > 0 && Math.abs(value) <= auto.downAtFractionOfFullScale * ranges[k - 1].fullScale) return k - 1;
+  const fs = ranges[k].fullScale;
+  if (value === null || Math.abs(value) > auto.upAtFractionOfFullScale * fs) return Math.min(k + 1, ranges.length - 1);
+  if (k > 0 && Math.abs(value) < auto.downAtFractionOfFullScale * fs) return k - 1;
   return k;
 }

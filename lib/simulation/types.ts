@@ -1,32 +1,8 @@
-// The shapes the simulated bench works on. The instrument is an instrument profile (lib/instruments); only
-// the fields the simulation reads are named here, so any profile of that shape can be passed.
+// The shapes the simulated bench works on. The instrument is an instrument profile (lib/instruments/profile.ts).
+import type { InstrumentProfile, InstrumentRange } from "@/lib/instruments/profile";
 
-export type SimResolution = { counts: number } | { bits: number; referenceVolts: number };
-
-export interface SimRange {
-  key: string;
-  label: string;
-  /** amperes */
-  fullScale: number;
-  shuntOhms?: number;
-  burdenAtFullScale?: number;
-  feedbackOhms?: number;
-  resolution: SimResolution;
-  accuracy: { percentOfReading: number; counts?: number; percentOfRange?: number };
-  /** V/A of the analogue output that the converter reads (sampling meter) */
-  sensitivity?: number;
-  filterCutoffHz?: number;
-  settlingSeconds?: number;
-}
-
-export interface SimInstrument {
-  name: string;
-  kind: "sampling-meter" | "multimeter" | "feedback-ammeter";
-  /** ordered from the smallest full scale up */
-  ranges: SimRange[];
-  autoRange?: { upAtFractionOfFullScale: number; downAtFractionOfFullScale: number; settlingSeconds: number };
-  offset?: { volts: number };
-}
+export type SimInstrument = InstrumentProfile;
+export type SimRange = InstrumentRange;
 
 /**
  * The student's circuit on the bench: an ideal supply feeding a load through the meter. A duty-cycled load
@@ -44,6 +20,7 @@ export interface BenchCircuit {
  * One run of readings: a range key (or "auto" where the profile auto-ranges), the filter on or off, and
  * `count` readings `1/rate` seconds apart starting at `from` seconds on the bench's clock. `from` is the moment
  * of the last change (range, filter, circuit connected): the meter's output starts at zero there and settles.
+ * `bothWays` puts a sampling meter's output on its mid-scale offset (currents in both directions).
  */
 export interface ReadingRun {
   range: string;
@@ -52,6 +29,7 @@ export interface ReadingRun {
   count: number;
   /** readings per second; the live display uses DISPLAY_RATE_HZ */
   rate?: number;
+  bothWays?: boolean;
 }
 
 /** One reading: `value` in amperes, null while the meter shows an overload. */

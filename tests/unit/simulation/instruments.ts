@@ -39,7 +39,9 @@ export const settlingMeter: SimInstrument = {
 /**
  * Three ranges 1000 apart with a converter, 12 bits on 3.3 V and 3.3 V at full scale: the generic meter of
  * PHYSICS.md §3 (its check values are common practice there), auto-ranging up at 0.90 of full scale and down
- * at 0.80 of the next more sensitive range's full scale, a feedback design so the burden does not move the current.
+ * at 0.80 of the next more sensitive range's full scale, which is 0.0008 of the present range's full scale
+ * (ranges 1000 apart; the profile states both fractions of the present range), a feedback design so the
+ * burden does not move the current.
  */
 export const autoMeter: SimInstrument = {
   name: "check auto-ranging meter",
@@ -49,7 +51,7 @@ export const autoMeter: SimInstrument = {
     { key: "u", label: "3.3 mA", fullScale: 3.3e-3, feedbackOhms: 1e3, sensitivity: 1e3, resolution: { bits: 12, referenceVolts: 3.3 }, accuracy: { percentOfReading: 0.5 }, filterCutoffHz: 10 },
     { key: "m", label: "3.3 A", fullScale: 3.3, feedbackOhms: 1, sensitivity: 1, resolution: { bits: 12, referenceVolts: 3.3 }, accuracy: { percentOfReading: 0.5 }, filterCutoffHz: 10 },
   ],
-  autoRange: { upAtFractionOfFullScale: 0.9, downAtFractionOfFullScale: 0.8, settlingSeconds: 0.2 },
+  autoRange: { upAtFractionOfFullScale: 0.9, downAtFractionOfFullScale: 0.0008, settlingSeconds: 0.2 },
 };
 
 /** A fast logger for bursts: 10 mA full scale, 4000 counts, no filter (the amplifier's own bandwidth). */
