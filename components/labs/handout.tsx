@@ -7,7 +7,7 @@ import ReactMarkdown, { type Components } from "react-markdown";
 import type { handoutFromParams } from "@/lib/labs/handout";
 import { CircuitDiagram } from "@/components/lesson/diagrams";
 import { DataTable, type Column } from "@/components/ui/table";
-import { Caution } from "@/components/lesson/Caution";
+import { Caution } from "@/components/lesson/caution";
 import { expectedWhenText } from "@/lib/labs/policy";
 
 export type HandoutData = ReturnType<typeof handoutFromParams>;

@@ -1,13 +1,13 @@
 "use client";
 // Live calculators for lessons 1-10. Every physical result comes from lib/grader (templates[…].compute,
 // nearestStandard); this file only reads inputs, lays out results and draws plots. The calculators of the
-// newer lessons are in calculators-depth.tsx; what both share is in fields.tsx.
+// lessons on leakage, thermoelectric offsets and short bursts are in calculators-leakage-offset-burst.tsx; what both share is in fields.tsx.
 import { useMemo, useState } from "react";
 import { nearestStandard } from "@/lib/grader";
 import { formatAuto, formatText } from "@/lib/lessons/format";
 import { teaching } from "@/lib/lessons/teaching";
 import { CalculatorCard, compute, Fields, invalid, num, Output, useQuantityFields } from "./fields";
-import { Plot } from "./Plot";
+import { Plot } from "./calculator-plot";
 
 // ---------------------------------------------------------------- burden explorer
 const burdenDefs = {

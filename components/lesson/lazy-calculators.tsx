@@ -7,7 +7,7 @@
 import { createElement, lazy, Suspense, useEffect, useRef, useState, type ComponentType, type LazyExoticComponent } from "react";
 
 const basic = () => import("./calculators");
-const depth = () => import("./calculators-depth");
+const leakageOffsetBurst = () => import("./calculators-leakage-offset-burst");
 
 type Entry = { title: string; testId: string; load: () => Promise<ComponentType> };
 
@@ -18,13 +18,13 @@ const calculators = {
   RangePicker: { title: "range and ADC code", testId: "range-picker", load: () => basic().then((m) => m.RangePicker) },
   DutyCycleCalculator: { title: "duty-cycled load and battery life", testId: "duty-cycle-calculator", load: () => basic().then((m) => m.DutyCycleCalculator) },
   RcStepResponse: { title: "RC low-pass: step and pulse response", testId: "rc-step", load: () => basic().then((m) => m.RcStepResponse) },
-  LeakageGuardCalculator: { title: "leakage, bias current and a guard", testId: "leakage-calculator", load: () => depth().then((m) => m.LeakageGuardCalculator) },
+  LeakageGuardCalculator: { title: "leakage, bias current and a guard", testId: "leakage-calculator", load: () => leakageOffsetBurst().then((m) => m.LeakageGuardCalculator) },
   ThermalReversalCalculator: {
     title: "offsets, thermoelectric voltage and current reversal",
     testId: "thermal-calculator",
-    load: () => depth().then((m) => m.ThermalReversalCalculator),
+    load: () => leakageOffsetBurst().then((m) => m.ThermalReversalCalculator),
   },
-  BurstSamplingCalculator: { title: "samples in a burst, and what a slow logger sees", testId: "burst-calculator", load: () => depth().then((m) => m.BurstSamplingCalculator) },
+  BurstSamplingCalculator: { title: "samples in a burst, and what a slow logger sees", testId: "burst-calculator", load: () => leakageOffsetBurst().then((m) => m.BurstSamplingCalculator) },
 } satisfies Record<string, Entry>;
 
 export type CalculatorName = keyof typeof calculators;

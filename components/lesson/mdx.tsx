@@ -3,12 +3,12 @@
 import type { ComponentPropsWithoutRef } from "react";
 import type { MDXComponents } from "mdx/types";
 import { childrenText, headingId } from "@/lib/lessons/toc";
-import { Caution } from "./Caution";
-import { CheckYourself } from "./CheckYourself";
+import { Caution } from "./caution";
+import { CheckYourself } from "./check-yourself";
 import { CircuitDiagram } from "./diagrams";
-import { Eq } from "./Eq";
-import { V } from "./Value";
-import { BudgetTable } from "./BudgetTable";
+import { Eq } from "./equation";
+import { ExampleValue } from "./example-value";
+import { BudgetTable } from "./budget-table";
 import { LazyCalculator, type CalculatorName } from "./lazy-calculators";
 
 function H2(props: ComponentPropsWithoutRef<"h2">) {
@@ -29,7 +29,7 @@ export const lessonComponents: MDXComponents = {
   CheckYourself,
   CircuitDiagram,
   Eq,
-  V,
+  V: ExampleValue,
   BurdenExplorer: calculator("BurdenExplorer"),
   ShuntPicker: calculator("ShuntPicker"),
   RangePicker: calculator("RangePicker"),

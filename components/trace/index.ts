@@ -1,1 +1,1 @@
-export { TracePlot, type PlottedTrace } from "./TracePlot";
+export { TracePlot, type PlottedTrace } from "./trace-plot";

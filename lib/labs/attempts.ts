@@ -14,7 +14,7 @@ import { drawVariant, type Params } from "@/lib/grader";
 import { attemptRecord, checkReadings, gradeForLab, parseMeasured, toLab, withIds, type Lab, type StoredTrace } from "./grading";
 import { closeOf, expectedVisible, isClosed, isOpen } from "./policy";
 import { reviewIsOpen } from "./overrides";
-import { presentResults, type StoredResult } from "./present";
+import { presentResults, type StoredResult } from "./visible-results";
 
 export { gradeForLab, parseMeasured, policyFor, toLab, withIds, type Lab } from "./grading";
 import type { LabData } from "@/lib/validation/labs";

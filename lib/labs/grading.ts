@@ -17,7 +17,7 @@ import {
   type VariantSpec,
 } from "@/lib/grader";
 import { applyPenalty, latePenaltyPercent, lateDays, type LabRules } from "./policy";
-import type { StoredResult } from "./present";
+import type { StoredResult } from "./visible-results";
 
 export interface Lab extends LabRules {
   id: string;

@@ -3,7 +3,7 @@ import "server-only";
 import { formatQuantity, templates, type Params } from "@/lib/grader";
 import type { Lab } from "./grading";
 import { variantFor } from "./attempts";
-import { labPublic } from "./view";
+import { labPublic } from "./lab-json";
 
 export function describeParams(lab: Lab, params: Params) {
   const t = templates[lab.templateKey];

@@ -1,7 +1,7 @@
 // Staff points over the grader's. The grader's own points stay in the stored result (`graderPoints`), so a
 // recomputation can apply the same overrides again. Pure: no framework or database imports.
 import type { StaffOverride } from "@/db/types";
-import type { StoredResult } from "./present";
+import type { StoredResult } from "./visible-results";
 
 export type { StaffOverride };
 export type Overrides = Record<string, StaffOverride>;

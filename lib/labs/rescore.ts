@@ -11,7 +11,7 @@ import type { Params } from "@/lib/grader";
 import { gradeForLab, type Lab, type StoredTrace } from "./grading";
 import { applyOverrides, type Overrides } from "./overrides";
 import { applyPenalty } from "./policy";
-import type { StoredResult } from "./present";
+import type { StoredResult } from "./visible-results";
 
 type Trx = Transaction<Database>;
 type Stored = StoredResult & { params?: Params };

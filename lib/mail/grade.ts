@@ -5,7 +5,7 @@ import type { Transaction } from "kysely";
 import type { Database } from "@/db/types";
 import { gradeMailContext, type GradeMailContext } from "@/db/queries/grade-mail";
 import type { TemplateKey } from "@/lib/grader";
-import { presentResults, type StoredResult } from "@/lib/labs/present";
+import { presentResults, type StoredResult } from "@/lib/labs/visible-results";
 import { queueMail } from "./queue";
 import type { GradeMailData, GradeMailKind } from "./templates/grade-mail";
 

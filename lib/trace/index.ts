@@ -1,4 +1,4 @@
-// Public entry of the logged-current-trace analysis (issue 5, item 6). Framework-free: papaparse and Node
+// Public entry of the logged-current-trace analysis. Framework-free: papaparse and Node
 // streams only.
 import { analyzeSamples, TraceError, type TraceStats } from "./analyze";
 import { readTrace, type TraceInput } from "./parse";

@@ -9,7 +9,7 @@ import { getLesson, lessonContents, neighbours } from "@/lib/lessons";
 import { currentUser } from "@/lib/auth/access";
 import { lessonAccess } from "@/lib/courses/lesson-plan";
 import { lessonComponents } from "@/components/lesson/mdx";
-import { CourseLessonNav } from "@/components/lesson/CourseLessonNav";
+import { CourseLessonNav } from "@/components/lesson/course-lesson-nav";
 import { AppHeader } from "@/components/shell/app-header";
 
 type Props = { params: Promise<{ slug: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> };

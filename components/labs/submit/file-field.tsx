@@ -4,7 +4,7 @@
 import { useEffect, useId, useRef, useState } from "react";
 import { formatQuantity } from "@/lib/grader/format";
 import { toApiError } from "@/lib/http/client";
-import { uploadErrorMessage } from "./read";
+import { uploadErrorMessage } from "./form-helpers";
 import { sendUpload, type UploadedFile } from "./upload";
 
 type State =

@@ -9,7 +9,7 @@ import type { z } from "zod";
 import { formatQuantity } from "@/lib/grader/format";
 import { parseQuantity } from "@/lib/grader/units";
 import { attemptInputSchema } from "@/lib/validation/attempts";
-import type { Echo, FormMeasured, FormQuestion } from "./read";
+import type { Echo, FormMeasured, FormQuestion } from "./form-helpers";
 
 const UNIT_SYMBOL: Record<string, string> = { ohm: "Ω" };
 

@@ -16,7 +16,7 @@ import { useHydrated } from "@/components/ui/use-hydrated";
 import { api, isApiError } from "@/lib/http/client";
 import type { AttemptInput, attemptInputSchema } from "@/lib/validation/attempts";
 import { FileField } from "./file-field";
-import { mapServerFields, measuredPayload, newIdempotencyKey, submitErrorMessage, toPayload, type FormMeasured, type FormQuestion } from "./read";
+import { mapServerFields, measuredPayload, newIdempotencyKey, submitErrorMessage, toPayload, type FormMeasured, type FormQuestion } from "./form-helpers";
 import type { SubmissionValues as FormValues } from "./read-quantities";
 import { useQuantityReader, type QuantityReader } from "./use-quantity-reader";
 import type { UploadedFile } from "./upload";

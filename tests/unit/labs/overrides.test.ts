@@ -2,7 +2,7 @@
 // removed again when the override goes. Check values are sums of the points written here (common practice, no source).
 import { describe, expect, it } from "vitest";
 import { applyOverrides } from "@/lib/labs/overrides";
-import type { StoredResult } from "@/lib/labs/present";
+import type { StoredResult } from "@/lib/labs/visible-results";
 
 const result = {
   template: "shunt-burden",

@@ -1,6 +1,6 @@
 // The submission form's pure helpers: the "read as" echo, payloads, server field errors, messages.
 import { describe, expect, it } from "vitest";
-import { echoText, mapServerFields, measuredPayload, newIdempotencyKey, submitErrorMessage, toPayload, uploadErrorMessage, type FormQuestion } from "@/components/labs/submit/read";
+import { echoText, mapServerFields, measuredPayload, newIdempotencyKey, submitErrorMessage, toPayload, uploadErrorMessage, type FormQuestion } from "@/components/labs/submit/form-helpers";
 import { echoReading, measuredProblems, readingProblems, submissionResolver } from "@/components/labs/submit/read-quantities";
 import { utcDate } from "@/lib/dates";
 import { attemptsLeftText, lateRuleText } from "@/lib/labs/wording";

@@ -102,7 +102,7 @@ describe("no KaTeX JavaScript for the browser", () => {
     .filter((f) => /\.tsx?$/.test(f) && /^\s*["']use client["']/.test(fs.readFileSync(f, "utf8")));
 
   it("finds the client components", () => {
-    expect(clientFiles.map((f) => path.basename(f)).sort()).toEqual(expect.arrayContaining(["CheckQuestion.tsx", "Plot.tsx", "calculators.tsx", "fields.tsx"]));
+    expect(clientFiles.map((f) => path.basename(f)).sort()).toEqual(expect.arrayContaining(["calculator-plot.tsx", "check-question.tsx", "calculators.tsx", "fields.tsx"]));
   });
 
   for (const f of clientFiles) {

@@ -9,7 +9,7 @@ import { attemptsFor, HELD_NOTICE, labAccess, type Lab } from "@/lib/labs/attemp
 import { DataTable, type Column } from "@/components/ui/table";
 import { HoldGrades } from "@/components/mail/hold-grades";
 import { Handout } from "@/components/labs/handout";
-import type { FormMeasured, FormQuestion } from "@/components/labs/submit/read";
+import type { FormMeasured, FormQuestion } from "@/components/labs/submit/form-helpers";
 import { utcDate } from "@/lib/dates";
 import { attemptsLeftText, lateRuleText } from "@/lib/labs/wording";
 import { SubmissionForm } from "@/components/labs/submit/submission-form";

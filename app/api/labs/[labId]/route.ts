@@ -6,7 +6,7 @@ import { isStaff } from "@/lib/auth/access";
 import { editLab } from "@/lib/labs/edit";
 import { latestRegrade } from "@/lib/labs/regrade";
 import { labAccess, toLab } from "@/lib/labs/attempts";
-import { labFull, labPublic } from "@/lib/labs/view";
+import { labFull, labPublic } from "@/lib/labs/lab-json";
 
 type Params = { labId: string };
 

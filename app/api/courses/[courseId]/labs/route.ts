@@ -1,7 +1,7 @@
 import { json, jsonBody, route } from "@/lib/http/route";
 import { requireCourseRole } from "@/lib/auth/access";
 import { createLab, labsForCourse } from "@/lib/labs/attempts";
-import { labSummary } from "@/lib/labs/view";
+import { labSummary } from "@/lib/labs/lab-json";
 import { labInputSchema } from "@/lib/validation/labs";
 
 type Params = { courseId: string };

@@ -1,7 +1,7 @@
 // <CheckYourself lesson="burden-voltage" /> lists the lesson's questions (lib/lessons/questions.ts) with
 // their prompts filled in on the server; each is answered and checked in the page.
 import { questionsFor, renderPrompt } from "@/lib/lessons/questions";
-import { CheckQuestion } from "./CheckQuestion";
+import { CheckQuestion } from "./check-question";
 
 export function CheckYourself({ lesson }: { lesson: string }) {
   const qs = questionsFor(lesson);

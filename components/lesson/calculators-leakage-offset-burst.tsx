@@ -4,7 +4,7 @@
 import { useMemo } from "react";
 import { formatAuto } from "@/lib/lessons/format";
 import { CalculatorCard, checked, Fields, invalid, num, Output, pct, useQuantityFields } from "./fields";
-import { Plot } from "./Plot";
+import { Plot } from "./calculator-plot";
 
 // ---------------------------------------------------------------- leakage and guarding
 const leakageDefs = {
