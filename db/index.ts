@@ -3,7 +3,7 @@ import { Kysely, PostgresDialect } from "kysely";
 import { newPool, withNamedStatements } from "./pool";
 import type { Database } from "./types";
 
-export type { Database } from "./types";
+export type { Database, Db } from "./types";
 
 const globalForDb = globalThis as unknown as { shuntwiseDb?: Kysely<Database> };
 

@@ -1,6 +1,6 @@
 // The typed shape of the database. Table interfaces are used only inside `Database`; code elsewhere uses
 // the Selectable/Insertable aliases. Nullable columns are `T | null`, database defaults `Generated<T>`.
-import type { ColumnType, Generated, Insertable, Selectable, Updateable } from "kysely";
+import type { ColumnType, Generated, Insertable, Kysely, Selectable, Transaction, Updateable } from "kysely";
 
 type Timestamp = ColumnType<Date, Date | string | undefined, Date | string>;
 
@@ -249,3 +249,6 @@ export type Course = Selectable<CoursesTable>;
 export type NewCourse = Insertable<CoursesTable>;
 export type Membership = Selectable<MembershipsTable>;
 export type NewMembership = Insertable<MembershipsTable>;
+
+/** What every query function takes: the app's database or a transaction on it. */
+export type Db = Kysely<Database> | Transaction<Database>;

@@ -1,8 +1,6 @@
 // Graded attempts. Readings, measured values and the grade are stored together in one row.
-import { sql, type Kysely, type Transaction } from "kysely";
-import type { Database, StaffOverride } from "../types";
-
-type Db = Kysely<Database> | Transaction<Database>;
+import { sql, type Transaction } from "kysely";
+import type { Database, Db, StaffOverride } from "../types";
 
 const ATTEMPT_COLUMNS = [
   "a.id",

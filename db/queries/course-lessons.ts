@@ -1,8 +1,6 @@
 // A course's lesson plan: which lessons it shows, in which order, from when.
-import type { Kysely, Transaction } from "kysely";
-import type { Database } from "../types";
-
-type Db = Kysely<Database> | Transaction<Database>;
+import type { Kysely } from "kysely";
+import type { Database, Db } from "../types";
 
 export async function listCourseLessons(db: Db, courseId: string) {
   return db

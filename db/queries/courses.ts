@@ -1,6 +1,6 @@
 // Courses and memberships (who is in which course, with which role and section).
 import { type Kysely, sql, type Transaction } from "kysely";
-import type { Database, Role } from "../types";
+import type { Database, Db as DbOrTrx, Role } from "../types";
 
 type Db = Kysely<Database>;
 
@@ -104,15 +104,13 @@ export async function upsertMembership(
     .execute();
 }
 
-type Conn = Kysely<Database> | Transaction<Database>;
-
 /** Locks the course row so that roster changes of one course run one at a time (the last-instructor rule). */
 export async function lockCourse(trx: Transaction<Database>, courseId: string): Promise<boolean> {
   const row = await trx.selectFrom("courses").select("id").where("id", "=", courseId).forUpdate().executeTakeFirst();
   return !!row;
 }
 
-export async function countInstructors(db: Conn, courseId: string): Promise<number> {
+export async function countInstructors(db: DbOrTrx, courseId: string): Promise<number> {
   const row = await db
     .selectFrom("memberships")
     .select((eb) => eb.fn.countAll<string>().as("n"))
@@ -122,7 +120,7 @@ export async function countInstructors(db: Conn, courseId: string): Promise<numb
   return Number(row.n);
 }
 
-export async function updateMembership(db: Conn, courseId: string, userId: string, patch: { role?: Role; section?: string | null }): Promise<void> {
+export async function updateMembership(db: DbOrTrx, courseId: string, userId: string, patch: { role?: Role; section?: string | null }): Promise<void> {
   await db
     .updateTable("memberships")
     .set({ ...(patch.role !== undefined ? { role: patch.role } : {}), ...(patch.section !== undefined ? { section: patch.section } : {}) })
@@ -132,12 +130,12 @@ export async function updateMembership(db: Conn, courseId: string, userId: strin
 }
 
 /** Removes the membership only; the person's attempts, variants and uploads stay for when they return. */
-export async function deleteMembership(db: Conn, courseId: string, userId: string): Promise<void> {
+export async function deleteMembership(db: DbOrTrx, courseId: string, userId: string): Promise<void> {
   await db.deleteFrom("memberships").where("course_id", "=", courseId).where("user_id", "=", userId).execute();
 }
 
 /** Adds a membership unless the person is already a member; true when it was added. */
-export async function insertMembershipIfAbsent(db: Conn, m: { courseId: string; userId: string; role: Role; section: string | null }): Promise<boolean> {
+export async function insertMembershipIfAbsent(db: DbOrTrx, m: { courseId: string; userId: string; role: Role; section: string | null }): Promise<boolean> {
   const r = await db
     .insertInto("memberships")
     .values({ course_id: m.courseId, user_id: m.userId, role: m.role, section: m.section })
@@ -147,7 +145,7 @@ export async function insertMembershipIfAbsent(db: Conn, m: { courseId: string; 
 }
 
 /** Which of these (lower-case) e-mail addresses have accounts, and which of those are members of the course. */
-export async function accountsByEmail(db: Conn, courseId: string, emails: string[]) {
+export async function accountsByEmail(db: DbOrTrx, courseId: string, emails: string[]) {
   if (emails.length === 0) return [];
   return db
     .selectFrom("users as u")
@@ -169,7 +167,7 @@ export interface CourseWrite {
   copiedFrom?: string | null;
 }
 
-export async function insertCourse(db: Conn, c: CourseWrite): Promise<string> {
+export async function insertCourse(db: DbOrTrx, c: CourseWrite): Promise<string> {
   const row = await db
     .insertInto("courses")
     .values({
@@ -188,12 +186,12 @@ export async function insertCourse(db: Conn, c: CourseWrite): Promise<string> {
   return row.id;
 }
 
-export async function courseCodeTaken(db: Conn, code: string): Promise<boolean> {
+export async function courseCodeTaken(db: DbOrTrx, code: string): Promise<boolean> {
   return !!(await db.selectFrom("courses").select("id").where(sql`lower(code)`, "=", code.toLowerCase()).executeTakeFirst());
 }
 
 export async function updateCourseSettings(
-  db: Conn,
+  db: DbOrTrx,
   courseId: string,
   s: { title?: string; term?: string; joiningOpen?: boolean; defaultLatePenaltyPercentPerDay?: number; defaultLateFloorPercent?: number },
 ): Promise<void> {
@@ -210,12 +208,12 @@ export async function updateCourseSettings(
     .execute();
 }
 
-export async function setJoinCode(db: Conn, courseId: string, joinCode: string): Promise<void> {
+export async function setJoinCode(db: DbOrTrx, courseId: string, joinCode: string): Promise<void> {
   await db.updateTable("courses").set({ join_code: joinCode }).where("id", "=", courseId).execute();
 }
 
 /** Every course with its member and lab counts, for the site admin. */
-export async function listAllCourses(db: Conn) {
+export async function listAllCourses(db: DbOrTrx) {
   const rows = await db
     .selectFrom("courses as c")
     .select((eb) => [
@@ -243,7 +241,7 @@ export async function listAllCourses(db: Conn) {
 }
 
 /** The course's students with their sections. */
-export async function listStudents(db: Conn, courseId: string) {
+export async function listStudents(db: DbOrTrx, courseId: string) {
   return db
     .selectFrom("memberships")
     .select(["user_id as userId", "section"])

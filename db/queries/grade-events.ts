@@ -1,8 +1,5 @@
 // The append-only grade history. Rows are only ever inserted (PostgreSQL refuses UPDATE and DELETE).
-import type { Kysely, Transaction } from "kysely";
-import type { Database, GradeEventKind } from "../types";
-
-type Db = Kysely<Database> | Transaction<Database>;
+import type { Db, GradeEventKind } from "../types";
 
 export interface GradeEventWrite {
   attemptId: string;

@@ -1,9 +1,6 @@
 // What a grade message needs, read in the transaction that stores the grade: the attempt, its lab,
 // course and student, the lab's hold and the student's mail preference.
-import type { Kysely, Transaction } from "kysely";
-import type { Database } from "../types";
-
-type Db = Kysely<Database> | Transaction<Database>;
+import type { Db } from "../types";
 
 export async function gradeMailContext(db: Db, attemptId: string) {
   return db

@@ -1,10 +1,8 @@
 // The gradebook: every student of a course against every published lab, computed in PostgreSQL.
 // One statement builds the whole JSON document the API answers, so the route neither walks rows nor
 // issues a query per student or per cell; the statistics are two more statements.
-import { sql, type Kysely, type Transaction } from "kysely";
-import type { Database } from "../types";
-
-type Db = Kysely<Database> | Transaction<Database>;
+import { sql } from "kysely";
+import type { Db } from "../types";
 
 export interface GradebookLab {
   id: string;

@@ -5,9 +5,7 @@
 // to this module's queries only: the rest of the project's queries are written against the snake_case
 // tables of db/types.ts, and a global plugin would rename every one of them.
 import { CamelCasePlugin, sql, type Insertable, type Kysely, type Selectable, type Transaction, type Updateable } from "kysely";
-import type { CoursesTable, Database, LabStatus, LabsTable, LabVariantsTable, MembershipsTable, Role } from "../types";
-
-type Db = Kysely<Database> | Transaction<Database>;
+import type { CoursesTable, Database, Db, LabsTable, LabStatus, LabVariantsTable, MembershipsTable, Role } from "../types";
 
 type CamelName<S extends string> = S extends `${infer Head}_${infer Tail}` ? `${Head}${Capitalize<CamelName<Tail>>}` : S;
 type Camel<T> = { [K in keyof T as CamelName<K & string>]: T[K] };

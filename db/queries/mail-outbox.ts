@@ -1,9 +1,7 @@
 // The mail outbox: one row per mail event key. The row is written in the same transaction as the event
 // (a grade, a reset request), and the worker records the send on it before its job completes.
-import { sql, type Kysely, type Transaction } from "kysely";
-import type { Database, MailStatus } from "../types";
-
-type Db = Kysely<Database> | Transaction<Database>;
+import { sql, type Transaction } from "kysely";
+import type { Database, Db, MailStatus } from "../types";
 
 export interface OutboxInsert {
   key: string;

@@ -1,9 +1,6 @@
 // One-time password tokens (reset, or a first password). A token is used by one atomic update, so two
 // uses of one link cannot both succeed.
-import { type Kysely, type Transaction } from "kysely";
-import type { Database, PasswordTokenPurpose } from "../types";
-
-type Db = Kysely<Database> | Transaction<Database>;
+import type { Db, PasswordTokenPurpose } from "../types";
 
 export async function insertPasswordToken(db: Db, userId: string, purpose: PasswordTokenPurpose, expiresAt: Date): Promise<string> {
   const row = await db.insertInto("password_tokens").values({ user_id: userId, purpose, expires_at: expiresAt }).returning("id").executeTakeFirstOrThrow();

@@ -1,9 +1,7 @@
 // The review queue: attempts whose student asked for a review, in one course. "Open" means asked and not
 // answered since (a student may ask again after an answer).
-import { sql, type Kysely, type Transaction } from "kysely";
-import type { Database } from "../types";
-
-type Db = Kysely<Database> | Transaction<Database>;
+import { sql } from "kysely";
+import type { Db } from "../types";
 
 export interface ReviewFilters {
   status: "open" | "answered" | "all";

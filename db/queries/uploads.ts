@@ -1,8 +1,6 @@
 // Uploaded files (scope captures and logged traces). The bytes live in object storage; this is the record.
 import { sql, type Kysely, type Transaction } from "kysely";
-import type { Database, UploadKind } from "../types";
-
-type Db = Kysely<Database> | Transaction<Database>;
+import type { Database, Db, UploadKind } from "../types";
 
 const UPLOAD_COLUMNS = [
   "id",

@@ -2,8 +2,8 @@
 // submission. Callers pass plain data; every function checks who is asking.
 import "server-only";
 import { db } from "@/db";
-import type { Database, Role } from "@/db/types";
-import type { Kysely, Transaction } from "kysely";
+import type { Database, Db, Role } from "@/db/types";
+import type { Transaction } from "kysely";
 import { countAttempts, findAttempt, insertGradedAttempt, listAttempts, lockStudentLab, submissionState, type AttemptRow } from "@/db/queries/attempts";
 import { findLabForMember, findVariant, insertLab, listLabs, storeVariant } from "@/db/queries/labs";
 import { findUploads, lockUploadsForAttempt } from "@/db/queries/uploads";
@@ -46,13 +46,13 @@ export async function createLab(access: CourseAccess, data: LabData, status: "dr
 }
 
 /** The caller's own circuit values: drawn once with the seed `${labId}:${userId}` and stored. */
-export async function variantFor(lab: Lab, userId: string, conn: Kysely<Database> | Transaction<Database> = db): Promise<Params> {
+export async function variantFor(lab: Lab, userId: string, conn: Db = db): Promise<Params> {
   const stored = await findVariant(conn, lab.id, userId);
   return stored ? (stored.params as Params) : drawVariantFor(lab, userId, conn);
 }
 
 /** Draws the caller's circuit values and stores them, unless another request stored them first (then those count). */
-async function drawVariantFor(lab: Lab, userId: string, conn: Kysely<Database> | Transaction<Database>): Promise<Params> {
+async function drawVariantFor(lab: Lab, userId: string, conn: Db): Promise<Params> {
   const seed = `${lab.id}:${userId}`;
   return (await storeVariant(conn, lab.id, userId, seed, drawVariant(lab.spec, seed))).params as Params;
 }

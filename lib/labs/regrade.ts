@@ -1,9 +1,8 @@
 // Recomputes every attempt of a lab after a published lab changed. Runs as a job; the lab_regrades row
 // records its progress for the lab page's progress bar. Late penalties already applied and staff points
 // are kept; each attempt's recomputation is a row of its grade history.
-import type { Kysely, Transaction } from "kysely";
 import { db } from "@/db";
-import type { Database } from "@/db/types";
+import type { Db } from "@/db/types";
 import { listAttempts } from "@/db/queries/attempts";
 import { findLab } from "@/db/queries/labs";
 import { findUploads } from "@/db/queries/uploads";
@@ -11,7 +10,7 @@ import { queueGradeMail } from "@/lib/mail/grade";
 import { toLab, type StoredTrace } from "./grading";
 import { recomputeAttempt } from "./rescore";
 
-export async function startRegrade(labId: string, labVersion: number, total: number, trx: Kysely<Database> | Transaction<Database> = db): Promise<{ id: string; total: number }> {
+export async function startRegrade(labId: string, labVersion: number, total: number, trx: Db = db): Promise<{ id: string; total: number }> {
   const row = await trx
     .insertInto("lab_regrades")
     .values({ lab_id: labId, lab_version: labVersion, total })

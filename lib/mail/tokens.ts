@@ -5,7 +5,7 @@
 // the database is asked; the row makes it single-use and carries the expiry.
 import crypto from "node:crypto";
 import type { Kysely, Transaction } from "kysely";
-import type { Database, PasswordTokenPurpose } from "@/db/types";
+import type { Database, Db, PasswordTokenPurpose } from "@/db/types";
 import { findUsableToken, insertPasswordToken, retireTokens, spendToken } from "@/db/queries/password-tokens";
 import { queueMail } from "./queue";
 
@@ -32,7 +32,7 @@ export function verifyToken(token: string): string | null {
   return given.length === expected.length && crypto.timingSafeEqual(given, expected) ? m[1] : null;
 }
 
-export async function issuePasswordToken(trx: Kysely<Database> | Transaction<Database>, userId: string, purpose: PasswordTokenPurpose, now = new Date()) {
+export async function issuePasswordToken(trx: Db, userId: string, purpose: PasswordTokenPurpose, now = new Date()) {
   const id = await insertPasswordToken(trx, userId, purpose, new Date(now.getTime() + TOKEN_LIFETIME_MINUTES[purpose] * 60_000));
   return { id, token: `${id}.${sign(id)}` };
 }
