@@ -3,11 +3,11 @@
 // client-side data fetching. Without a course in the address, or one that does not grant the lesson,
 // nothing is shown.
 import Link from "next/link";
+import { isStaff } from "@/lib/auth/roles";
 import { coursePlan, lessonsForStudents, type LessonCourse } from "@/lib/courses/lesson-plan";
 
 export async function CourseLessonNav({ slug, course }: { slug: string; course: LessonCourse }) {
-  const staff = course.role === "ta" || course.role === "instructor";
-  const items = (staff ? await coursePlan(course.id) : await lessonsForStudents(course.id)).filter((l) => l.open);
+  const items = (isStaff(course.role) ? await coursePlan(course.id) : await lessonsForStudents(course.id)).filter((l) => l.open);
   const i = items.findIndex((l) => l.slug === slug);
   if (i < 0) return null;
   const prev = items[i - 1];

@@ -69,7 +69,7 @@ export function assertRole(access: CourseAccess, allowed: Role[]): void {
   }
 }
 
-export const isStaff = (role: Role) => role === "ta" || role === "instructor";
+export { isStaff } from "./roles";
 
 /**
  * For pages: turns an AppError into what a page does with it: sign-in redirect, not-found page, or a

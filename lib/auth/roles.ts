@@ -5,3 +5,6 @@ export const roleLabel: Record<Role, string> = {
   ta: "Teaching assistant",
   instructor: "Instructor",
 };
+
+/** The course staff: teaching assistants and instructors. */
+export const isStaff = (role: Role) => role === "ta" || role === "instructor";

@@ -3,6 +3,8 @@ import "server-only";
 import { db } from "@/db";
 import { listCourseLessons, replaceCourseLessons } from "@/db/queries/course-lessons";
 import { listCoursesForUser } from "@/db/queries/courses";
+import type { Role } from "@/db/types";
+import { isStaff } from "@/lib/auth/roles";
 import { AppError } from "@/lib/errors";
 import { listLessons, type LessonSummary } from "@/lib/lessons";
 import type { z } from "zod";
@@ -67,14 +69,14 @@ export interface LessonCourse {
   id: string;
   code: string;
   title: string;
-  role: string;
+  role: Role;
 }
 
 /** Every lesson `user` may read now (the rule of `lessonAccess`, for all lessons at once). */
 export async function readableLessonSlugs(user: { id: string; isAdmin: boolean }, now = new Date()): Promise<Set<string>> {
   const all = listLessons().map((l) => l.slug);
   const memberships = await listCoursesForUser(db, user.id);
-  if (user.isAdmin || memberships.some((m) => m.role === "ta" || m.role === "instructor")) return new Set(all);
+  if (user.isAdmin || memberships.some((m) => isStaff(m.role))) return new Set(all);
   const out = new Set<string>();
   for (const m of memberships) for (const l of await coursePlan(m.id, now)) if (l.open) out.add(l.slug);
   return out;
@@ -89,7 +91,7 @@ export async function lessonAccess(user: { id: string; isAdmin: boolean }, slug:
   const memberships = await listCoursesForUser(db, user.id);
   const courses: LessonCourse[] = [];
   for (const m of memberships) {
-    const staff = m.role === "ta" || m.role === "instructor";
+    const staff = isStaff(m.role);
     if (staff || (await coursePlan(m.id, now)).some((l) => l.slug === slug && l.open)) courses.push({ id: m.id, code: m.code, title: m.title, role: m.role });
   }
   return { readable: user.isAdmin || courses.length > 0, courses };

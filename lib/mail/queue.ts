@@ -5,7 +5,7 @@ import { randomUUID } from "node:crypto";
 import type { Transaction } from "kysely";
 import type { Database } from "@/db/types";
 import { findOutboxByKey, insertOutbox } from "@/db/queries/mail-outbox";
-import { boss, bossDb, QUEUES } from "@/lib/jobs/queue";
+import { enqueue, QUEUES } from "@/lib/jobs/queue";
 import { retryOptions } from "./config";
 
 export interface MailRequest {
@@ -22,11 +22,10 @@ export interface MailJob {
   outboxId: string;
 }
 
-/** Sends the outbox row's job, in `trx` when given, with the job id `jobId` when given. */
-export async function sendMailJob(outboxId: string, trx?: Transaction<Database>, jobId?: string): Promise<string | null> {
-  const b = await boss();
+/** Queues the outbox row's job on the mail queue, in `trx` when given, with the job id `jobId` when given. */
+export async function sendMailJob(outboxId: string, trx?: Transaction<Database>, jobId?: string): Promise<string> {
   const data: MailJob = { outboxId };
-  return b.send(QUEUES.mail, data, { ...retryOptions(), ...(trx ? { db: bossDb(trx) } : {}), ...(jobId ? { id: jobId } : {}) });
+  return enqueue(QUEUES.mail, data, { ...retryOptions(), trx, ...(jobId ? { id: jobId } : {}) });
 }
 
 /**
