@@ -1,7 +1,7 @@
 // Labelled inputs for every form in the app, so that all of them mark errors the same way: the input gets
 // aria-invalid, and one live element under it (named by aria-describedby) says "✗ what is wrong" or, for a
 // value typed with its unit, "✓ Read as …". FormMessage is the banner above a form.
-import type { InputHTMLAttributes, ReactNode } from "react";
+import type { InputHTMLAttributes, ReactNode, SelectHTMLAttributes } from "react";
 import { forwardRef, useId } from "react";
 
 /** What a typed value reads as right now (the caller parses it the way the grader will). */
@@ -44,8 +44,8 @@ export type ControlProps = { id: string; "aria-invalid": true | undefined; "aria
 
 /**
  * One field of any kind: the label, the control (drawn by `children` with the ids it must carry), the hint
- * and the one message line. Field and QuantityInput below are this with an <input>; forms with a select or
- * a textarea use it directly.
+ * and the one message line. Field and QuantityInput below are this with an <input>, SelectField with a
+ * <select>; forms with a textarea use it directly.
  */
 export function FieldFrame({
   id,
@@ -84,6 +84,36 @@ export const Field = forwardRef<HTMLInputElement, Props>(function Field({ label,
   return (
     <FieldFrame id={id ?? `field-${name}`} label={label} hint={hint} error={error}>
       {(control) => <input ref={ref} name={name} className="field-input" {...control} {...rest} />}
+    </FieldFrame>
+  );
+});
+
+type SelectProps = Omit<SelectHTMLAttributes<HTMLSelectElement>, "id" | "className"> & {
+  id: string;
+  label: ReactNode;
+  hint?: ReactNode;
+  error?: string;
+  options: { value: string; label: string }[];
+  /** a first, empty choice ("Choose…") */
+  placeholder?: string;
+  className?: string;
+  selectClassName?: string;
+};
+
+/** A choice from a list, with the label, hint and message line of every other field. */
+export const SelectField = forwardRef<HTMLSelectElement, SelectProps>(function SelectField({ id, label, hint, error, options, placeholder, className, selectClassName, ...rest }, ref) {
+  return (
+    <FieldFrame id={id} label={label} hint={hint} error={error} className={className}>
+      {(control) => (
+        <select ref={ref} className={`field-input ${selectClassName ?? ""}`.trim()} {...control} {...rest}>
+          {placeholder !== undefined ? <option value="">{placeholder}</option> : null}
+          {options.map((o) => (
+            <option key={o.value} value={o.value}>
+              {o.label}
+            </option>
+          ))}
+        </select>
+      )}
     </FieldFrame>
   );
 });

@@ -4,7 +4,7 @@
 import type { ReactNode } from "react";
 import { get, useFormContext, useWatch } from "react-hook-form";
 import type { ParameterSpec } from "@/lib/grader";
-import { FieldHint, FieldMessage, fieldIds, QuantityInput as SharedQuantityInput, type Reading } from "@/components/ui/field";
+import { FieldHint, FieldMessage, fieldIds, QuantityInput as SharedQuantityInput, SelectField, type Reading } from "@/components/ui/field";
 import { readAsText, readValue, type BuilderForm } from "./form-model";
 
 export function idFor(name: string): string {
@@ -68,30 +68,20 @@ export function SelectInput({ name, label, options, hint, className, onChangeVal
   const id = idFor(name);
   const reg = register(name as never);
   return (
-    <div className={className ?? "mb-4"}>
-      <label htmlFor={id} className="field-label">
-        {label}
-      </label>
-      <select
-        id={id}
-        className="field-input"
-        aria-invalid={error ? true : undefined}
-        aria-describedby={fieldIds(id, hint).describedBy}
-        disabled={disabled}
-        {...reg}
-        onChange={(e) => {
-          void reg.onChange(e);
-          onChangeValue?.(e.target.value);
-        }}
-      >
-        {options.map((o) => (
-          <option key={o.value} value={o.value}>
-            {o.label}
-          </option>
-        ))}
-      </select>
-      <Described id={id} hint={hint} error={error} />
-    </div>
+    <SelectField
+      id={id}
+      label={label}
+      hint={hint}
+      error={error}
+      className={className}
+      options={options}
+      disabled={disabled}
+      {...reg}
+      onChange={(e) => {
+        void reg.onChange(e);
+        onChangeValue?.(e.target.value);
+      }}
+    />
   );
 }
 

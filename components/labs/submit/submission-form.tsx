@@ -11,7 +11,7 @@ import { useRouter } from "next/navigation";
 import { useCallback, useRef, useState, type FormEvent } from "react";
 import { useForm, useWatch, type Control, type Resolver, type UseFormRegisterReturn } from "react-hook-form";
 import type { z } from "zod";
-import { FieldMessage, FormMessage, QuantityInput } from "@/components/ui/field";
+import { FormMessage, QuantityInput, SelectField } from "@/components/ui/field";
 import { useHydrated } from "@/components/ui/use-hydrated";
 import { api, isApiError } from "@/lib/http/client";
 import type { AttemptInput, attemptInputSchema } from "@/lib/validation/attempts";
@@ -174,32 +174,18 @@ export function SubmissionForm({ labId, questions, components }: { labId: string
           const label = `${i + 1}. ${q.label}`;
           const pts = `${q.points} point${q.points === 1 ? "" : "s"}`;
           if (q.answerKind === "category") {
-            const error = readingError(q.id);
-            const selId = `reading-${q.id}`;
             return (
-              <div className="mb-4" key={q.id}>
-                <label htmlFor={selId} className="field-label">
-                  {label}
-                </label>
-                <select
-                  id={selId}
-                  className="field-input max-w-xs"
-                  aria-invalid={error ? true : undefined}
-                  aria-describedby={`${selId}-hint ${selId}-error`}
-                  {...register(`readings.${q.id}`)}
-                >
-                  <option value="">Choose…</option>
-                  {(q.choices ?? []).map((c) => (
-                    <option key={c} value={c}>
-                      {choiceLabel(c)}
-                    </option>
-                  ))}
-                </select>
-                <p id={`${selId}-hint`} className="mt-1 text-xs text-ink-soft">
-                  Pick one. {pts}.
-                </p>
-                <FieldMessage id={selId} error={error} />
-              </div>
+              <SelectField
+                key={q.id}
+                id={`reading-${q.id}`}
+                label={label}
+                hint={`Pick one. ${pts}.`}
+                error={readingError(q.id)}
+                placeholder="Choose…"
+                options={(q.choices ?? []).map((c) => ({ value: c, label: choiceLabel(c) }))}
+                selectClassName="max-w-xs"
+                {...register(`readings.${q.id}`)}
+              />
             );
           }
           return (
