@@ -1,13 +1,22 @@
 "use client";
-// The one uPlot (canvas) wrapper: the lessons' calculators and the logged-trace plot both draw through
-// PlotCanvas. The chart is created once per shape (series, labels, scale) and then only handed new numbers;
+// The one uPlot (canvas) wrapper: the lessons' calculators, the logged-trace plot and the gradebook's
+// score histogram all draw through PlotCanvas. The chart is created once per shape (series, labels, scale) and then only handed new numbers;
 // it follows its container's width. The canvas is hidden from assistive technology: every caller writes
 // what it shows in text beside it (a caption, a summary list).
 import { useEffect, useRef } from "react";
 import type uPlotType from "uplot";
 import "uplot/dist/uPlot.min.css";
 
-export type PlotSeries = { label: string; values: (number | null)[]; color: string; width?: number; dash?: number[]; stepped?: boolean };
+export type PlotSeries = {
+  label: string;
+  values: (number | null)[];
+  color: string;
+  width?: number;
+  dash?: number[];
+  stepped?: boolean;
+  /** drawn as bars filled with this colour (a histogram) */
+  barFill?: string;
+};
 
 export interface PlotCanvasProps {
   x: number[];
@@ -18,12 +27,18 @@ export interface PlotCanvasProps {
   height?: number;
   /** let the reader drag across the x axis to zoom */
   zoomX?: boolean;
+  /** a fixed x range instead of the data's */
+  xRange?: [number, number];
+  /** the y axis starts at zero (and shows at least 0 to 1) */
+  yFromZero?: boolean;
+  /** the legend and the cursor's readout under the chart */
+  legend?: boolean;
 }
 
-export function PlotCanvas({ x, series, xLabel, yLabel, yLog = false, height = 240, zoomX = false }: PlotCanvasProps) {
+export function PlotCanvas({ x, series, xLabel, yLabel, yLog = false, height = 240, zoomX = false, xRange, yFromZero = false, legend = true }: PlotCanvasProps) {
   const host = useRef<HTMLDivElement>(null);
   const chart = useRef<uPlotType | null>(null);
-  const shape = JSON.stringify([series.map((s) => [s.label, s.color, s.width, s.dash, s.stepped]), xLabel, yLabel, yLog, height, zoomX]);
+  const shape = JSON.stringify([series.map((s) => [s.label, s.color, s.width, s.dash, s.stepped, s.barFill]), xLabel, yLabel, yLog, height, zoomX, xRange, yFromZero, legend]);
 
   // Create (or re-create when the shape changes) the chart.
   useEffect(() => {
@@ -35,21 +50,25 @@ export function PlotCanvas({ x, series, xLabel, yLabel, yLog = false, height = 2
       const opts: uPlotType.Options = {
         width: Math.max(280, host.current.clientWidth),
         height,
-        scales: { x: { time: false }, y: yLog ? { distr: 3 } : {} },
+        scales: {
+          x: { time: false, ...(xRange ? { range: xRange } : {}) },
+          y: yLog ? { distr: 3 } : yFromZero ? { range: (_u, _min, max) => [0, Math.max(1, max)] } : {},
+        },
         axes: [
           { label: xLabel, stroke: "#46505c", grid: { stroke: "#e4e0d6" } },
           { label: yLabel, stroke: "#46505c", grid: { stroke: "#e4e0d6" }, size: 70 },
         ],
-        legend: { show: true },
-        cursor: { drag: { x: zoomX, y: false } },
+        legend: { show: legend },
+        cursor: legend ? { drag: { x: zoomX, y: false } } : { show: false },
         series: [
           { label: xLabel },
           ...series.map((s) => ({
             label: s.label,
             stroke: s.color,
-            width: s.width ?? 2,
+            width: s.width ?? (s.barFill ? 1 : 2),
             dash: s.dash,
-            paths: s.stepped ? uPlot.paths.stepped!({ align: 1 }) : undefined,
+            fill: s.barFill,
+            paths: s.barFill ? uPlot.paths.bars!({ size: [0.9, 60] }) : s.stepped ? uPlot.paths.stepped!({ align: 1 }) : undefined,
             points: { show: false },
           })),
         ],
