@@ -4,7 +4,7 @@ import "server-only";
 import { getToken } from "next-auth/jwt";
 import { cache } from "react";
 import { cookies } from "next/headers";
-import { notFound as pageNotFound, redirect } from "next/navigation";
+import { forbidden as pageForbidden, notFound as pageNotFound, redirect } from "next/navigation";
 import { db } from "@/db";
 import { findCourseForMember, type CourseRow } from "@/db/queries/courses";
 import type { PublicUser } from "@/db/queries/users";
@@ -90,6 +90,16 @@ export async function forPage<T>(p: Promise<T>, here?: string): Promise<T | { re
 
 export function refused<T>(v: T | { refused: string }): v is { refused: string } {
   return typeof v === "object" && v !== null && "refused" in v;
+}
+
+/**
+ * The opening of every course page: the caller's access to course `courseId` with one of the `allowed`
+ * roles; otherwise the sign-in page (back to `here` afterwards), the not-found page or the page's refusal.
+ */
+export async function coursePage(courseId: string, here: string, allowed: Role[] = EVERYONE): Promise<CourseAccess> {
+  const access = await forPage(requireCourseRole(courseId, allowed), here);
+  if (refused(access)) pageForbidden();
+  return access;
 }
 
 /** Signed in with the site-wide admin flag; anyone else is refused (403). */

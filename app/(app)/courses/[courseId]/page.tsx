@@ -1,10 +1,9 @@
 import Link from "next/link";
-import { forbidden } from "next/navigation";
 import { Suspense } from "react";
 import { db } from "@/db";
 import { ownGrades } from "@/db/queries/gradebook";
 import { StudentGrades } from "@/components/gradebook/student-grades";
-import { forPage, isStaff, refused, requireCourseRole } from "@/lib/auth/access";
+import { coursePage, isStaff } from "@/lib/auth/access";
 import { staffHome, studentHome } from "@/lib/courses/home";
 import { openReviewCount } from "@/lib/labs/review";
 import { labsForCourse } from "@/lib/labs/attempts";
@@ -14,8 +13,7 @@ import { DataTable, type Column } from "@/components/ui/table";
 
 export default async function CoursePage({ params }: { params: Promise<{ courseId: string }> }) {
   const { courseId } = await params;
-  const access = await forPage(requireCourseRole(courseId), `/courses/${courseId}`);
-  if (refused(access)) forbidden();
+  const access = await coursePage(courseId, `/courses/${courseId}`);
   const { course, role } = access;
   const staff = isStaff(role);
   const now = new Date();

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { forbidden } from "next/navigation";
-import { forPage, isStaff, refused, requireCourseRole } from "@/lib/auth/access";
+import { coursePage, isStaff } from "@/lib/auth/access";
+import { CoursePageHeading } from "@/components/course/page-heading";
 import { templates } from "@/lib/grader";
 import { closeOf } from "@/lib/labs/policy";
 import { labsForCourse } from "@/lib/labs/attempts";
@@ -77,8 +77,7 @@ function labColumns(staff: boolean, instructor: boolean): Column<Row>[] {
 export default async function LabsPage({ params, searchParams }: { params: Promise<{ courseId: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const { courseId } = await params;
   const sp = await searchParams;
-  const access = await forPage(requireCourseRole(courseId), `/courses/${courseId}/labs`);
-  if (refused(access)) forbidden();
+  const access = await coursePage(courseId, `/courses/${courseId}/labs`);
   const staff = isStaff(access.role);
   const instructor = access.role === "instructor";
   const labs = await labsForCourse(access);
@@ -86,17 +85,18 @@ export default async function LabsPage({ params, searchParams }: { params: Promi
   const notice = typeof sp.notice === "string" ? NOTICES[sp.notice] : undefined;
   return (
     <>
-      <p className="text-sm">
-        <Link href={`/courses/${courseId}`}>← {access.course.title}</Link>
-      </p>
-      <div className="mt-2 flex flex-wrap items-end justify-between gap-3">
-        <h1 className="text-3xl">Bench labs</h1>
-        {instructor ? (
-          <Link className="btn-primary no-underline hover:no-underline" href={`/courses/${courseId}/labs/new`}>
-            New lab
-          </Link>
-        ) : null}
-      </div>
+      <CoursePageHeading
+        backHref={`/courses/${courseId}`}
+        backLabel={access.course.title}
+        title="Bench labs"
+        action={
+          instructor ? (
+            <Link className="btn-primary no-underline hover:no-underline" href={`/courses/${courseId}/labs/new`}>
+              New lab
+            </Link>
+          ) : undefined
+        }
+      />
       <p className="mt-1 text-sm text-ink-soft">
         {staff
           ? "All labs of the course, drafts included. Students see only published labs."

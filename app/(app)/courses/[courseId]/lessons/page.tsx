@@ -1,8 +1,8 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { forbidden } from "next/navigation";
 import { LessonPlanEditor } from "@/components/course/lesson-plan-editor";
-import { forPage, refused, requireCourseRole } from "@/lib/auth/access";
+import { coursePage } from "@/lib/auth/access";
+import { CoursePageHeading } from "@/components/course/page-heading";
 import { coursePlan, lessonsForStudents } from "@/lib/courses/lesson-plan";
 import { QueryProvider } from "@/components/providers/query-provider";
 
@@ -12,17 +12,13 @@ const dateFmt = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyl
 
 export default async function CourseLessonsPage({ params }: { params: Promise<{ courseId: string }> }) {
   const { courseId } = await params;
-  const access = await forPage(requireCourseRole(courseId), `/courses/${courseId}/lessons`);
-  if (refused(access)) forbidden();
+  const access = await coursePage(courseId, `/courses/${courseId}/lessons`);
   const lessons = await lessonsForStudents(courseId);
   const instructor = access.role === "instructor";
   const plan = instructor ? await coursePlan(courseId) : [];
   return (
     <>
-      <p className="text-sm">
-        <Link href={`/courses/${courseId}`}>← {access.course.title}</Link>
-      </p>
-      <h1 className="mt-2 text-3xl">Lessons</h1>
+      <CoursePageHeading backHref={`/courses/${courseId}`} backLabel={access.course.title} title="Lessons" />
       <ol className="mt-6 space-y-3">
         {lessons.map((l, i) => (
           <li key={l.slug} className="card flex flex-wrap items-baseline gap-x-4 gap-y-1">

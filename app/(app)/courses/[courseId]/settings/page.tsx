@@ -1,9 +1,9 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { forbidden } from "next/navigation";
 import { db } from "@/db";
 import { labWeights } from "@/db/queries/gradebook";
-import { forPage, refused, requireCourseRole } from "@/lib/auth/access";
+import { coursePage } from "@/lib/auth/access";
+import { CoursePageHeading } from "@/components/course/page-heading";
 import { WeightsForm } from "@/components/gradebook/weights-form";
 import { CopyCourseForm, CourseSettingsForm, JoinCodePanel } from "@/components/course/settings-form";
 import { QueryProvider } from "@/components/providers/query-provider";
@@ -12,17 +12,13 @@ export const metadata: Metadata = { title: "Course settings" };
 
 export default async function CourseSettingsPage({ params, searchParams }: { params: Promise<{ courseId: string }>; searchParams: Promise<{ copied?: string }> }) {
   const { courseId } = await params;
-  const access = await forPage(requireCourseRole(courseId, ["instructor"]), `/courses/${courseId}/settings`);
-  if (refused(access)) forbidden();
+  const access = await coursePage(courseId, `/courses/${courseId}/settings`, ["instructor"]);
   const { course } = access;
   const copied = (await searchParams).copied;
   const weights = await labWeights(db, courseId);
   return (
     <>
-      <p className="text-sm">
-        <Link href={`/courses/${courseId}`}>← {course.title}</Link>
-      </p>
-      <h1 className="mt-2 text-3xl">Course settings</h1>
+      <CoursePageHeading backHref={`/courses/${courseId}`} backLabel={course.title} title="Course settings" />
       <p className="mt-1 mb-6 text-sm text-ink-soft">{course.code} · {course.institution}</p>
       {copied !== undefined ? (
         <p role="status" className="mb-6 rounded-md bg-trace-pale p-3 text-sm text-trace">

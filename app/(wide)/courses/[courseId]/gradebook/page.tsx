@@ -1,9 +1,9 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { forbidden } from "next/navigation";
 import { db } from "@/db";
 import { gradebookOutline, gradebookStatistics } from "@/db/queries/gradebook";
-import { forPage, refused, requireCourseRole, STAFF } from "@/lib/auth/access";
+import { coursePage, STAFF } from "@/lib/auth/access";
+import { CoursePageHeading } from "@/components/course/page-heading";
 import { listLessons } from "@/lib/lessons";
 import { GradebookStatistics } from "@/components/gradebook/statistics";
 import { GradebookTable } from "@/components/gradebook/gradebook-table";
@@ -15,16 +15,12 @@ export const metadata: Metadata = { title: "Gradebook" };
 // the statistics (one statement) are rendered here. Students get 403, outsiders 404.
 export default async function GradebookPage({ params }: { params: Promise<{ courseId: string }> }) {
   const { courseId } = await params;
-  const access = await forPage(requireCourseRole(courseId, STAFF), `/courses/${courseId}/gradebook`);
-  if (refused(access)) forbidden();
+  const access = await coursePage(courseId, `/courses/${courseId}/gradebook`, STAFF);
   const isInstructor = access.role === "instructor";
   const [book, stats] = await Promise.all([gradebookOutline(db, courseId), gradebookStatistics(db, courseId)]);
   return (
     <>
-      <p className="text-sm">
-        <Link href={`/courses/${courseId}`}>← {access.course.title}</Link>
-      </p>
-      <h1 className="mt-2 text-3xl">Gradebook</h1>
+      <CoursePageHeading backHref={`/courses/${courseId}`} backLabel={access.course.title} title="Gradebook" />
       <p className="mt-1 text-sm text-ink-soft">
         {book.students} students, {book.labs.length} published labs. The total weighs each lab by{" "}
         {book.labs.some((l) => l.weight !== null) ? "the weights set" : "its points"}

@@ -1,7 +1,6 @@
 import type { Metadata } from "next";
-import Link from "next/link";
-import { forbidden } from "next/navigation";
-import { forPage, refused, requireCourseRole } from "@/lib/auth/access";
+import { coursePage } from "@/lib/auth/access";
+import { CoursePageHeading } from "@/components/course/page-heading";
 import { LabBuilder } from "@/components/labs/builder/lab-builder";
 import { QueryProvider } from "@/components/providers/query-provider";
 
@@ -9,14 +8,10 @@ export const metadata: Metadata = { title: "New lab" };
 
 export default async function NewLabPage({ params }: { params: Promise<{ courseId: string }> }) {
   const { courseId } = await params;
-  const access = await forPage(requireCourseRole(courseId, ["instructor"]), `/courses/${courseId}/labs/new`);
-  if (refused(access)) forbidden();
+  const access = await coursePage(courseId, `/courses/${courseId}/labs/new`, ["instructor"]);
   return (
     <>
-      <p className="text-sm">
-        <Link href={`/courses/${courseId}/labs`}>← Bench labs of {access.course.title}</Link>
-      </p>
-      <h1 className="mt-2 mb-6 text-3xl">New lab</h1>
+      <CoursePageHeading backHref={`/courses/${courseId}/labs`} backLabel={<>Bench labs of {access.course.title}</>} title="New lab" className="mt-2 mb-6 text-3xl" />
       <QueryProvider>
         <LabBuilder
           courseId={courseId}
