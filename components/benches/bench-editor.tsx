@@ -7,7 +7,7 @@ import { useMutation } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
 import { useMemo, useState } from "react";
 import { FormMessage } from "@/components/ui/field";
-import { api, isApiError } from "@/lib/api-client";
+import { api, isApiError } from "@/lib/http/client";
 import { nextBenchNames, randomPairs } from "@/lib/benches/pairing";
 import { benchesSchema, MAX_AT_BENCH } from "@/lib/validation/benches";
 

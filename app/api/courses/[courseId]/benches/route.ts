@@ -1,4 +1,4 @@
-import { json, jsonBody, route } from "@/lib/api";
+import { json, jsonBody, route } from "@/lib/http/route";
 import { requireCourseRole, STAFF } from "@/lib/auth/access";
 import { arrangement, arrangementJson, saveArrangement } from "@/lib/benches/service";
 import { benchesSchema } from "@/lib/validation/benches";

@@ -21,7 +21,7 @@ import { AppError, notFound } from "@/lib/errors";
 import { queuePasswordMail } from "@/lib/mail/tokens";
 import type { addMemberSchema, updateMemberSchema } from "@/lib/validation/members";
 import { seatByName, seatCounts } from "@/db/queries/benches";
-import { checkBenchRoom, classifyRows, lookupEmails, readRosterCsv, type ImportRow, type KnownAccount } from "./csv";
+import { checkBenchRoom, classifyRows, lookupEmails, readRosterCsv, type ImportRow, type KnownAccount } from "./roster-csv";
 
 const LAST_INSTRUCTOR = "A course must keep at least one instructor: make someone else an instructor first.";
 
