@@ -1,8 +1,6 @@
 // Benches of a course and who sits at them.
-import { sql, type Kysely, type Transaction } from "kysely";
-import type { Database } from "../types";
-
-type Db = Kysely<Database> | Transaction<Database>;
+import { sql, type Transaction } from "kysely";
+import type { Database, Db } from "../types";
 
 export interface BenchMember {
   userId: string;
