@@ -21,6 +21,7 @@ export const MISTAKE_KEYS: MistakeKey[] = [
   "unhalved-difference",
   "period-for-burst",
   "ignored-aliasing",
+  "no-root-n",
 ];
 
 export interface MistakeInfo {
@@ -97,6 +98,11 @@ export const MISTAKES: Record<MistakeKey, MistakeInfo> = {
     explain: "A converter's rounding error lies within ±½ step, so the whole step q is the width of the rectangle, not its half-width.",
     fix: "For a step q the standard uncertainty is (q/2)/√3 = q/√12.",
   },
+  "no-root-n": {
+    title: "Standard deviation of one reading used for the mean",
+    explain: "The spread s of repeated readings describes one reading; the mean of n readings scatters √n times less.",
+    fix: "A Type A evaluation of a mean uses s/√n (GUM 4.2.3).",
+  },
   "forgot-bias": {
     title: "Input bias current left out",
     explain: "The amplifier's input bias current flows in the same node as the leakage and adds to the error, guard or no guard.",
@@ -105,7 +111,7 @@ export const MISTAKES: Record<MistakeKey, MistakeInfo> = {
   "wrong-guard-node": {
     title: "Guard at the wrong node",
     explain: "A guard only helps when it sits at (almost) the potential of the input it protects; tied to the source side or to a fixed rail it leaves the full voltage across the insulation.",
-    fix: "Drive the guard from the input's own potential (the amplifier's inverting input or a buffer of it), so only the guard's residual offset remains across the insulation: I = V_g/R_ins.",
+    fix: "Drive the guard from the input's own potential (the amplifier's non-inverting input, or a unity-gain buffer of the input; never the inverting input, the summing node itself), so only the guard's residual offset remains across the insulation: I = V_g/R_ins.",
   },
   "offset-wrong-sign": {
     title: "Offset added with the wrong sign",

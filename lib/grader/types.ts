@@ -66,6 +66,8 @@ export interface MistakeCandidate {
   value: QuantityValue;
   /** one sentence describing exactly what was done wrong for this quantity */
   detail?: string;
+  /** a title for this case when the key's general title would misdescribe what the student did */
+  title?: string;
 }
 
 export type MistakeKey =
@@ -87,7 +89,8 @@ export type MistakeKey =
   | "offset-wrong-sign"
   | "unhalved-difference"
   | "period-for-burst"
-  | "ignored-aliasing";
+  | "ignored-aliasing"
+  | "no-root-n";
 
 export interface Template {
   key: TemplateKey;
