@@ -5,11 +5,13 @@ import { signUpStudent } from "@/lib/courses";
 import { clientAddress, throttle } from "@/lib/security/throttle";
 import { AppError, type FieldErrors } from "@/lib/errors";
 import { signUpSchema } from "@/lib/validation/auth";
-import { fieldErrors } from "@/lib/validation/zod-errors";
+import { controlCharacterFields, fieldErrors } from "@/lib/validation/zod-errors";
 
 export type SignUpState = { ok: true; courseId: string } | { ok: false; message: string; fields?: FieldErrors };
 
 export async function signUpAction(input: unknown): Promise<SignUpState> {
+  const control = controlCharacterFields(input);
+  if (Object.keys(control).length) return { ok: false, message: "Check the highlighted fields.", fields: control };
   const parsed = signUpSchema.safeParse(input);
   if (!parsed.success) return { ok: false, message: "Check the highlighted fields.", fields: fieldErrors(parsed.error) };
   try {
