@@ -2,7 +2,7 @@
 // Disables an account (its sessions end at once, its sign-in is refused) or enables it again.
 import { useRouter } from "next/navigation";
 import { useState, useTransition } from "react";
-import { api, isApiError } from "@/lib/api-client";
+import { api, isApiError } from "@/lib/http/client";
 
 export function AccountSwitch({ userId, name, disabled }: { userId: string; name: string; disabled: boolean }) {
   const router = useRouter();

@@ -5,7 +5,7 @@
 import { useRouter } from "next/navigation";
 import { useState, useTransition } from "react";
 import { FormMessage } from "@/components/ui/field";
-import { api, isApiError } from "@/lib/api-client";
+import { api, isApiError } from "@/lib/http/client";
 
 export interface SessionItem {
   id: string;

@@ -1,5 +1,5 @@
 // The site admin's account search: name or e-mail contains the query.
-import { json, route } from "@/lib/api";
+import { json, route } from "@/lib/http/route";
 import { findAccounts } from "@/lib/auth/accounts";
 import { requireAdmin } from "@/lib/auth/access";
 import { userSearchSchema } from "@/lib/validation/admin";

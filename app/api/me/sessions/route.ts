@@ -1,7 +1,7 @@
 // The caller's sessions (signed-in browsers), the current one marked.
 import { db } from "@/db";
 import { listSessions } from "@/db/queries/sessions";
-import { json, route } from "@/lib/api";
+import { json, route } from "@/lib/http/route";
 import { currentSessionId, requireUser } from "@/lib/auth/access";
 import { sessionLimits } from "@/lib/auth/sessions";
 

@@ -1,5 +1,5 @@
 // Disable an account or enable it again (site admin).
-import { json, jsonBody, route } from "@/lib/api";
+import { json, jsonBody, route } from "@/lib/http/route";
 import { requireAdmin } from "@/lib/auth/access";
 import { setAccountDisabled } from "@/lib/auth/accounts";
 import { userPatchSchema } from "@/lib/validation/admin";

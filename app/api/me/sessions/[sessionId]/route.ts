@@ -2,7 +2,7 @@
 // that is already gone, is not found.
 import { db } from "@/db";
 import { deleteSession } from "@/db/queries/sessions";
-import { json, route } from "@/lib/api";
+import { json, route } from "@/lib/http/route";
 import { requireUser } from "@/lib/auth/access";
 import { notFound } from "@/lib/errors";
 import { uuidSchema } from "@/lib/validation/common";
