@@ -23,17 +23,25 @@ process.env.NODE_ENV ??= "production";
 
 const app = next({ dev: false, dir: path.resolve(import.meta.dirname, ".."), hostname, port });
 const handle = app.getRequestHandler();
-await app.prepare();
+// listening at once, as `next start` does (a taken port fails now, not after the app has loaded);
+// requests wait for the app to be ready
+const ready = app.prepare();
 
-const server = createServer((req, res) => {
+const server = createServer(async (req, res) => {
   const client = clientAddressOf(req.socket.remoteAddress, req.headers["x-forwarded-for"], trusted);
   req.headers["x-shuntwise-client"] = `${key} ${client}`;
   // Next.js keeps an X-Forwarded-For it finds; it now names the resolved client only
   req.headers["x-forwarded-for"] = client;
-  void handle(req, res);
+  await ready;
+  await handle(req, res);
 });
 server.keepAliveTimeout = 65_000;
+server.on("error", (e) => {
+  console.error(`The app server cannot listen on ${hostname}:${port} (${e.message}).`);
+  process.exit(1);
+});
 server.listen(port, hostname, () => console.log(`Shuntwise listening on http://${hostname}:${port}`));
+await ready;
 
 let closing = false;
 for (const signal of ["SIGINT", "SIGTERM"]) {

@@ -26,8 +26,11 @@ export const LIMITS = {
 
 export type LimitName = keyof typeof LIMITS;
 
-/** A counter's key as stored: lower case, without control characters (PostgreSQL text cannot hold NUL). */
-const keyOf = (key: string) => key.toLowerCase().replace(/[\u0000-\u001f\u007f]/g, "");
+/**
+ * A counter's key as stored: lower case, without control characters (PostgreSQL text cannot hold NUL),
+ * at most 200 characters (the table's key is varchar(255) with the limit's name in front).
+ */
+const keyOf = (key: string) => key.toLowerCase().replace(/[\u0000-\u001f\u007f]/g, "").slice(0, 200);
 
 const WHAT: Record<string, string> = {
   signIn: "sign-in attempts",

@@ -516,9 +516,10 @@ describe("access matrix", () => {
     expect(r.body.user).toEqual({ id: member.id, disabled: true });
     for (const [key, row] of byOrder) {
       const answer = await ask(key, row, "anonymous", client);
-      // the proxy sees only that a cookie is there, so an action runs and answers as to someone outside
-      // the course (the same refusal, no one's data); routes and pages answer as to an anonymous caller
-      if (key.startsWith("action ")) check(key, "outsider", row.cells.outsider, answer);
+      // the proxy sees only that a cookie is there, so an action runs: "Check yourself" asks to sign in,
+      // the others answer as to someone outside the course; routes and pages as to an anonymous caller
+      if (key === "action components/lesson/check-question-action.ts#checkAnswer") check(key, "outsider", says(200, /Sign in to check your answers/), answer);
+      else if (key.startsWith("action ")) check(key, "outsider", row.cells.outsider, answer);
       else check(key, "anonymous", row.cells.anonymous, answer);
     }
   });
