@@ -114,9 +114,11 @@ export async function listLabs(db: Db, courseId: string, opts: { publishedOnly: 
  * What is written for a lab: the lab schema's output (LabData), each question with its id (lib/labs/grading.ts
  * withIds). The close may be left out: no explicit close.
  */
-export type LabWrite = Omit<LabData, "questions" | "closesAt"> & {
+export type LabWrite = Omit<LabData, "questions" | "closesAt" | "bench"> & {
   questions: (LabData["questions"][number] & { id: string })[];
   closesAt?: LabData["closesAt"];
+  /** left out: the real bench (the column's default) */
+  bench?: LabData["bench"];
 };
 
 /** The JSON fields as JSON text; a field left out stays out (Kysely skips undefined values). */

@@ -29,6 +29,8 @@ export function labPublic(lab: Lab) {
     showExpected: lab.showExpected,
     instructions: lab.instructions,
     safetyNotes: lab.safetyNotes,
+    /** where students take their readings: "real", "simulated" or "either" */
+    bench: lab.bench,
   };
 }
 

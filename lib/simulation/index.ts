@@ -6,3 +6,4 @@ export {
   stepOf, thermalNoiseCurrent, timeConstantOf,
 } from "./model";
 export { autoRangeStep, benchSeed, filteredCurrent, fixedErrors, quantise, simulateReadings, switchTimeConstant } from "./simulate";
+export { NODE_SUPPLY_VOLTS, SIMULATED_TEMPLATES, circuitFor, hasSimulatedBench } from "./circuits";

@@ -17,6 +17,9 @@ const percent = () =>
     .max(100, "Use at most 100.")
     .transform((v) => Math.round(v * 100) / 100);
 
+export const BENCH_MODES = ["real", "simulated", "either"] as const;
+export const benchModeSchema = z.enum(BENCH_MODES, { error: "Choose real, simulated or either." });
+
 export const labFields = {
   title: z.string({ error: "Give the lab a title." }).trim().min(1, "Give the lab a title.").max(120, "Use at most 120 characters."),
   templateKey: z.enum(TEMPLATE_KEYS as [TemplateKey, ...TemplateKey[]], { error: "Choose a circuit template." }),
@@ -34,6 +37,8 @@ export const labFields = {
   showExpected: z.enum(["after_attempt", "after_due", "never"], { error: "Choose when expected values are shown." }),
   instructions: z.string().max(20_000, "Use at most 20,000 characters.").default(""),
   safetyNotes: z.string().max(5_000, "Use at most 5,000 characters.").default(""),
+  /** where students take their readings: the real bench, the simulated bench, or either */
+  bench: benchModeSchema.default("real"),
 };
 
 function checkLab(lab: { templateKey: TemplateKey; spec: { template: string; parameters: Record<string, unknown> }; questions: { quantity: string }[]; opensAt: Date | null; dueAt: Date | null; closesAt?: Date | null }, ctx: z.RefinementCtx) {
@@ -77,13 +82,14 @@ export type LabInput = z.input<typeof labInputSchema>;
 export type LabData = z.output<typeof labInputSchema>;
 
 /** PATCH: any subset of the fields, plus publishing. No defaults here: a field left out stays as it is. */
-const WITH_DEFAULTS = new Set(["policy", "instructions", "safetyNotes"]);
+const WITH_DEFAULTS = new Set(["policy", "instructions", "safetyNotes", "bench"]);
 export const labPatchSchema = z
   .object({
     ...Object.fromEntries(Object.entries(labFields).filter(([k]) => !WITH_DEFAULTS.has(k)).map(([k, v]) => [k, v.optional()])),
     policy: gradePolicySchema.partial().optional(),
     instructions: z.string().max(20_000, "Use at most 20,000 characters.").optional(),
     safetyNotes: z.string().max(5_000, "Use at most 5,000 characters.").optional(),
+    bench: benchModeSchema.optional(),
     status: z.enum(["draft", "published"]).optional(),
   })
   .strict();
