@@ -4,7 +4,7 @@
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { FormMessage } from "@/components/ui/field";
-import type { ImportOutcome, ImportRow } from "@/lib/roster/csv";
+import type { ImportOutcome, ImportRow } from "@/lib/courses/roster-csv";
 import { sendJson } from "./send-json";
 
 const OUTCOME: Record<ImportOutcome, { label: string; good: boolean }> = {

@@ -10,9 +10,19 @@ import { Eq } from "./Eq";
 import { V } from "./Value";
 import { BudgetTable } from "./BudgetTable";
 import { LazyCalculator, type CalculatorName } from "./lazy-calculators";
+import { LessonBench } from "@/components/labs/bench/lesson-bench";
 
 function H2(props: ComponentPropsWithoutRef<"h2">) {
   return <h2 id={headingId(childrenText(props.children))} className="mt-10 mb-3 scroll-mt-6 text-2xl break-after-avoid" {...props} />;
+}
+
+// A Markdown table (remark-gfm): scrolls on its own at 390 px instead of widening the page.
+function Table(props: ComponentPropsWithoutRef<"table">) {
+  return (
+    <div className="my-4 overflow-x-auto">
+      <table className="min-w-full border-collapse text-sm [&_td]:border-t [&_td]:border-ink/15 [&_td]:px-2 [&_td]:py-1 [&_th]:px-2 [&_th]:py-1 [&_th]:text-left" {...props} />
+    </div>
+  );
 }
 
 // The calculators load in the browser when the reader reaches one (lazy-calculators.tsx), so the units
@@ -25,6 +35,7 @@ const calculator = (name: CalculatorName) => {
 
 export const lessonComponents: MDXComponents = {
   h2: H2,
+  table: Table,
   Caution,
   CheckYourself,
   CircuitDiagram,
@@ -39,4 +50,5 @@ export const lessonComponents: MDXComponents = {
   ThermalReversalCalculator: calculator("ThermalReversalCalculator"),
   BurstSamplingCalculator: calculator("BurstSamplingCalculator"),
   BudgetTable,
+  LessonBench,
 };

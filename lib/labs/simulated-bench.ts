@@ -41,7 +41,7 @@ export async function benchFor(lab: Lab, access: CourseAccess, userId?: string):
   if (lab.bench === "real") throw notFound("A simulated bench for this lab");
   const holder = await holderOf(access, lab, userId);
   const stored = await findVariant(db, lab.id, holder);
-  // the same seed as lib/labs/service.ts variantFor: the values the handout shows once drawn
+  // the same seed as lib/labs/attempts.ts variantFor: the values the handout shows once drawn
   const params = stored ? (stored.params as Params) : drawVariant(lab.spec, `${lab.id}:${holder}`);
   const circuit = circuitFor(lab.templateKey, params);
   if (!circuit) throw notFound("A simulated bench for this lab");

@@ -1,6 +1,8 @@
 // The lab a builder saves and the attempt a student submits: one schema each, shared by the forms and
 // the route handlers. The parameter spec, questions and policy use the grader's own schemas.
 import { z } from "zod";
+import type { LabDataColumn } from "@/db/queries/labs";
+import { hasSimulatedBench } from "@/lib/simulation/circuits";
 import { drawVariant, gradePolicySchema, questionSchema, TEMPLATE_KEYS, templates, variantSpecSchema, type TemplateKey } from "@/lib/grader";
 
 // An ISO date-time from a form or a request, or a Date already read (a PATCH merged into a stored lab).
@@ -41,7 +43,11 @@ export const labFields = {
   bench: benchModeSchema.default("real"),
 };
 
-function checkLab(lab: { templateKey: TemplateKey; spec: { template: string; parameters: Record<string, unknown> }; questions: { quantity: string }[]; opensAt: Date | null; dueAt: Date | null; closesAt?: Date | null }, ctx: z.RefinementCtx) {
+/** db/queries/labs.ts reads and writes these fields as columns by name; the build fails when the two lists differ. */
+type SameKeys<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
+export const labFieldsAreColumns: SameKeys<keyof typeof labFields, LabDataColumn> = true;
+
+function checkLab(lab: { bench: "real" | "simulated" | "either"; templateKey: TemplateKey; spec: { template: string; parameters: Record<string, unknown> }; questions: { quantity: string }[]; opensAt: Date | null; dueAt: Date | null; closesAt?: Date | null }, ctx: z.RefinementCtx) {
   if (lab.spec.template !== lab.templateKey) {
     ctx.addIssue({ code: "custom", path: ["spec", "template"], message: "The parameter spec belongs to another template." });
   }
@@ -62,6 +68,9 @@ function checkLab(lab: { templateKey: TemplateKey; spec: { template: string; par
     } catch (e) {
       ctx.addIssue({ code: "custom", path: ["spec"], message: (e as Error).message });
     }
+  }
+  if (lab.bench !== "real" && !hasSimulatedBench(lab.templateKey)) {
+    ctx.addIssue({ code: "custom", path: ["bench"], message: "This template has no circuit for the simulated bench: choose the real bench." });
   }
   if (lab.opensAt && lab.dueAt && lab.dueAt <= lab.opensAt) {
     ctx.addIssue({ code: "custom", path: ["dueAt"], message: "The due date must come after the opening date." });

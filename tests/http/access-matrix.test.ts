@@ -91,7 +91,7 @@ interface World {
   outsider: { id: string; email: string };
   hiddenLesson: string; // a lesson the course hides from students
   hiddenQuestion: string; // a "Check yourself" question of that lesson
-  actionIds: Record<string, string>; // "app/lessons/actions.ts#checkAnswer" → the build's action id
+  actionIds: Record<string, string>; // "components/lesson/check-question-action.ts#checkAnswer" → the build's action id
 }
 
 let w: World;
@@ -337,8 +337,8 @@ const ROWS: Record<string, Row> = {
 
   // --- server actions, called as the page's form does (POST with the Next-Action header)
   // checking an answer of the hidden lesson: the staff get the verdict, everyone else learns nothing
-  "action app/lessons/actions.ts#checkAnswer": {
-    req: action((w) => `/lessons/${w.hiddenLesson}`, (w) => w.actionIds["app/lessons/actions.ts#checkAnswer"], []),
+  "action components/lesson/check-question-action.ts#checkAnswer": {
+    req: action((w) => `/lessons/${w.hiddenLesson}`, (w) => w.actionIds["components/lesson/check-question-action.ts#checkAnswer"], []),
     cells: (() => {
       const gone = says(200, /no longer exists/);
       const graded = says(200, /"verdict"/);
@@ -369,7 +369,7 @@ const ROWS: Record<string, Row> = {
 
 // the action rows need arguments from the world: filled in when the request is made
 const ACTION_ARGS: Record<string, (w: World) => unknown[]> = {
-  "action app/lessons/actions.ts#checkAnswer": (w) => [w.hiddenQuestion, "1 mA"],
+  "action components/lesson/check-question-action.ts#checkAnswer": (w) => [w.hiddenQuestion, "1 mA"],
 };
 
 // ---------------------------------------------------------------------------------------------------

@@ -8,18 +8,21 @@ import path from "node:path";
 
 export const NGSPICE = "/usr/bin/ngspice";
 
-/** Runs a netlist (with its own .control block) and returns every `name = number` it printed. */
-export function runNgspice(netlist: string): Record<string, number> {
+/**
+ * Runs a netlist (with its own .control block) and returns every `name = number` it printed (names in lower
+ * case, `print all`'s branch currents such as `v1#branch` included). `timeoutMs` for long batches.
+ */
+export function runNgspice(netlist: string, timeoutMs = 60_000): Record<string, number> {
   const dir = mkdtempSync(path.join(tmpdir(), "shuntwise-spice-"));
   try {
     const file = path.join(dir, "circuit.cir");
     writeFileSync(file, netlist);
     // batch mode exits 1 when the netlist has only a .control block ("no simulations run"), so the printed
     // values decide: none at all is a failure, shown with what ngspice said
-    const run = spawnSync(NGSPICE, ["-b", file], { encoding: "utf8", timeout: 60_000, stdio: ["ignore", "pipe", "pipe"] });
+    const run = spawnSync(NGSPICE, ["-b", file], { encoding: "utf8", timeout: timeoutMs, stdio: ["ignore", "pipe", "pipe"] });
     const values: Record<string, number> = {};
     for (const line of (run.stdout ?? "").split("\n")) {
-      const m = /^\s*([a-z_][\w.]*)\s*=\s*([-+0-9.eE]+)\s*$/i.exec(line);
+      const m = /^\s*([a-z_][\w.#]*)\s*=\s*([-+0-9.eE]+)\s*$/i.exec(line);
       if (m) values[m[1].toLowerCase()] = Number(m[2]);
     }
     if (Object.keys(values).length === 0) throw new Error(`ngspice printed no values (exit ${run.status}): ${run.error?.message ?? ""}\n${run.stdout}\n${run.stderr}`);

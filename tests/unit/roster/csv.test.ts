@@ -1,6 +1,6 @@
 // Reading a roster CSV and marking its rows. Expected marks are written by hand from the file's lines.
 import { describe, expect, it } from "vitest";
-import { classifyRows, readRosterCsv } from "@/lib/roster/csv";
+import { classifyRows, readRosterCsv } from "@/lib/courses/roster-csv";
 
 describe("readRosterCsv", () => {
   it("reads a header row in any column order and keeps the file's line numbers", () => {

@@ -5,10 +5,10 @@ import { db } from "@/db";
 import { ownGrades } from "@/db/queries/gradebook";
 import { StudentGrades } from "@/components/gradebook/student-grades";
 import { forPage, isStaff, refused, requireCourseRole } from "@/lib/auth/access";
-import { staffHome, studentHome } from "@/lib/home/load";
+import { staffHome, studentHome } from "@/lib/courses/home";
 import { openReviewCount } from "@/lib/labs/review";
-import { labsForCourse } from "@/lib/labs/service";
-import { roleLabel } from "@/lib/roles";
+import { labsForCourse } from "@/lib/labs/attempts";
+import { roleLabel } from "@/lib/auth/roles";
 import { NextLabDue, OpenLabs, Panel, when } from "@/components/course/home-parts";
 import { DataTable, type Column } from "@/components/ui/table";
 

@@ -5,7 +5,7 @@ import { forPage, isStaff, refused } from "@/lib/auth/access";
 import { templates } from "@/lib/grader";
 import { handoutFor } from "@/lib/labs/handout";
 import { closeOf, expectedWhenText, isClosed, isOpen, lateDays } from "@/lib/labs/policy";
-import { attemptsFor, HELD_NOTICE, labAccess, type Lab } from "@/lib/labs/service";
+import { attemptsFor, HELD_NOTICE, labAccess, type Lab } from "@/lib/labs/attempts";
 import { DataTable, type Column } from "@/components/ui/table";
 import { HoldGrades } from "@/components/mail/hold-grades";
 import { Handout } from "@/components/labs/handout";
@@ -13,6 +13,8 @@ import type { FormMeasured, FormQuestion } from "@/components/labs/submit/read";
 import { utcDate } from "@/lib/dates";
 import { attemptsLeftText, lateRuleText } from "@/lib/labs/wording";
 import { SubmissionForm } from "@/components/labs/submit/submission-form";
+import { BenchLauncher } from "@/components/labs/bench/bench-launcher";
+import { hasSimulatedBench } from "@/lib/simulation/circuits";
 import { VERDICT_ORDER, VERDICTS, points, verdictCounts, verdictSummary } from "@/components/labs/feedback/verdict";
 
 export const metadata: Metadata = { title: "Lab" };
@@ -158,9 +160,15 @@ export default async function LabPage({ params }: { params: Promise<{ labId: str
             You have used all your attempts. Open an attempt above to see its feedback or to ask for a review.
           </p>
         ) : (
-          <SubmissionForm labId={lab.id} questions={questions} components={components} />
+          <SubmissionForm labId={lab.id} questions={questions} components={components} bench={lab.bench} />
         )}
       </section>
+
+      {lab.bench !== "real" && hasSimulatedBench(lab.templateKey) ? (
+        <div className="no-print mt-6">
+          <BenchLauncher labId={lab.id} />
+        </div>
+      ) : null}
     </>
   );
 }

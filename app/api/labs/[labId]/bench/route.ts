@@ -1,5 +1,5 @@
-import { json, route } from "@/lib/api";
-import { labAccess } from "@/lib/labs/service";
+import { json, route } from "@/lib/http/route";
+import { labAccess } from "@/lib/labs/attempts";
 import { benchFor } from "@/lib/labs/simulated-bench";
 
 // The caller's simulated bench: its seed, the lab's instrument and their circuit (404 where the lab has none).

@@ -1,5 +1,5 @@
-import { json, route } from "@/lib/api";
-import { labAccess } from "@/lib/labs/service";
+import { json, route } from "@/lib/http/route";
+import { labAccess } from "@/lib/labs/attempts";
 import { benchReadings } from "@/lib/labs/simulated-bench";
 import { benchReadingsQuerySchema } from "@/lib/validation/bench";
 import { parseOr400 } from "@/lib/validation/zod-errors";

@@ -20,7 +20,7 @@ import type { Database, Role } from "@/db/types";
 import { AppError, notFound } from "@/lib/errors";
 import { queuePasswordMail } from "@/lib/mail/tokens";
 import type { addMemberSchema, updateMemberSchema } from "@/lib/validation/members";
-import { classifyRows, lookupEmails, readRosterCsv, type ImportRow, type KnownAccount } from "./csv";
+import { classifyRows, lookupEmails, readRosterCsv, type ImportRow, type KnownAccount } from "./roster-csv";
 
 const LAST_INSTRUCTOR = "A course must keep at least one instructor: make someone else an instructor first.";
 
