@@ -36,14 +36,16 @@ export function fixedErrors(seed: string, range: SimRange): { gain: number; offs
   return { gain: (2 * r() - 1) * (range.accuracy.percentOfReading / 100), offset: (2 * r() - 1) * offsetBound };
 }
 
-const errorCache = new Map<string, { gain: number; offset: number }>();
+// the fixed errors of a range object for a seed, drawn once
+const errorCache = new WeakMap<SimRange, Map<string, { gain: number; offset: number }>>();
 function errorsOf(seed: string, range: SimRange) {
-  const key = `${seed}|${range.key}|${JSON.stringify(range.accuracy)}|${JSON.stringify(range.resolution)}|${range.fullScale}|${range.sensitivity ?? ""}`;
-  let e = errorCache.get(key);
+  let bySeed = errorCache.get(range);
+  if (!bySeed) errorCache.set(range, (bySeed = new Map()));
+  let e = bySeed.get(seed);
   if (!e) {
-    if (errorCache.size > 256) errorCache.clear();
+    if (bySeed.size > 64) bySeed.clear();
     e = fixedErrors(seed, range);
-    errorCache.set(key, e);
+    bySeed.set(seed, e);
   }
   return e;
 }

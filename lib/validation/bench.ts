@@ -18,4 +18,7 @@ export const benchReadingsQuerySchema = z.object({
   /** staff: the student whose bench to replay */
   userId: uuidSchema.optional(),
 });
+/** `GET …/bench`: staff may name the student whose bench they open. */
+export const benchQuerySchema = z.object({ userId: uuidSchema.optional() });
+
 export type BenchReadingsQuery = z.output<typeof benchReadingsQuerySchema>;
