@@ -2,6 +2,7 @@
 // code loads only then), switches ranges and the filter, logs a reading; the readings the page showed are
 // replayed by the API exactly (same seed, run and time), by the student and by a TA with userId=. Then the
 // student submits the logged reading and the attempt is recorded as taken on the simulated bench.
+import { gzipSync } from "node:zlib";
 import type { Browser, BrowserContext, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { baseURL, demo, launch, newPage, signIn } from "./harness";
@@ -69,8 +70,11 @@ describe("the simulated bench in the browser", () => {
   it("loads only when opened, shows the student's readings, and the API replays exactly what the page showed", async () => {
     const { page, context } = student;
     const scripts: string[] = [];
+    const sizes = new Map<string, number>();
     page.on("response", (r) => {
-      if (r.url().includes("/_next/static/chunks/")) scripts.push(r.url());
+      if (!r.url().includes("/_next/static/chunks/")) return;
+      scripts.push(r.url());
+      void r.body().then((b) => sizes.set(r.url(), gzipSync(b, { level: 9 }).byteLength)).catch(() => undefined);
     });
     await page.goto(`/labs/${labId}`);
     await expect.poll(() => page.getByTestId("open-bench").isVisible()).toBe(true);
@@ -78,6 +82,11 @@ describe("the simulated bench in the browser", () => {
     await page.getByTestId("open-bench").click();
     await page.getByTestId("simulated-bench").waitFor();
     expect(scripts.length).toBeGreaterThan(before); // the simulator's code came when the bench opened
+    // what opening the bench added: at most 40 KB of compressed JavaScript (gzip -9 of each file)
+    await expect.poll(() => scripts.slice(before).every((u) => sizes.has(u))).toBe(true);
+    const added = scripts.slice(before).reduce((sum, u) => sum + sizes.get(u)!, 0);
+    console.log(`simulated bench: ${scripts.length - before} files, ${(added / 1024).toFixed(1)} KB compressed added on opening`);
+    expect(added).toBeLessThanOrEqual(40 * 1024);
 
     await page.getByText("500 µA", { exact: true }).click();
     await expect.poll(async () => (await display(page)).runRange).toBe("r500u");

@@ -183,9 +183,9 @@ describe("grading readings taken on the simulated bench", () => {
     // V_s/R_L = 400 µA where the meter in the loop lets 363.6 µA through
     const r = await submit(as.peer, simLab, ["400 uA", "40 mV", "400 uA"]);
     expect(r.status).toBe(201);
-    const results = r.body.attempt.results as { quantity: string; verdict: string; mistake?: string }[];
-    expect(results.find((x) => x.quantity === "indicatedCurrent")).toMatchObject({ verdict: "mistake", mistake: "ignored-burden" });
-    expect(results.find((x) => x.quantity === "burdenVoltage")).toMatchObject({ verdict: "mistake", mistake: "ignored-burden" });
+    const results = r.body.attempt.results as { quantity: string; verdict: string; mistake?: { key: string } }[];
+    expect(results.find((x) => x.quantity === "indicatedCurrent")).toMatchObject({ verdict: "mistake", mistake: { key: "ignored-burden" } });
+    expect(results.find((x) => x.quantity === "burdenVoltage")).toMatchObject({ verdict: "mistake", mistake: { key: "ignored-burden" } });
   });
 
   it("records what the student says where the lab allows either, and refuses the simulated bench on a real-bench lab", async () => {
