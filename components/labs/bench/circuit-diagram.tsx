@@ -13,7 +13,7 @@ export function BenchCircuitDiagram({ circuit, meterOhms, rangeLabel }: { circui
       <svg viewBox="0 0 320 150" className="h-auto w-full max-w-md" role="img" aria-label={text}>
         <g fill="none" stroke="currentColor" strokeWidth="2">
           {/* loop */}
-          <path d="M40 40 H140 M200 40 H280 V110 H230 M170 110 H40 V95 M40 55 V40" />
+          <path d="M40 40 H140 M190 40 H280 V110 H222 M178 110 H40 V95 M40 55 V40" />
           {/* supply */}
           <circle cx="40" cy="75" r="20" />
           {/* load resistor */}
