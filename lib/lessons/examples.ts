@@ -217,6 +217,12 @@ export const examples: readonly Example[] = [
   teaching("shot-1nA", "shotNoise", ["worked here from the formula", "Annalen der Physik"], { current: 1e-9, bandwidth: 1 }, "PHYSICS.md §7 7f [FORMULA: exact q]", {
     noiseCurrent: 17.9e-15,
   }),
+  teaching("burst-hits-narrow", "burstHits", ["worked here from the formula"], { wakePeriod: 1.02, logRate: 1, burstWidth: 5e-3 }, "PHYSICS.md §16 16e [FORMULA]", {
+    alias: 19.61e-3, aliasPeriod: 51.0, stepPerSample: 20.0e-3, samplesPerPass: 0.25, meanTimeBetweenHits: 204.0,
+  }),
+  teaching("burst-hits-wide", "burstHits", ["worked here from the formula"], { wakePeriod: 1.002, logRate: 1, burstWidth: 5e-3 }, "PHYSICS.md §16 16f [FORMULA]", {
+    alias: 1.996e-3, aliasPeriod: 501.0, stepPerSample: 2.0e-3, samplesPerPass: 2.5, meanTimeBetweenHits: 501.0,
+  }),
   teaching("unweighted-mean", "unweightedMean", ["worked here from the definition of the average"], { a: 20e-3, b: 2e-6 }, "PHYSICS.md §12.5 (wrong method) [FORMULA]", {
     mean: 10.0e-3,
   }),

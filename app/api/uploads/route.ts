@@ -1,9 +1,9 @@
-import { json, readCapped, route } from "@/lib/api";
+import { json, readCapped, route } from "@/lib/http/route";
 import { requireCourseRole, requireUser } from "@/lib/auth/access";
 import { AppError } from "@/lib/errors";
-import { mb, acceptUpload } from "@/lib/uploads";
-import { labAccess, variantFor } from "@/lib/labs/service";
-import { maxUploadBytes } from "@/lib/storage";
+import { mb, acceptUpload } from "@/lib/uploads/accept";
+import { labAccess, variantFor } from "@/lib/labs/attempts";
+import { maxUploadBytes } from "@/lib/uploads/storage";
 
 // multipart/form-data with `file` and `labId` (or `courseId`). 201 with the upload's id.
 // Who is calling is checked before a byte of the body is read; the body is counted as it streams and

@@ -3,7 +3,7 @@
 // it is chosen, with a progress bar; a refusal (too large, wrong type) is shown under the field.
 import { useEffect, useId, useRef, useState } from "react";
 import { formatQuantity } from "@/lib/grader/format";
-import { toApiError } from "@/lib/api-client";
+import { toApiError } from "@/lib/http/client";
 import { uploadErrorMessage } from "./read";
 import { sendUpload, type UploadedFile } from "./upload";
 

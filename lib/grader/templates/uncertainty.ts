@@ -300,7 +300,11 @@ export const uncertainty: Template = {
     return out;
   },
   bandFloor(p, q, rel) {
-    // a contribution the lab leaves out is zero: accept a small answer near it
-    return q in CONTRIBUTION_QUANTITY ? 0.1 * rel * uncertaintyBudget(p).combined : 0;
+    // a contribution the lab switches off is exactly zero: accept a small answer near it. A contribution that
+    // is small but not zero keeps its plain relative band, or a tenfold slip on it would pass (PHYSICS.md §17 17k)
+    if (!(q in CONTRIBUTION_QUANTITY)) return 0;
+    const b = uncertaintyBudget(p);
+    const row = b.rows.find((r) => r.key === CONTRIBUTION_QUANTITY[q]);
+    return row && row.contribution === 0 ? 0.1 * rel * b.combined : 0;
   },
 };

@@ -258,7 +258,7 @@ describe("public contract", () => {
         "adcReference",
       ],
       "leakage-guard": ["sourceVoltage", "insulationResistance", "measuredCurrent", "biasCurrent", "guardVoltage"],
-      "offset-thermal": ["shuntResistance", "current", "offsetVoltage", "seebeckMicrovoltsPerKelvin", "junctionTemperatureDifference"],
+      "offset-thermal": ["shuntResistance", "current", "offsetVoltage", "seebeckMicrovoltsPerKelvin", "junctionTemperatureDifference", "inputRange"],
       "sampling-burst": ["sampleRate", "burstWidth", "requiredSamples", "wakePeriod", "logRate", "activeCurrent", "sleepCurrent"],
     };
     expect(Object.keys(templates).sort()).toEqual(Object.keys(names).sort());
