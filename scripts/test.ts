@@ -19,7 +19,7 @@ import { appEnv } from "./lib/app-env";
 import { buildIfStale } from "./lib/build";
 import { databaseUrl, root, serviceConfig } from "./lib/config";
 import { ensurePostgres, recreateDatabase, stopPostgres } from "./lib/postgres";
-import { RUN_ID_VAR, alive, freePort, stopPids, sweepRun } from "./lib/processes";
+import { RUN_ID_VAR, alive, freePort, portTaken, stopPids, sweepRun } from "./lib/processes";
 import { startNext, waitForHttp } from "./lib/server";
 import { startStandIns } from "./lib/standins";
 
@@ -183,7 +183,8 @@ async function main(): Promise<Counts> {
     cfg[key] = port;
   }
   // the whole suite signs in from 127.0.0.1: per-address throttles scaled up (per-account ones unchanged)
-  const env = { ...appEnv(cfg, e2eUrl), SHUNTWISE_PER_ADDRESS_FACTOR: process.env.SHUNTWISE_PER_ADDRESS_FACTOR ?? "100" };
+  const testEnv = () => ({ ...appEnv(cfg, e2eUrl), SHUNTWISE_PER_ADDRESS_FACTOR: process.env.SHUNTWISE_PER_ADDRESS_FACTOR ?? "100" });
+  let env = testEnv();
   standIns = await startStandIns(cfg);
   for (const url of [testUrl, e2eUrl]) {
     const db = createDb(url, 2);
@@ -195,9 +196,26 @@ async function main(): Promise<Counts> {
     }
   }
   await buildIfStale(DIST, env);
-  const server = track(startNext({ distDir: DIST, port: cfg.appPort, host: cfg.appHost, env, quiet: true }));
+  // The build takes minutes: another run on this machine may have taken the app's port meanwhile.
+  // Check it again just before starting, and start on another free port when the server cannot listen.
+  let server: ChildProcess;
+  for (let tries = 1; ; tries++) {
+    if (await portTaken(cfg.appPort, cfg.appHost)) {
+      const port = await pick(cfg.appPort);
+      console.log(`Port ${cfg.appPort} was taken during the build; using ${port} instead.`);
+      cfg.appPort = port;
+      env = testEnv();
+    }
+    server = track(startNext({ distDir: DIST, port: cfg.appPort, host: cfg.appHost, env, quiet: true }));
+    try {
+      await waitForHttp(`http://${cfg.appHost}:${cfg.appPort}/api/health`, server);
+      break;
+    } catch (e) {
+      if (server.exitCode === null || tries >= 5) throw e;
+      taken.push(cfg.appPort);
+    }
+  }
   const url = `http://${cfg.appHost}:${cfg.appPort}`;
-  await waitForHttp(`${url}/api/health`, server);
   console.log(`App under test on ${url}.`);
   const tiers = await runVitest(
     {

@@ -87,7 +87,8 @@ export type MistakeKey =
   | "offset-wrong-sign"
   | "unhalved-difference"
   | "period-for-burst"
-  | "ignored-aliasing";
+  | "ignored-aliasing"
+  | "no-root-n";
 
 export interface Template {
   key: TemplateKey;
