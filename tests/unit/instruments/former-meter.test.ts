@@ -57,7 +57,7 @@ describe("no page of the course uses the former meter", () => {
   const sources = [
     ...files("content/lessons", /\.mdx$/),
     ...files("components/lesson", /\.tsx?$/),
-    ...files("db/seed", /\.ts$/),
+    ...files("scripts/seed", /\.ts$/),
     ...files("lib/lessons", /\.ts$/),
     ...files("lib/grader/templates", /\.ts$/),
     ...files("lib/instruments", /\.ts$/),
@@ -104,7 +104,7 @@ describe("no page of the course uses the former meter", () => {
   });
 
   it("the seed's demo labs draw none of the former meter's values", () => {
-    const seed = fs.readFileSync(path.join(root, "db/seed/labs.ts"), "utf8");
+    const seed = fs.readFileSync(path.join(root, "scripts/seed/labs.ts"), "utf8");
     expect(seed).not.toMatch(/offsetVoltage:\s*fixed\(1\.65\)/);
     expect(seed).not.toMatch(/adcReference:\s*fixed\(3\.3\)/);
     expect(seed).not.toMatch(/fullScaleVoltage:\s*fixed\(3\.3\)/);
