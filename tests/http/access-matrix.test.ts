@@ -341,7 +341,6 @@ const ROWS: Record<string, Row> = {
   "page /courses/[courseId]/reviews": { req: (w) => `/courses/${w.courseId}/reviews`, cells: pStaff },
   "page /courses/[courseId]/reviews/[attemptId]": { req: (w) => `/courses/${w.courseId}/reviews/${w.attemptId}`, cells: cells("signin", "notFound", 403, "notFound", "page", "page", "page") },
   "page /courses/[courseId]/benches": { req: (w) => `/courses/${w.courseId}/benches`, cells: pStaff },
-  "page /courses/[courseId]/instruments": { req: (w) => `/courses/${w.courseId}/instruments`, cells: pMembers },
   "page /courses/[courseId]/roster": { req: (w) => `/courses/${w.courseId}/roster`, cells: pStaff },
   "page /courses/[courseId]/settings": { req: (w) => `/courses/${w.courseId}/settings`, cells: pInstructors },
   "page /courses/[courseId]/gradebook": { req: (w) => `/courses/${w.courseId}/gradebook`, cells: pStaff },

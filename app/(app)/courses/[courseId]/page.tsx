@@ -32,7 +32,6 @@ export default async function CoursePage({ params }: { params: Promise<{ courseI
       <nav aria-label="Course" className="mt-6 flex flex-wrap gap-3">
         <Link className="btn-quiet" href={`/courses/${course.id}/lessons`}>Lessons</Link>
         <Link className="btn-quiet" href={`/courses/${course.id}/labs`}>Bench labs</Link>
-        <Link className="btn-quiet" href={`/courses/${course.id}/instruments`}>Instruments</Link>
         {staff ? <Link className="btn-quiet" href={`/courses/${course.id}/gradebook`}>Gradebook</Link> : null}
         {staff ? <Link className="btn-quiet" href={`/courses/${course.id}/roster`}>Roster</Link> : null}
         {staff ? <Link className="btn-quiet" href={`/courses/${course.id}/benches`}>Benches</Link> : null}
