@@ -85,8 +85,6 @@ export interface LabsTable {
   grades_released_at: Timestamp | null;
   /** Weight in the course total; null = weighted by the lab's points. */
   weight: number | null;
-  /** the course instrument the lab's readings are taken with (lib/instruments) */
-  instrument_id: string | null;
 }
 
 export interface LabVariantsTable {
@@ -245,21 +243,7 @@ export interface BenchSeatsTable {
   bench_id: string;
 }
 
-/** An instrument profile of a course (lib/instruments/profile.ts), stored whole as JSON. */
-export interface InstrumentsTable {
-  id: Generated<string>;
-  course_id: string;
-  name: string;
-  kind: string;
-  profile: Json<unknown>;
-  /** the built-in profile it was copied from, if any */
-  library_key: string | null;
-  created_at: Generated<Date>;
-  updated_at: Generated<Date>;
-}
-
 export interface Database {
-  instruments: InstrumentsTable;
   benches: BenchesTable;
   bench_seats: BenchSeatsTable;
   rate_limits: RateLimitsTable;

@@ -92,7 +92,6 @@ interface World {
   hiddenLesson: string; // a lesson the course hides from students
   hiddenQuestion: string; // a "Check yourself" question of that lesson
   actionIds: Record<string, string>; // "components/lesson/check-question-action.ts#checkAnswer" → the build's action id
-  instrumentId: string; // the course's teaching meter, which the published lab uses (so a DELETE answers 409)
 }
 
 let w: World;
@@ -154,16 +153,6 @@ beforeAll(async () => {
   });
   expect(plan.status).toBe(200);
 
-  // the published lab takes its readings with the course's teaching meter
-  const meters = await as.instructor.json(`/api/courses/${f.courseId}/instruments`);
-  const instrumentId = meters.body.instruments[0].id as string;
-  const idb = e2eDb();
-  try {
-    await idb.updateTable("labs").set({ instrument_id: instrumentId }).where("id", "=", labId).execute();
-  } finally {
-    await idb.destroy();
-  }
-
   w = {
     courseId: f.courseId,
     labId,
@@ -176,7 +165,6 @@ beforeAll(async () => {
     hiddenLesson,
     hiddenQuestion: lessonQuestions.find((q) => q.lesson === hiddenLesson)!.id,
     actionIds: serverActionIds(),
-    instrumentId,
   };
 });
 
@@ -271,11 +259,6 @@ const ROWS: Record<string, Row> = {
   "GET /api/courses/[courseId]": { req: (w) => c(w), cells: members(200) },
   "PATCH /api/courses/[courseId]": { req: (w) => send("PATCH", c(w)), cells: instructors(400) },
   "POST /api/courses/[courseId]/copy": { req: (w) => send("POST", `${c(w)}/copy`), cells: instructors(400) },
-  "GET /api/instruments/library": { req: () => "/api/instruments/library", cells: signedIn(200) },
-  "GET /api/courses/[courseId]/instruments": { req: (w) => `${c(w)}/instruments`, cells: members(200) },
-  "POST /api/courses/[courseId]/instruments": { req: (w) => send("POST", `${c(w)}/instruments`), cells: instructors(400) },
-  "PATCH /api/instruments/[instrumentId]": { req: (w) => send("PATCH", `/api/instruments/${w.instrumentId}`), cells: instructors(400) },
-  "DELETE /api/instruments/[instrumentId]": { req: (w) => send("DELETE", `/api/instruments/${w.instrumentId}`), cells: instructors(409) },
   "GET /api/courses/[courseId]/benches": { req: (w) => `${c(w)}/benches`, cells: staff(200) },
   "PUT /api/courses/[courseId]/benches": { req: (w) => send("PUT", `${c(w)}/benches`), cells: instructors(400) },
   "GET /api/courses/[courseId]/gradebook": { req: (w) => `${c(w)}/gradebook`, cells: staff(200) },

@@ -7,7 +7,6 @@
 //
 // `npm test` sends SHUNTWISE_FUZZ_RUNS bodies (1,000 unless set) with a fixed seed; `npm run fuzz` sends
 // 10,000. A failure prints the seed and the bodies that failed; SHUNTWISE_FUZZ_SEED=<seed> replays them.
-import { teachingMeter } from "@/lib/instruments/library";
 import fc from "fast-check";
 import { beforeAll, describe, expect, it } from "vitest";
 import { Client } from "../support/http";
@@ -48,7 +47,6 @@ let w: {
   attemptId: string;
   memberId: string;
   instructorEmail: string;
-  instrumentId: string; // the course's teaching meter: PATCHed freely
 };
 
 // --- generators
@@ -287,22 +285,6 @@ const TARGETS: Target[] = [
     weight: 3,
   },
   {
-    name: "POST /api/courses/{courseId}/instruments",
-    who: "instructor",
-    method: "POST",
-    path: () => `/api/courses/${w.courseId}/instruments`,
-    valid: () => ({ copyOf: "bench-multimeter", name: "Fuzz bench meter" }),
-    weight: 2,
-  },
-  {
-    name: "PATCH /api/instruments/{instrumentId}",
-    who: "instructor",
-    method: "PATCH",
-    path: () => `/api/instruments/${w.instrumentId}`,
-    valid: () => ({ name: "Fuzz teaching meter", ranges: structuredClone(teachingMeter.ranges), autoRange: { upAtFractionOfFullScale: 0.9, downAtFractionOfFullScale: 0.008, settlingSeconds: 0.005 } }),
-    weight: 3,
-  },
-  {
     name: "PUT /api/labs/{labId}/grades-held",
     who: "instructor",
     method: "PUT",
@@ -382,18 +364,7 @@ beforeAll(async () => {
   const [labId, draftLabId] = await Promise.all([make(), make()]);
   const pub = await instructor.json(`/api/labs/${labId}`, { method: "PATCH", headers: { "content-type": "application/json" }, body: JSON.stringify({ status: "published" }) });
   expect(pub.status).toBe(200);
-  const meters = await instructor.json(`/api/courses/${f.courseId}/instruments`);
-  expect(meters.status).toBe(200);
-  w = {
-    courseId: f.courseId,
-    labId,
-    draftLabId,
-    questions: pub.body.lab.questions,
-    attemptId: "",
-    memberId: member.id,
-    instructorEmail: f.people.instructor.email,
-    instrumentId: meters.body.instruments[0].id,
-  };
+  w = { courseId: f.courseId, labId, draftLabId, questions: pub.body.lab.questions, attemptId: "", memberId: member.id, instructorEmail: f.people.instructor.email };
   const first = await student.post(`/api/labs/${labId}/attempts`, TARGETS[0].valid());
   expect(first.status).toBe(201);
   w.attemptId = first.body.attempt.id;
