@@ -85,7 +85,11 @@ export interface LabsTable {
   grades_released_at: Timestamp | null;
   /** Weight in the course total; null = weighted by the lab's points. */
   weight: number | null;
+  /** where the readings come from: the real bench, the simulated bench (lib/simulation) or either */
+  bench: Generated<BenchMode>;
 }
+
+export type BenchMode = "real" | "simulated" | "either";
 
 export interface LabVariantsTable {
   lab_id: string;
@@ -140,6 +144,8 @@ export interface AttemptsTable {
   changed_by_staff: Generated<boolean>;
   /** points set by staff per question, applied over the grader's and kept through recomputations */
   overrides: ColumnType<Record<string, StaffOverride>, string | undefined, string>;
+  /** the readings came from the simulated bench */
+  simulated: Generated<boolean>;
 }
 
 export interface StaffOverride {

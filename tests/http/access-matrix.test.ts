@@ -133,7 +133,8 @@ beforeAll(async () => {
   [as.outsider, as.student, as.peer, as.ta, as.instructor, as.admin] = signedIn;
   as.anonymous = new Client();
 
-  const labId = await publishedLab(sendAs(as.instructor), f.courseId, fixedCircuitLab({ title: "Matrix lab" }));
+  // either bench: the simulated bench's routes answer on it too
+  const labId = await publishedLab(sendAs(as.instructor), f.courseId, fixedCircuitLab({ title: "Matrix lab", bench: "either" }));
 
   // both students submit and ask for a review with their mark in the message; the student uploads a file
   // named with their mark
@@ -287,6 +288,9 @@ const ROWS: Record<string, Row> = {
   "PUT /api/labs/[labId]/grades-held": { req: (w) => send("PUT", `${l(w)}/grades-held`), cells: instructors(400) },
   "GET /api/labs/[labId]/handout": { req: (w) => `${l(w)}/handout`, cells: members(200) },
   "GET /api/labs/[labId]/parts": { req: (w) => `${l(w)}/parts`, cells: staff(200) },
+  "GET /api/labs/[labId]/bench": { req: (w) => `${l(w)}/bench`, cells: members(200) },
+  // the student's replay: the student and the staff; the other student is told it does not exist
+  "GET /api/labs/[labId]/bench/readings": { req: (w) => `${l(w)}/bench/readings?range=r50m&count=3&userId=${w.student.id}`, cells: owner(200) },
   "GET /api/attempts/[attemptId]": { req: (w) => a(w), cells: owner(200) },
   "GET /api/attempts/[attemptId]/history": { req: (w) => `${a(w)}/history`, cells: owner(200) },
   "POST /api/attempts/[attemptId]/regrades": { req: (w) => send("POST", `${a(w)}/regrades`), cells: cells(401, 404, 403, 404, 400, 400, 400) },
