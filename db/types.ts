@@ -19,6 +19,17 @@ export interface UsersTable {
   grade_mail: Generated<boolean>;
   /** sessions signed in before this time are void (set when a password is chosen through an e-mailed link) */
   sessions_valid_after: Timestamp | null;
+  /** set by the site admin: the account cannot sign in and its sessions are gone */
+  disabled_at: Timestamp | null;
+}
+
+/** One signed-in browser: its cookie carries the id; signing out deletes the row. */
+export interface SessionsTable {
+  id: Generated<string>;
+  user_id: string;
+  created_at: Generated<Date>;
+  last_seen_at: Generated<Date>;
+  user_agent: string | null;
 }
 
 export interface CoursesTable {
@@ -267,6 +278,7 @@ export interface Database {
   bench_seats: BenchSeatsTable;
   rate_limits: RateLimitsTable;
   users: UsersTable;
+  sessions: SessionsTable;
   courses: CoursesTable;
   memberships: MembershipsTable;
   verification_tokens: VerificationTokensTable;
