@@ -3,7 +3,7 @@ import Link from "next/link";
 import { forbidden } from "next/navigation";
 import { Markdown } from "@/components/labs/handout";
 import { PrintButton } from "@/components/labs/print-button";
-import { Caution } from "@/components/lesson/Caution";
+import { Caution } from "@/components/lesson/caution";
 import { forPage, refused, STAFF } from "@/lib/auth/access";
 import { kitsFor } from "@/lib/benches/kits-service";
 import { labAccess } from "@/lib/labs/attempts";
