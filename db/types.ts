@@ -149,7 +149,7 @@ export interface StaffOverride {
   at: string;
 }
 
-export type GradeEventKind = "graded" | "recomputed" | "override" | "rerun" | "review_answer";
+export type GradeEventKind = "graded" | "recomputed" | "override" | "rerun" | "review_answer" | "exception";
 
 /** Append-only (a trigger refuses UPDATE and DELETE). Attempt-level events carry the raw points total in points_*; question events the question's points. */
 export interface GradeEventsTable {
@@ -243,7 +243,20 @@ export interface BenchSeatsTable {
   bench_id: string;
 }
 
+/** One student's own dates and extra attempts at a lab, with the instructor's reason. */
+export interface LabExceptionsTable {
+  lab_id: string;
+  user_id: string;
+  due_at: Timestamp | null;
+  closes_at: Timestamp | null;
+  extra_attempts: Generated<number>;
+  reason: string;
+  granted_by: string | null;
+  granted_at: Generated<Date>;
+}
+
 export interface Database {
+  lab_exceptions: LabExceptionsTable;
   benches: BenchesTable;
   bench_seats: BenchSeatsTable;
   rate_limits: RateLimitsTable;

@@ -204,3 +204,8 @@ export async function answerReview(db: Db, attemptId: string, answer: string, by
 export async function requestReview(db: Db, attemptId: string, message: string) {
   await db.updateTable("attempts").set({ review_requested_at: new Date(), review_message: message }).where("id", "=", attemptId).execute();
 }
+
+/** A new late penalty on an attempt (its own due date changed): late days, penalty and the score from its raw score. */
+export async function setAttemptPenalty(db: Db, attemptId: string, p: { lateDays: number; penaltyPercent: number; score: number }) {
+  await db.updateTable("attempts").set({ late_days: p.lateDays, penalty_percent: p.penaltyPercent, score: p.score }).where("id", "=", attemptId).execute();
+}

@@ -33,6 +33,8 @@ export interface GradebookStudent {
   /** Weighted percentage over the labs that count so far (past due, or submitted); null when none does. */
   total: number | null;
   cells: Record<string, GradebookCell | null>;
+  /** the reason of each exception the student has (own dates or extra attempts), by lab */
+  exceptions: Record<string, string>;
 }
 
 export interface Gradebook {
@@ -110,13 +112,22 @@ export function gradebookJsonQuery(courseId: string, onlyUser?: string, hideHeld
   const released = hideHeld ? sql`not gl.grades_held` : sql`true`;
   return sql<{ doc: string }>`
     with ${gradebookCtes(courseId, onlyUser, hideHeld)},
+    gx as (
+      -- the students' exceptions in these labs (a handful): their own due dates and the reasons by lab
+      select x.lab_id, x.user_id, x.due_at, x.reason from lab_exceptions x where x.lab_id = any(array(select gl.id from gl))
+    ),
     grid as (
-      -- every (student, lab) pair, kept narrow (the names join back at the end) so its sort stays in memory
+      -- every (student, lab) pair, kept narrow (the names join back at the end) so its sort stays in memory;
+      -- a lab counts once submitted or past the student's own due date
       select gs.ord, gl.ord as lab_ord, gl.id as lab_id, coalesce(gl.weight, gl.max_points) as w,
         gc.attempt_id, gc.score, gc.max_score, gc.late_days, gc.changed_by_staff, gc.attempts, gc.review_open,
-        ((gc.attempt_id is not null or gl.due_at <= now()) and ${released}) as counts
+        ((gc.attempt_id is not null or coalesce(gx.due_at, gl.due_at) <= now()) and ${released}) as counts
       from gs cross join gl
       left join gc on gc.lab_id = gl.id and gc.user_id = gs.user_id
+      left join gx on gx.lab_id = gl.id and gx.user_id = gs.user_id
+    ),
+    gxs as (
+      select gx.user_id, string_agg(concat('"', gx.lab_id, '":', to_json(gx.reason)::text), ',') as exceptions from gx group by gx.user_id
     ),
     gcells as (
       select ord,
@@ -134,8 +145,8 @@ export function gradebookJsonQuery(courseId: string, onlyUser?: string, hideHeld
     grow as (
       select gs.ord, concat('{"userId":"', gs.user_id, '","name":', to_json(gs.name), ',"email":', to_json(gs.email),
         ',"section":', coalesce(to_json(gs.section)::text, 'null'), ',"total":', coalesce(gcells.total::text, 'null'),
-        ',"cells":{', gcells.cells, '}}') as student
-      from gs left join gcells on gcells.ord = gs.ord
+        ',"cells":{', gcells.cells, '},"exceptions":{', gxs.exceptions, '}}') as student
+      from gs left join gcells on gcells.ord = gs.ord left join gxs on gxs.user_id = gs.user_id
     )
     select concat(
       '{"labs":', coalesce((select json_agg(json_build_object(

@@ -5,7 +5,7 @@ import type { LabDataColumn } from "@/db/queries/labs";
 import { drawVariant, gradePolicySchema, questionSchema, TEMPLATE_KEYS, templates, variantSpecSchema, type TemplateKey } from "@/lib/grader";
 
 // An ISO date-time from a form or a request, or a Date already read (a PATCH merged into a stored lab).
-const isoDate = z
+export const isoDate = z
   .union([z.date(), z.iso.datetime({ offset: true, local: true }), z.literal(""), z.null()])
   .transform((v) => (v instanceof Date ? v : v ? new Date(v) : null))
   .refine((d) => d === null || !Number.isNaN(d.getTime()), { message: "Enter a valid date and time." });

@@ -281,6 +281,9 @@ const ROWS: Record<string, Row> = {
   "PATCH /api/labs/[labId]": { req: (w) => send("PATCH", l(w)), cells: instructors(400) },
   "GET /api/labs/[labId]/attempts": { req: (w) => `${l(w)}/attempts`, cells: members(200) },
   "POST /api/labs/[labId]/attempts": { req: (w) => send("POST", `${l(w)}/attempts`), cells: members(400) },
+  "PUT /api/labs/[labId]/exceptions/[userId]": { req: (w) => send("PUT", `${l(w)}/exceptions/${w.student.id}`), cells: instructors(400) },
+  // the outsider has no exception (and is no student): an allowed caller is told so, nothing changes
+  "DELETE /api/labs/[labId]/exceptions/[userId]": { req: (w) => send("DELETE", `${l(w)}/exceptions/${w.outsider.id}`, ""), cells: instructors(404) },
   "PUT /api/labs/[labId]/grades-held": { req: (w) => send("PUT", `${l(w)}/grades-held`), cells: instructors(400) },
   "GET /api/labs/[labId]/handout": { req: (w) => `${l(w)}/handout`, cells: members(200) },
   "GET /api/labs/[labId]/parts": { req: (w) => `${l(w)}/parts`, cells: staff(200) },

@@ -285,6 +285,14 @@ const TARGETS: Target[] = [
     weight: 3,
   },
   {
+    name: "PUT /api/labs/{labId}/exceptions/{userId}",
+    who: "instructor",
+    method: "PUT",
+    path: () => `/api/labs/${w.labId}/exceptions/${w.memberId}`,
+    valid: () => ({ dueAt: "2031-05-01T12:00:00Z", closesAt: "2031-05-03T12:00:00Z", extraAttempts: 1, reason: "Fuzzed reason" }),
+    weight: 3,
+  },
+  {
     name: "PUT /api/labs/{labId}/grades-held",
     who: "instructor",
     method: "PUT",
