@@ -29,6 +29,7 @@ const ATTEMPT_COLUMNS = [
   "a.review_answered_by as reviewAnsweredBy",
   "a.changed_by_staff as changedByStaff",
   "a.overrides",
+  "a.simulated",
 ] as const;
 
 export async function findAttempt(db: Db, attemptId: string) {
@@ -85,6 +86,8 @@ export interface AttemptWrite {
   graderVersion: string;
   labVersion: number;
   submittedAt: Date;
+  /** the readings came from the simulated bench */
+  simulated?: boolean;
 }
 
 function attemptValues(a: AttemptWrite) {
@@ -106,6 +109,7 @@ function attemptValues(a: AttemptWrite) {
     lab_version: a.labVersion,
     submitted_at: a.submittedAt,
     graded_at: a.submittedAt,
+    simulated: a.simulated ?? false,
   };
 }
 

@@ -5,7 +5,7 @@
 // to this module's queries only: the rest of the project's queries are written against the snake_case
 // tables of db/types.ts, and a global plugin would rename every one of them.
 import { CamelCasePlugin, sql, type Insertable, type Kysely, type Selectable, type Transaction, type Updateable } from "kysely";
-import type { CoursesTable, Database, LabExceptionsTable, LabStatus, LabsTable, LabVariantsTable, MembershipsTable, Role } from "../types";
+import type { BenchMode, CoursesTable, Database, LabExceptionsTable, LabStatus, LabsTable, LabVariantsTable, MembershipsTable, Role } from "../types";
 
 type Db = Kysely<Database> | Transaction<Database>;
 
@@ -48,6 +48,7 @@ export const LAB_DATA_COLUMNS = [
   "showExpected",
   "instructions",
   "safetyNotes",
+  "bench",
 ] as const;
 export type LabDataColumn = (typeof LAB_DATA_COLUMNS)[number];
 
@@ -159,11 +160,13 @@ export async function listLabs(db: Db, courseId: string, opts: { publishedOnly: 
  * (lib/labs/grading.ts withIds). The JSON fields are written as given; the close may be left out: no
  * explicit close.
  */
-export type LabWrite = Pick<Selectable<Camel<LabsTable>>, Exclude<LabDataColumn, "spec" | "questions" | "policy" | "closesAt">> & {
+export type LabWrite = Pick<Selectable<Camel<LabsTable>>, Exclude<LabDataColumn, "spec" | "questions" | "policy" | "closesAt" | "bench">> & {
   spec: unknown;
   questions: ({ id: string } & Record<string, unknown>)[];
   policy: unknown;
   closesAt?: Date | null;
+  /** left out: the real bench (the column's default) */
+  bench?: BenchMode;
 };
 
 /** The JSON fields as JSON text; a field left out stays out (Kysely skips undefined values). */

@@ -4,7 +4,7 @@ import "server-only";
 import { db } from "@/db";
 import type { Database, Role } from "@/db/types";
 import type { Kysely, Transaction } from "kysely";
-import { countAttempts, findAttempt, insertGradedAttempt, listAttempts, lockStudentLab, submissionState, type AttemptRow } from "@/db/queries/attempts";
+import { countAttempts, findAttempt, insertGradedAttempt, listAttempts, lockStudentLab, submissionState, type AttemptRow, type AttemptWrite } from "@/db/queries/attempts";
 import { findLabForMember, findVariant, insertLab, listLabs, storeVariant } from "@/db/queries/labs";
 import { findUploads, lockUploadsForAttempt } from "@/db/queries/uploads";
 import { assertRole, courseAccess, currentUser, EVERYONE, isStaff, type CourseAccess } from "@/lib/auth/access";
@@ -65,6 +65,16 @@ export interface SubmitInput {
   readings: Record<string, string | null>;
   measured: Record<string, string | null>;
   uploadIds: string[];
+  /** the readings came from the simulated bench (only a lab that allows either asks) */
+  simulated?: boolean;
+}
+
+/** Whether an attempt's readings came from the simulated bench: the lab decides, or the student where it allows either. */
+export function attemptSimulated(lab: Pick<Lab, "bench">, said: boolean | undefined): boolean {
+  if (lab.bench === "real" && said) {
+    throw new AppError("bad_request", "This lab is taken on the real bench.", { simulated: ["This lab has no simulated bench."] });
+  }
+  return lab.bench === "simulated" || (lab.bench === "either" && said === true);
 }
 
 /**
@@ -85,6 +95,7 @@ export async function submitAttempt(
     throw new AppError("bad_request", `These readings answer no question of this lab: ${unknown.join(", ")}.`, Object.fromEntries(unknown.map((k) => [`readings.${k}`, ["This lab has no such question."]])));
   }
   checkReadings(lab, input.readings);
+  const simulated = attemptSimulated(lab, input.simulated);
   const measured = parseMeasured(lab, input.measured);
   const userId = access.user.id;
 
@@ -109,7 +120,7 @@ export async function submitAttempt(
     }
     const params = (state.params as Params | null) ?? (await drawVariantFor(lab, userId, trx));
     const result = gradeForLab(lab, params, input.readings, measured, traces);
-    const record = attemptRecord({
+    const record: AttemptWrite = attemptRecord({
       lab,
       userId,
       number: state.used + 1,
@@ -121,6 +132,7 @@ export async function submitAttempt(
       result,
       submittedAt: now,
     });
+    record.simulated = simulated;
     // the attempt and its "graded" event are one statement
     const attempt = await insertGradedAttempt(trx, record);
     // the message is queued in this transaction: no grade without its e-mail job, no job without its grade.
@@ -203,6 +215,8 @@ export function presentAttempt(attempt: AttemptRow, lab: Lab, viewerIsStaff: boo
     reviewAnsweredAt: attempt.reviewAnsweredAt,
     reviewOpen: reviewIsOpen(attempt),
     changedByStaff: attempt.changedByStaff,
+    /** the readings came from the simulated bench */
+    simulated: attempt.simulated,
   };
 }
 

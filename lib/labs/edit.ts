@@ -37,6 +37,7 @@ export function labAsInput(lab: Lab) {
     showExpected: lab.showExpected,
     instructions: lab.instructions,
     safetyNotes: lab.safetyNotes,
+    bench: lab.bench,
   };
 }
 

@@ -1,6 +1,7 @@
 // Grading a lab's attempt from stored data: no framework, session or request objects, so the web
 // server, the regrade job and the tests share it.
 import type { findLab } from "@/db/queries/labs";
+import type { BenchMode } from "@/db/types";
 import { AppError } from "@/lib/errors";
 import {
   componentTolerancesFromSpec,
@@ -35,6 +36,8 @@ export interface Lab extends LabRules {
   updatedAt: Date;
   /** students see "graded, not yet released" and get no grade e-mail until the instructor releases */
   gradesHeld: boolean;
+  /** where students take their readings: the real bench, the simulated bench, or either */
+  bench: BenchMode;
   /**
    * The viewing student's own exception, already applied to the dates and attempts above (null for
    * everyone else): see `forStudent`.

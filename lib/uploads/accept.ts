@@ -8,7 +8,7 @@ import { fileTypeFromBuffer } from "file-type";
 import { db } from "@/db";
 import { deleteUnattachedUploads, insertUpload, lockOwnerUploads, storedBytes, type UploadRow } from "@/db/queries/uploads";
 import { AppError } from "@/lib/errors";
-import { deleteObjects, maxUploadBytes, putObject, signedUrl, unattachedUploadHours, uploadQuotaBytes } from "@/lib/uploads/storage";
+import { deleteObjects, downloadName, maxUploadBytes, putObject, signedUrl, unattachedUploadHours, uploadQuotaBytes } from "@/lib/uploads/storage";
 import { analyzeTrace } from "@/lib/trace";
 import type { Params } from "@/lib/grader";
 
@@ -124,7 +124,7 @@ export async function uploadView(u: UploadRow) {
     originalName: u.originalName,
     createdAt: u.createdAt,
     analysis: u.analysis,
-    url: await signedUrl(u.storageKey, 60, u.originalName),
+    url: await signedUrl(u.storageKey, 60, downloadName(u.originalName, u.contentType)),
     urlExpiresInSeconds: 60,
   };
 }

@@ -18,6 +18,8 @@ import type { FormMeasured, FormQuestion } from "@/components/labs/submit/read";
 import { utcDate } from "@/lib/dates";
 import { attemptsLeftText, lateRuleText } from "@/lib/labs/wording";
 import { SubmissionForm } from "@/components/labs/submit/submission-form";
+import { BenchLauncher } from "@/components/labs/bench/bench-launcher";
+import { hasSimulatedBench } from "@/lib/simulation/circuits";
 import { VERDICT_ORDER, VERDICTS, points, verdictCounts, verdictSummary } from "@/components/labs/feedback/verdict";
 
 export const metadata: Metadata = { title: "Lab" };
@@ -169,9 +171,15 @@ export default async function LabPage({ params }: { params: Promise<{ labId: str
             You have used all your attempts. Open an attempt above to see its feedback or to ask for a review.
           </p>
         ) : (
-          <SubmissionForm labId={lab.id} questions={questions} components={components} />
+          <SubmissionForm labId={lab.id} questions={questions} components={components} bench={lab.bench} />
         )}
       </section>
+
+      {lab.bench !== "real" && hasSimulatedBench(lab.templateKey) ? (
+        <div className="no-print mt-6">
+          <BenchLauncher labId={lab.id} />
+        </div>
+      ) : null}
     </>
   );
 }
