@@ -127,6 +127,8 @@ export async function uploadView(u: UploadRow) {
     status: u.status,
     progress: u.progress,
     failure: u.failure,
+    /** the samples are kept for zooming (GET /api/uploads/{id}/trace) */
+    zoomable: u.zoomable,
     url: await signedUrl(u.storageKey, 60, u.originalName),
     urlExpiresInSeconds: 60,
   };

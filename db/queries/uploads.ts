@@ -23,12 +23,12 @@ const UPLOAD_COLUMNS = [
 ] as const;
 
 export async function findUpload(db: Db, id: string) {
-  return db.selectFrom("uploads").select(UPLOAD_COLUMNS).where("id", "=", id).executeTakeFirst();
+  return db.selectFrom("uploads").select(UPLOAD_COLUMNS).select(sql<boolean>`samples is not null`.as("zoomable")).where("id", "=", id).executeTakeFirst();
 }
 
 export async function findUploads(db: Db, ids: string[]) {
   if (ids.length === 0) return [];
-  return db.selectFrom("uploads").select(UPLOAD_COLUMNS).where("id", "in", ids).execute();
+  return db.selectFrom("uploads").select(UPLOAD_COLUMNS).select(sql<boolean>`samples is not null`.as("zoomable")).where("id", "in", ids).execute();
 }
 
 export type UploadRow = NonNullable<Awaited<ReturnType<typeof findUpload>>>;
