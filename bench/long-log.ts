@@ -14,6 +14,8 @@ import { spawn } from "node:child_process";
 import fs from "node:fs";
 import path from "node:path";
 import { once } from "node:events";
+import { createDb } from "../db";
+import { migrateToLatest } from "../db/migrator";
 import { atEnd, cfg, runBench, scratchDatabase } from "./lib";
 import { freePort } from "../scripts/lib/processes";
 import { startStandIns } from "../scripts/lib/standins";
@@ -63,6 +65,12 @@ async function writeLog(file: string): Promise<number> {
 
 runBench(async () => {
   const url = await scratchDatabase("shuntwise_bench_long_log");
+  const db = createDb(url, 2);
+  try {
+    await migrateToLatest(db);
+  } finally {
+    await db.destroy();
+  }
   const dataDir = path.join(cfg.dataDir, "bench-long-log");
   const s3Port = await freePort(cfg.s3Port + 17, "127.0.0.1", []);
   const smtpPort = await freePort(cfg.smtpPort + 17, "127.0.0.1", [s3Port]);

@@ -25,6 +25,11 @@ function s3(): S3Client {
     endpoint: process.env.S3_ENDPOINT,
     region: process.env.S3_REGION ?? "us-east-1",
     forcePathStyle: true,
+    // no checksums unless the operation needs one: a streamed body is then sent as it is (not in
+    // aws-chunked framing, which S3-compatible stores such as the local stand-in may store verbatim), and
+    // signed part URLs carry no checksum of an empty body
+    requestChecksumCalculation: "WHEN_REQUIRED",
+    responseChecksumValidation: "WHEN_REQUIRED",
     credentials: {
       accessKeyId: process.env.S3_ACCESS_KEY_ID ?? "S3RVER",
       secretAccessKey: process.env.S3_SECRET_ACCESS_KEY ?? "S3RVER",

@@ -8,7 +8,6 @@ import { formatQuantity } from "@/lib/grader/format";
 import { toApiError } from "@/lib/api-client";
 import { uploadErrorMessage } from "./read";
 import { sendUpload, type UploadedFile } from "./upload";
-import { followAnalysis, sendDirect } from "./direct-upload";
 
 type State =
   | { step: "idle" }
@@ -66,6 +65,8 @@ export function FileField({
     onBusy(true);
     setState({ step: "uploading", name: file.name, fraction: 0 });
     const stop = { stopped: false };
+    // the upload client (Uppy) is loaded only when a trace is chosen: the lab page's first load stays light
+    const { followAnalysis, sendDirect } = await import("./direct-upload");
     const { done, abort } = sendDirect(file, labId, {
       onProgress: (fraction) => setState((s) => (s.step === "uploading" && s.name === file.name ? { step: "uploading", name: s.name, fraction } : s)),
       onRetrying: () => setState((s) => (s.step === "uploading" && s.name === file.name ? { ...s, retrying: true } : s)),
