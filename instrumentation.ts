@@ -4,6 +4,6 @@
 export async function register() {
   if (process.env.NEXT_RUNTIME !== "nodejs" || !process.env.DATABASE_URL) return;
   if (process.env.SHUNTWISE_NO_WORKERS === "1") return;
-  const { startWorkersRetrying } = await import("./lib/workers");
+  const { startWorkersRetrying } = await import("./lib/jobs/workers");
   void startWorkersRetrying();
 }

@@ -34,7 +34,8 @@ const nextConfig = {
 const withMDX = createMDX({
   options: {
     // Under Turbopack the plugins are named as strings so the options stay serialisable.
-    remarkPlugins: ["remark-math"],
+    // remark-gfm: GitHub-flavoured tables (and strikethrough, autolinks) in the lessons.
+    remarkPlugins: ["remark-gfm", "remark-math"],
     rehypePlugins: [["rehype-katex", { strict: false, output: "html" }]],
   },
 });

@@ -12,7 +12,7 @@ import * as chromeLauncher from "chrome-launcher";
 import lighthouse from "lighthouse";
 import { createDb } from "../db";
 import { migrateToLatest } from "../db/migrator";
-import { seedDemo } from "../db/seed/demo";
+import { seedDemo } from "../scripts/seed/demo";
 import { atEnd, benchEnv, build, runBench, scratchDatabase, sessionCookie, startApp } from "./lib";
 
 const DB_NAME = "shuntwise_bench_pages";

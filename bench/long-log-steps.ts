@@ -55,7 +55,7 @@ async function job() {
 async function parse() {
   const { db } = await import("../db");
   const { findUpload } = await import("../db/queries/uploads");
-  const { getObjectStream } = await import("../lib/storage");
+  const { getObjectStream } = await import("../lib/uploads/storage");
   const row = (await findUpload(db, process.env.BENCH_UPLOAD!))!;
   await db.destroy();
   const t0 = performance.now();

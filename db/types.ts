@@ -241,7 +241,27 @@ export interface RateLimitsTable {
   expire: string | null;
 }
 
+/** A bench of a course: where one to four students work together (lib/benches). */
+export interface BenchesTable {
+  id: Generated<string>;
+  course_id: string;
+  name: string;
+  section: string | null;
+  /** the order the instructor arranged them in */
+  position: Generated<number>;
+  created_at: Generated<Date>;
+}
+
+/** Who sits at which bench: a student at most one bench per course. */
+export interface BenchSeatsTable {
+  course_id: string;
+  user_id: string;
+  bench_id: string;
+}
+
 export interface Database {
+  benches: BenchesTable;
+  bench_seats: BenchSeatsTable;
   rate_limits: RateLimitsTable;
   users: UsersTable;
   courses: CoursesTable;

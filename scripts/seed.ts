@@ -1,6 +1,6 @@
 // `npm run db:seed`: adds the demo course to the database at DATABASE_URL (or the local one).
 import { createDb } from "../db";
-import { seedDemo } from "../db/seed/demo";
+import { seedDemo } from "./seed/demo";
 import { serviceConfig } from "./lib/config";
 import { localDatabaseUrl } from "./lib/postgres";
 

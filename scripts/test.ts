@@ -13,13 +13,13 @@ import fs from "node:fs";
 import path from "node:path";
 import { createDb } from "../db";
 import { migrateToLatest } from "../db/migrator";
-import { seedDemo } from "../db/seed/demo";
-import { seedStorageFromEnv } from "../db/seed/storage";
+import { seedDemo } from "./seed/demo";
+import { seedStorageFromEnv } from "./seed/storage";
 import { appEnv } from "./lib/app-env";
 import { buildIfStale } from "./lib/build";
 import { databaseUrl, root, serviceConfig } from "./lib/config";
 import { ensurePostgres, recreateDatabase, stopPostgres } from "./lib/postgres";
-import { RUN_ID_VAR, alive, freePort, stopPids, sweepRun } from "./lib/processes";
+import { RUN_ID_VAR, alive, freePort, portTaken, stopPids, sweepRun } from "./lib/processes";
 import { startNext, waitForHttp } from "./lib/server";
 import { startStandIns } from "./lib/standins";
 
@@ -29,16 +29,21 @@ const runId = crypto.randomUUID();
 process.env[RUN_ID_VAR] = runId; // inherited by every process this run starts
 const runFile = path.join(cfg.dataDir, "test-run.json");
 
-function ensureChromium() {
-  const exe = process.env.CHROMIUM_PATH ?? "/usr/bin/chromium";
+/** A Debian package the tests run (chromium for the browser tests, ngspice for the circuit-simulator checks). */
+function ensureDebianPackage(exe: string, pkg: string) {
   if (fs.existsSync(exe)) return;
-  console.log("Chromium is not installed: installing Debian's chromium package for the browser tests…");
+  console.log(`${pkg} is not installed: installing Debian's ${pkg} package for the tests…`);
   const sudo = process.getuid?.() === 0 ? [] : ["sudo", "-n"];
-  for (const args of [["apt-get", "update", "-qq"], ["apt-get", "install", "-y", "-qq", "chromium"]]) {
+  for (const args of [["apt-get", "update", "-qq"], ["apt-get", "install", "-y", "-qq", pkg]]) {
     const full = [...sudo, ...args];
     const r = spawnSync(full[0], full.slice(1), { stdio: "inherit", env: { ...process.env, DEBIAN_FRONTEND: "noninteractive" } });
-    if (r.status !== 0) throw new Error(`"${full.join(" ")}" failed; install chromium (apt-get install chromium) and run again.`);
+    if (r.status !== 0) throw new Error(`"${full.join(" ")}" failed; install ${pkg} (apt-get install ${pkg}) and run again.`);
   }
+}
+
+function ensureTestPackages() {
+  ensureDebianPackage(process.env.CHROMIUM_PATH ?? "/usr/bin/chromium", "chromium");
+  ensureDebianPackage("/usr/bin/ngspice", "ngspice");
 }
 
 
@@ -171,14 +176,15 @@ async function main(): Promise<Counts> {
   for (const name of cfg.databases) await recreateDatabase(cfg, name);
   const testUrl = databaseUrl(cfg, "shuntwise_test");
   const e2eUrl = databaseUrl(cfg, "shuntwise_e2e");
-  ensureChromium();
+  ensureTestPackages();
   for (const key of ["appPort", "s3Port", "smtpPort"] as const) {
     const port = await pick(cfg[key]);
     if (port !== cfg[key]) console.log(`Port ${cfg[key]} is taken; using ${port} instead.`);
     cfg[key] = port;
   }
   // the whole suite signs in from 127.0.0.1: per-address throttles scaled up (per-account ones unchanged)
-  const env = { ...appEnv(cfg, e2eUrl), SHUNTWISE_PER_ADDRESS_FACTOR: process.env.SHUNTWISE_PER_ADDRESS_FACTOR ?? "100" };
+  const testEnv = () => ({ ...appEnv(cfg, e2eUrl), SHUNTWISE_PER_ADDRESS_FACTOR: process.env.SHUNTWISE_PER_ADDRESS_FACTOR ?? "100" });
+  let env = testEnv();
   standIns = await startStandIns(cfg);
   for (const url of [testUrl, e2eUrl]) {
     const db = createDb(url, 2);
@@ -190,9 +196,26 @@ async function main(): Promise<Counts> {
     }
   }
   await buildIfStale(DIST, env);
-  const server = track(startNext({ distDir: DIST, port: cfg.appPort, host: cfg.appHost, env, quiet: true }));
+  // The build takes minutes: another run on this machine may have taken the app's port meanwhile.
+  // Check it again just before starting, and start on another free port when the server cannot listen.
+  let server: ChildProcess;
+  for (let tries = 1; ; tries++) {
+    if (await portTaken(cfg.appPort, cfg.appHost)) {
+      const port = await pick(cfg.appPort);
+      console.log(`Port ${cfg.appPort} was taken during the build; using ${port} instead.`);
+      cfg.appPort = port;
+      env = testEnv();
+    }
+    server = track(startNext({ distDir: DIST, port: cfg.appPort, host: cfg.appHost, env, quiet: true }));
+    try {
+      await waitForHttp(`http://${cfg.appHost}:${cfg.appPort}/api/health`, server);
+      break;
+    } catch (e) {
+      if (server.exitCode === null || tries >= 5) throw e;
+      taken.push(cfg.appPort);
+    }
+  }
   const url = `http://${cfg.appHost}:${cfg.appPort}`;
-  await waitForHttp(`${url}/api/health`, server);
   console.log(`App under test on ${url}.`);
   const tiers = await runVitest(
     {

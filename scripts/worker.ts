@@ -9,8 +9,8 @@ async function main() {
   process.env.DATABASE_URL ??= await localDatabaseUrl(cfg);
   process.env.SMTP_URL ??= `smtp://127.0.0.1:${cfg.smtpPort}`;
   process.env.APP_URL ??= process.env.NEXTAUTH_URL ?? `http://127.0.0.1:${cfg.appPort}`;
-  const { boss } = await import("../lib/jobs");
-  const { startWorkersRetrying } = await import("../lib/workers");
+  const { boss } = await import("../lib/jobs/queue");
+  const { startWorkersRetrying } = await import("../lib/jobs/workers");
   await startWorkersRetrying();
   console.log("Shuntwise worker is running (graded e-mail and lab recomputations). Ctrl-C stops it.");
   let stopping = false;

@@ -5,10 +5,10 @@ import { db } from "@/db";
 import { listAllCourses, listCoursesForUser } from "@/db/queries/courses";
 import { listLabs } from "@/db/queries/labs";
 import { currentUser, isStaff } from "@/lib/auth/access";
-import { staffHome, studentHome } from "@/lib/home/load";
-import { timeLeft } from "@/lib/home/summary";
+import { staffHome, studentHome } from "@/lib/courses/home";
+import { timeLeft } from "@/lib/courses/home-summary";
 import { toLab } from "@/lib/labs/grading";
-import { roleLabel } from "@/lib/roles";
+import { roleLabel } from "@/lib/auth/roles";
 import { AllCourses } from "@/components/course/all-courses";
 import { when } from "@/components/course/home-parts";
 

@@ -4,7 +4,7 @@ import Link from "next/link";
 import { redirect } from "next/navigation";
 import { listLessons } from "@/lib/lessons";
 import { currentUser } from "@/lib/auth/access";
-import { readableLessonSlugs } from "@/lib/course-lessons";
+import { readableLessonSlugs } from "@/lib/courses/lesson-plan";
 import { AppHeader } from "@/components/shell/app-header";
 
 export const metadata: Metadata = { title: "Lessons" };

@@ -6,7 +6,7 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Field, FormMessage } from "@/components/ui/field";
 import { useHydrated } from "@/components/ui/use-hydrated";
-import { api, isApiError } from "@/lib/api-client";
+import { api, isApiError } from "@/lib/http/client";
 import { resetRequestSchema, type ResetRequestInput } from "@/lib/validation/mail";
 
 export function ForgotPasswordForm() {

@@ -6,7 +6,7 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Field, FormMessage } from "@/components/ui/field";
 import { useHydrated } from "@/components/ui/use-hydrated";
-import { api, isApiError } from "@/lib/api-client";
+import { api, isApiError } from "@/lib/http/client";
 import { resetConfirmSchema, type ResetConfirmInput } from "@/lib/validation/mail";
 
 export function ResetPasswordForm({ token }: { token: string }) {

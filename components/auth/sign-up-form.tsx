@@ -4,11 +4,14 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { signIn } from "next-auth/react";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
-import { signUpAction } from "@/app/(auth)/signup/actions";
 import { Field, FormMessage } from "@/components/ui/field";
+import type { FieldErrors } from "@/lib/errors";
 import { signUpSchema, type SignUpInput } from "@/lib/validation/auth";
 
-export function SignUpForm({ joinCode }: { joinCode?: string }) {
+/** What the sign-up server action answers (app/(auth)/signup/actions.ts, passed in by the page). */
+export type SignUpState = { ok: true; courseId: string } | { ok: false; message: string; fields?: FieldErrors };
+
+export function SignUpForm({ joinCode, signUpAction }: { joinCode?: string; signUpAction: (input: unknown) => Promise<SignUpState> }) {
   const [message, setMessage] = useState<string | null>(null);
   const { register, handleSubmit, formState, setError } = useForm<SignUpInput>({
     resolver: zodResolver(signUpSchema),

@@ -1,6 +1,6 @@
 // Pieces of the course home pages: what a student should do next, and what the staff should look at.
 import Link from "next/link";
-import { timeLeft, type StudentSummary } from "@/lib/home/summary";
+import { timeLeft, type StudentSummary } from "@/lib/courses/home-summary";
 
 export function when(d: Date | string | null | undefined): string {
   if (!d) return "";

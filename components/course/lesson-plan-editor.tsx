@@ -5,7 +5,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { useFieldArray, useForm } from "react-hook-form";
 import { FormMessage } from "@/components/ui/field";
-import { api, isApiError } from "@/lib/api-client";
+import { api, isApiError } from "@/lib/http/client";
 import { toLocalInput } from "@/lib/dates";
 import { lessonPlanSchema, type LessonPlan, type LessonPlanInput } from "@/lib/validation/course-lessons";
 

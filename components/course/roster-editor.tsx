@@ -8,7 +8,7 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Field, FormMessage } from "@/components/ui/field";
 import type { Role } from "@/db/types";
-import { roleLabel } from "@/lib/roles";
+import { roleLabel } from "@/lib/auth/roles";
 import { addMemberSchema, type AddMemberInput } from "@/lib/validation/members";
 import { sendJson } from "./send-json";
 

@@ -4,7 +4,7 @@
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { FormMessage } from "@/components/ui/field";
-import type { ImportOutcome, ImportRow } from "@/lib/roster/csv";
+import type { ImportOutcome, ImportRow } from "@/lib/courses/roster-csv";
 import { sendJson } from "./send-json";
 
 const OUTCOME: Record<ImportOutcome, { label: string; good: boolean }> = {
@@ -45,7 +45,8 @@ export function RosterImport({ courseId }: { courseId: string }) {
     <section className="card mt-6" aria-labelledby="import-title">
       <h2 id="import-title" className="text-lg">Import students from a CSV</h2>
       <p className="mt-1 text-sm text-ink-soft">
-        One student a line: name, e-mail, section (a header row naming the columns is fine). You see what each row
+        One student a line: name, e-mail, section and, if you like, bench (a header row naming the columns is fine;
+        a bench that does not exist yet is made, at most four students at one). You see what each row
         would do before anything is saved. Students without an account get an e-mail with a link to choose a password.
       </p>
       <FormMessage message={note?.text} tone={note?.tone} />
@@ -90,6 +91,7 @@ export function RosterImport({ courseId }: { courseId: string }) {
               <th scope="col" className="px-3 py-1">Name</th>
               <th scope="col" className="px-3 py-1">E-mail</th>
               <th scope="col" className="px-3 py-1">Section</th>
+              <th scope="col" className="px-3 py-1">Bench</th>
               <th scope="col" className="px-3 py-1">What happens</th>
             </tr>
           </thead>
@@ -100,6 +102,7 @@ export function RosterImport({ courseId }: { courseId: string }) {
                 <td className="px-3 py-1">{r.name}</td>
                 <td className="px-3 py-1 font-mono text-xs">{r.email}</td>
                 <td className="px-3 py-1">{r.section ?? "—"}</td>
+                <td className="px-3 py-1">{r.bench ?? "—"}</td>
                 <td className={`px-3 py-1 ${OUTCOME[r.outcome].good ? "" : "text-verdict-wrong"}`}>
                   {OUTCOME[r.outcome].label}
                   {r.message ? `: ${r.message}` : ""}

@@ -1,6 +1,6 @@
 // Course-administration forms call the API through the shared JSON client and show its message and
 // field errors in place.
-import { api, isApiError, type ApiOptions, type FieldErrors } from "@/lib/api-client";
+import { api, isApiError, type ApiOptions, type FieldErrors } from "@/lib/http/client";
 
 export async function sendJson<T>(method: NonNullable<ApiOptions["method"]>, url: string, body?: unknown): Promise<{ ok: true; data: T } | { ok: false; message: string; fields?: FieldErrors }> {
   try {

@@ -8,7 +8,7 @@ import { useVirtualizer } from "@tanstack/react-virtual";
 import Link from "next/link";
 import { useMemo, useRef, useState } from "react";
 import type { Gradebook, GradebookStudent } from "@/db/queries/gradebook";
-import { api } from "@/lib/api-client";
+import { api } from "@/lib/http/client";
 import { cellMarkers, filterStudents, formatScore, MARKERS, sectionsOf } from "@/lib/gradebook/view";
 
 const features = tableFeatures({

@@ -6,7 +6,7 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { FormMessage } from "@/components/ui/field";
-import { api, isApiError } from "@/lib/api-client";
+import { api, isApiError } from "@/lib/http/client";
 import { labWeightsSchema, type LabWeights, type LabWeightsInput } from "@/lib/validation/gradebook";
 
 export function WeightsForm({ courseId, labs }: { courseId: string; labs: { id: string; title: string; weight: number | null; maxPoints: number }[] }) {

@@ -1,7 +1,7 @@
 "use client";
 // Progress of a lab's regrade job: polls GET /api/labs/{labId} until the latest regrade is done or failed.
 import { useQuery } from "@tanstack/react-query";
-import { api } from "@/lib/api-client";
+import { api } from "@/lib/http/client";
 
 type Regrade = { id?: string; status: "queued" | "running" | "done" | "failed"; total: number; done: number };
 

@@ -4,8 +4,8 @@ import { uncertaintyBudget, type BudgetRow } from "@/lib/grader";
 import { getExample } from "@/lib/lessons/examples";
 import { formatAuto } from "@/lib/lessons/format";
 
-const SI_TEXT: Record<string, string> = { V: "V", ohm: "Ω", K: "K" };
-const C_UNIT: Record<BudgetRow["sensitivityUnit"], string> = { "A/V": "A/V", "A/ohm": "A/Ω", "A/K": "A/K", A: "A" };
+const SI_TEXT: Record<string, string> = { V: "V", ohm: "Ω", K: "K", A: "A" };
+const C_UNIT: Record<BudgetRow["sensitivityUnit"], string> = { "A/V": "A/V", "A/ohm": "A/Ω", "A/K": "A/K", A: "A", "A/A": "A/A" };
 
 /** A bound or a standard uncertainty in its input's unit; relative inputs as a percentage. */
 function inUnit(value: number, unit: string): string {
@@ -42,7 +42,7 @@ export function BudgetTable({ ex }: { ex: string }) {
           </tr>
         </thead>
         <tbody>
-          {b.rows.map((row) => (
+          {b.rows.filter((row) => row.contribution > 0).map((row) => (
             <tr key={row.key} className={`border-b border-ink/10 ${row.key === b.dominant ? "font-semibold" : ""}`} data-row={row.key}>
               <th scope="row" className="py-1 pr-3 text-left font-normal">
                 {row.key}

@@ -2,7 +2,7 @@
 // One "Check yourself" question: the student types an answer with its unit, the server checks it with
 // gradeAttempt (ungraded) and returns the verdict and the worked solution already typeset.
 import { useId, useState, useTransition } from "react";
-import { checkAnswer, type CheckResult } from "@/app/lessons/actions";
+import { checkAnswer, type CheckResult } from "./check-question-action";
 
 const verdictText: Record<string, { label: string; className: string }> = {
   correct: { label: "Correct", className: "text-verdict-correct" },

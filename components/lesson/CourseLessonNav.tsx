@@ -3,7 +3,7 @@
 // client-side data fetching. Without a course in the address, or one that does not grant the lesson,
 // nothing is shown.
 import Link from "next/link";
-import { coursePlan, lessonsForStudents, type LessonCourse } from "@/lib/course-lessons";
+import { coursePlan, lessonsForStudents, type LessonCourse } from "@/lib/courses/lesson-plan";
 
 export async function CourseLessonNav({ slug, course }: { slug: string; course: LessonCourse }) {
   const staff = course.role === "ta" || course.role === "instructor";

@@ -95,6 +95,19 @@ function slowRecord(T: number, tb: number, flog: number, ia: number, is: number,
   return { x, y };
 }
 
+/**
+ * Whether the slow record shows every pass of the phase through the burst (PHYSICS.md §16 16e, 16f): each
+ * sample moves f_a·T/f_log through the cycle; a burst at least that wide shows once every 1/f_a, a narrower
+ * one on average once every T/(t_b·f_log), or never, by phase.
+ */
+function burstCaption(T: number, tb: number, flog: number, alias: number): string {
+  if (!(alias > 0)) return `A wake every ${formatAuto(T, "s")} lands at the same phase every time: the logger sees every wake or none.`;
+  const step = (alias * T) / flog;
+  return tb >= step
+    ? `Each sample moves ${formatAuto(step, "s")} through the wake cycle, less than the burst: a burst shows once every ${formatAuto(1 / alias, "s")}.`
+    : `Each sample moves ${formatAuto(step, "s")} through the wake cycle, more than the ${formatAuto(tb, "s")} burst: samples land in a burst on average once every ${formatAuto(T / (tb * flog), "s")}, or never, depending on phase.`;
+}
+
 export function BurstSamplingCalculator() {
   const f = useQuantityFields(burstDefs);
   const { c, problem } = f.allOk ? checked("sampling-burst", f.values as Record<string, number>) : { c: null, problem: null };
@@ -125,9 +138,7 @@ export function BurstSamplingCalculator() {
             series={series}
             xLabel="time (s)"
             yLabel="current (A)"
-            caption={`The slow logger's record: one sample every ${formatAuto(1 / logRate!, "s")}. A wake every ${formatAuto(wakePeriod!, "s")} ${
-              alias > 0 ? `appears to repeat every ${formatAuto(1 / alias, "s")}` : "lands at the same phase every time: the logger sees every wake or none"
-            }.`}
+            caption={`The slow logger's record: one sample every ${formatAuto(1 / logRate!, "s")}. ${burstCaption(wakePeriod!, burstWidth!, logRate!, alias)}`}
           />
         </>
       ) : (

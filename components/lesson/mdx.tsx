@@ -15,6 +15,15 @@ function H2(props: ComponentPropsWithoutRef<"h2">) {
   return <h2 id={headingId(childrenText(props.children))} className="mt-10 mb-3 scroll-mt-6 text-2xl break-after-avoid" {...props} />;
 }
 
+// A Markdown table (remark-gfm): scrolls on its own at 390 px instead of widening the page.
+function Table(props: ComponentPropsWithoutRef<"table">) {
+  return (
+    <div className="my-4 overflow-x-auto">
+      <table className="min-w-full border-collapse text-sm [&_td]:border-t [&_td]:border-ink/15 [&_td]:px-2 [&_td]:py-1 [&_th]:px-2 [&_th]:py-1 [&_th]:text-left" {...props} />
+    </div>
+  );
+}
+
 // The calculators load in the browser when the reader reaches one (lazy-calculators.tsx), so the units
 // library and the templates they need stay out of a lesson's first load.
 const calculator = (name: CalculatorName) => {
@@ -25,6 +34,7 @@ const calculator = (name: CalculatorName) => {
 
 export const lessonComponents: MDXComponents = {
   h2: H2,
+  table: Table,
   Caution,
   CheckYourself,
   CircuitDiagram,

@@ -5,7 +5,7 @@
 // it sits on is also every student's, which then loads no query client).
 import { useRouter } from "next/navigation";
 import { useState, useTransition } from "react";
-import { api, isApiError } from "@/lib/api-client";
+import { api, isApiError } from "@/lib/http/client";
 
 export function HoldGrades({ labId, held }: { labId: string; held: boolean }) {
   const router = useRouter();

@@ -2,7 +2,7 @@
 // Sends a failed message again (a new job for the same outbox row).
 import { useMutation } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
-import { api, isApiError } from "@/lib/api-client";
+import { api, isApiError } from "@/lib/http/client";
 
 export function ResendButton({ mailId }: { mailId: string }) {
   const router = useRouter();

@@ -8,7 +8,7 @@ import { signIn, signOut } from "next-auth/react";
 import { useForm } from "react-hook-form";
 import { Field, FormMessage } from "@/components/ui/field";
 import { useHydrated } from "@/components/ui/use-hydrated";
-import { api, isApiError } from "@/lib/api-client";
+import { api, isApiError } from "@/lib/http/client";
 import { changePasswordSchema, type ChangePasswordInput, type PreferencesInput } from "@/lib/validation/mail";
 
 const failure = (e: unknown) => (isApiError(e) && e.status > 0 ? e.message : "The request did not reach the server. Try again.");

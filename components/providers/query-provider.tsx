@@ -3,10 +3,10 @@
 // wraps them in <QueryProvider> (the server page renders it around them), so a page without any, such as
 // a student's lab page or a lesson, loads no react-query code. One client per server render, one for the
 // whole browser session (shared by every provider on the page), as Next.js's guide to TanStack Query sets
-// it up. Queries fetch through lib/api-client.ts.
+// it up. Queries fetch through lib/http/client.ts.
 import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
 import type { ReactNode } from "react";
-import { isApiError } from "@/lib/api-client";
+import { isApiError } from "@/lib/http/client";
 
 function makeClient() {
   return new QueryClient({

@@ -2,7 +2,7 @@
 // An attempt's grade history as a timeline, oldest first: the first grade, recomputations after lab
 // edits, the staff's changes with their reasons, re-runs and answers to review requests.
 import { useQuery } from "@tanstack/react-query";
-import { api, type Jsonified } from "@/lib/api-client";
+import { api, type Jsonified } from "@/lib/http/client";
 import type { PresentedEvent } from "@/lib/labs/review";
 import { utcDate } from "@/lib/dates";
 import { loadError } from "../labs/feedback/types";

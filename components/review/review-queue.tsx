@@ -5,7 +5,7 @@
 import { useQuery } from "@tanstack/react-query";
 import Link from "next/link";
 import { useId, useState } from "react";
-import { api, type Jsonified } from "@/lib/api-client";
+import { api, type Jsonified } from "@/lib/http/client";
 import type { ReviewItem } from "@/db/queries/reviews";
 import { utcDate } from "@/lib/dates";
 import { loadError } from "../labs/feedback/types";

@@ -7,7 +7,7 @@ import { useId, useState } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
 import { FieldFrame, FormMessage } from "@/components/ui/field";
-import { api, isApiError } from "@/lib/api-client";
+import { api, isApiError } from "@/lib/http/client";
 import { formatQuantity, templates, type TemplateKey } from "@/lib/grader";
 import { questionRegradeSchema, reviewAnswerSchema, rerunSchema } from "@/lib/validation/reviews";
 import { utcDate } from "@/lib/dates";

@@ -1,10 +1,10 @@
 // Labs and the per-student circuit values drawn for them. This module reads and writes them in camelCase
-// through Kysely's CamelCasePlugin (labs_db below), so a lab's fields have the same names here as in the
-// lab schema (lib/validation/labs.ts) and no column list or mapper is kept by hand. The plugin is applied
+// through Kysely's CamelCasePlugin (labsDb below), so a lab's fields have the same names here as in the
+// lab schema (lib/validation/labs.ts, which checks at build time that it names the columns of
+// LAB_DATA_COLUMNS) and no mapper is kept by hand. The plugin is applied
 // to this module's queries only: the rest of the project's queries are written against the snake_case
 // tables of db/types.ts, and a global plugin would rename every one of them.
-import { CamelCasePlugin, sql, type Insertable, type Kysely, type Transaction, type Updateable } from "kysely";
-import { labFields, type LabData } from "../../lib/validation/labs";
+import { CamelCasePlugin, sql, type Insertable, type Kysely, type Selectable, type Transaction, type Updateable } from "kysely";
 import type { CoursesTable, Database, LabStatus, LabsTable, LabVariantsTable, MembershipsTable, Role } from "../types";
 
 type Db = Kysely<Database> | Transaction<Database>;
@@ -29,8 +29,28 @@ function labsDb(db: Db): Kysely<LabsDatabase> {
   return db.withPlugin(camelCase) as unknown as Kysely<LabsDatabase>;
 }
 
-// A lab as the app reads it: the lab schema's fields (lib/validation/labs.ts) and the lab's own state. The
-// columns only copying and holding grades use (created_by, grades_released_at, weight) are left out.
+/** The columns a lab's author writes: the fields of the lab schema (lib/validation/labs.ts). */
+export const LAB_DATA_COLUMNS = [
+  "title",
+  "templateKey",
+  "spec",
+  "questions",
+  "policy",
+  "attemptsAllowed",
+  "counting",
+  "opensAt",
+  "dueAt",
+  "closesAt",
+  "latePenaltyPercentPerDay",
+  "lateFloorPercent",
+  "showExpected",
+  "instructions",
+  "safetyNotes",
+] as const;
+export type LabDataColumn = (typeof LAB_DATA_COLUMNS)[number];
+
+// A lab as the app reads it: the author's fields and the lab's own state. The columns only copying and
+// holding grades use (created_by, grades_released_at, weight) are left out.
 const LAB_COLUMNS = [
   "id",
   "courseId",
@@ -40,7 +60,7 @@ const LAB_COLUMNS = [
   "updatedAt",
   "publishedAt",
   "gradesHeld",
-  ...(Object.keys(labFields) as (keyof typeof labFields)[]),
+  ...LAB_DATA_COLUMNS,
 ] as const;
 
 export type LabRow = Awaited<ReturnType<typeof findLab>> & {};
@@ -111,12 +131,15 @@ export async function listLabs(db: Db, courseId: string, opts: { publishedOnly: 
 }
 
 /**
- * What is written for a lab: the lab schema's output (LabData), each question with its id (lib/labs/grading.ts
- * withIds). The close may be left out: no explicit close.
+ * What is written for a lab: the author's fields as the lab schema outputs them, each question with its id
+ * (lib/labs/grading.ts withIds). The JSON fields are written as given; the close may be left out: no
+ * explicit close.
  */
-export type LabWrite = Omit<LabData, "questions" | "closesAt"> & {
-  questions: (LabData["questions"][number] & { id: string })[];
-  closesAt?: LabData["closesAt"];
+export type LabWrite = Pick<Selectable<Camel<LabsTable>>, Exclude<LabDataColumn, "spec" | "questions" | "policy" | "closesAt">> & {
+  spec: unknown;
+  questions: ({ id: string } & Record<string, unknown>)[];
+  policy: unknown;
+  closesAt?: Date | null;
 };
 
 /** The JSON fields as JSON text; a field left out stays out (Kysely skips undefined values). */

@@ -140,15 +140,20 @@ function withParam(p: Params, key: string, value: number): Params {
  * Worst-case first-order propagation: Σ |∂q/∂x_i| · Δx_i over the toleranced parameters, with central
  * numerical derivatives (relative step 1e-6).
  */
-function propagate(ev: Evaluator, tag: string, p: Params, q: string, tolerances: Record<string, number>, skip: Params | undefined): number {
+function propagate(t: Template, ev: Evaluator, tag: string, p: Params, q: string, tolerances: Record<string, number>, skip: Params | undefined): number {
   let sum = 0;
   for (const key in tolerances) {
     const tol = tolerances[key];
     const x = p[key];
     if (!(tol > 0) || typeof x !== "number" || x === 0 || (skip && key in skip)) continue;
     const h = Math.abs(x) * 1e-6;
-    const up = ev.values(`${tag}+${key}`, withParam(p, key, x + h))[q] as number;
-    const down = ev.values(`${tag}-${key}`, withParam(p, key, x - h))[q] as number;
+    const at = (v: number, side: string): number => {
+      const actual = withParam(p, key, v);
+      const bench = t.benchValue?.(p, actual, q);
+      return bench !== undefined ? bench : (ev.values(`${tag}${side}${key}`, actual)[q] as number);
+    };
+    const up = at(x + h, "+");
+    const down = at(x - h, "-");
     const d = (up - down) / (2 * h);
     if (Number.isFinite(d)) sum += Math.abs(d) * Math.abs(x) * (tol / 100);
   }
@@ -334,7 +339,7 @@ function gradeNumber(t: Template, spec: QuantitySpec, p: Params, q: Question, ex
   let bandText = labText;
 
   if (q.kind === "bench") {
-    const propagated = spec.discrete ? 0 : propagate(c.ev, c.tag, p, q.quantity, c.tolerances, c.measured);
+    const propagated = spec.discrete ? 0 : propagate(t, c.ev, c.tag, p, q.quantity, c.tolerances, c.measured);
     const instrument = instrumentHalfWidth(t, p, q.quantity, expected, c.instrument);
     const instrumentHalf = instrument.half;
     const worst = propagated + instrumentHalf;
@@ -351,6 +356,17 @@ function gradeNumber(t: Template, spec: QuantitySpec, p: Params, q: Question, ex
     } else {
       method = exact !== undefined || floored ? method : "lab tolerance (wider than the propagated component tolerances)";
       bandText = `${labText}, wider than a worst-case first-order propagation of ${what}.${measuredText}`;
+    }
+    if (spec.counted) {
+      // a count on the bench is a whole number: the one below and the one above are both what a careful
+      // student sees, as the edges fall between samples (PHYSICS.md §16)
+      const lo = Math.floor(expected * (1 + 1e-12)), hi = Math.ceil(expected * (1 - 1e-12));
+      const countHalf = Math.max(expected - lo, hi - expected);
+      if (countHalf > half) {
+        half = countHalf;
+        method = "whole counts either side";
+        bandText = `${fmt(lo, spec)} or ${fmt(hi, spec)} counted: a count is a whole number, and where the burst's edges fall decides which one you see`;
+      }
     }
   }
   const band: [number, number] = [expected - half, expected + half];
@@ -384,7 +400,11 @@ function gradeNumber(t: Template, spec: QuantitySpec, p: Params, q: Question, ex
     return finish(out, "correct", `${read}Correct: within the accepted band ${bandRange(band, spec)} (${bandText.replace(/\.$/, "")}).`);
 
   // recognised wrong methods: count only when the correct value is not also inside the candidate's band
-  const relHalf = expected !== 0 ? half / Math.abs(expected) : c.rel;
+  // a mistake's window scales with the relative band before any floor near zero (PHYSICS.md §17): a floor
+  // set for the expected value is absolute, and scaled by a large wrong value it would swallow the right one's
+  // neighbourhood; the floor stays as the window's minimum
+  const unfloored = Math.max(exact ?? c.rel * Math.abs(expected), q.kind === "bench" && method === "worst-case first-order propagation" ? half : 0);
+  const relHalf = expected !== 0 ? unfloored / Math.abs(expected) : c.rel;
   const candidates = t.mistakes(p, q.quantity);
   if (spec.unit !== "" && spec.unit !== "%") candidates.push(...prefixSlips(expected));
   // a capital M (mega, 10⁶) typed for a lowercase m (milli, 10⁻³): a factor of 10⁹, worth naming

@@ -53,3 +53,4 @@ export {
   type BudgetRow,
   type ContributionKey,
 } from "./templates/uncertainty";
+export { bandWarnings, type BandWarning } from "./warnings";

@@ -21,6 +21,7 @@ export const MISTAKE_KEYS: MistakeKey[] = [
   "unhalved-difference",
   "period-for-burst",
   "ignored-aliasing",
+  "no-root-n",
 ];
 
 export interface MistakeInfo {
@@ -96,6 +97,11 @@ export const MISTAKES: Record<MistakeKey, MistakeInfo> = {
     title: "Quantisation step not halved",
     explain: "A converter's rounding error lies within ±½ step, so the whole step q is the width of the rectangle, not its half-width.",
     fix: "For a step q the standard uncertainty is (q/2)/√3 = q/√12.",
+  },
+  "no-root-n": {
+    title: "Standard deviation of one reading used for the mean",
+    explain: "The spread s of repeated readings describes one reading; the mean of n readings scatters √n times less.",
+    fix: "A Type A evaluation of a mean uses s/√n (GUM 4.2.3).",
   },
   "forgot-bias": {
     title: "Input bias current left out",

@@ -53,6 +53,11 @@ export interface QuantitySpec {
   description: string;
   /** a stepped result (a code, a standard value): not propagated through component tolerances */
   discrete?: boolean;
+  /**
+   * counted on the bench (samples in a burst): a bench answer may be either whole number around the
+   * expected value, the floor or the ceiling, as the edges fall
+   */
+  counted?: boolean;
 }
 
 /** A wrong value produced by a recognised wrong method. */
@@ -82,7 +87,8 @@ export type MistakeKey =
   | "offset-wrong-sign"
   | "unhalved-difference"
   | "period-for-burst"
-  | "ignored-aliasing";
+  | "ignored-aliasing"
+  | "no-root-n";
 
 export interface Template {
   key: TemplateKey;
@@ -109,6 +115,13 @@ export interface Template {
    * propagated. Without it, the quantity itself is the reading.
    */
   instrumentReadings?(params: Params, quantity: string): InstrumentReadings | undefined;
+  /**
+   * The value a student works out on the bench when the parts of the circuit are `actual` but the sum is
+   * done with the lab's given (nominal) values, e.g. a reversal (V₊ − V₋)/2R read across the actual shunt
+   * and divided by the nominal R. Used to propagate component tolerances; without it the quantity is
+   * taken to follow the actual parts (compute(actual)).
+   */
+  benchValue?(nominal: Params, actual: Params, quantity: string): number | undefined;
 }
 
 export interface InstrumentReadings {

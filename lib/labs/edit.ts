@@ -6,7 +6,7 @@ import { db } from "@/db";
 import { countLabAttempts } from "@/db/queries/attempts";
 import { updateLab } from "@/db/queries/labs";
 import { AppError } from "@/lib/errors";
-import { enqueue, QUEUES } from "@/lib/jobs";
+import { enqueue, QUEUES } from "@/lib/jobs/queue";
 import { gradePolicySchema } from "@/lib/grader";
 import type { z } from "zod";
 import { labInputSchema, type labPatchSchema, type LabData } from "@/lib/validation/labs";

@@ -2,7 +2,7 @@
 import "server-only";
 import { formatQuantity, templates, type Params } from "@/lib/grader";
 import type { Lab } from "./grading";
-import { variantFor } from "./service";
+import { variantFor } from "./attempts";
 import { labPublic } from "./view";
 
 export function describeParams(lab: Lab, params: Params) {

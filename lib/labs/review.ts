@@ -2,7 +2,7 @@
 // points or a re-run of the grader, the answer to a review request, and an attempt's grade history.
 // Every function checks who is asking; every grade change runs in one transaction on the locked attempt.
 import "server-only";
-import { readJson } from "@/lib/api";
+import { readJson } from "@/lib/http/route";
 import { db } from "@/db";
 import { findAttempt } from "@/db/queries/attempts";
 import { listGradeEvents, type GradeEventRow } from "@/db/queries/grade-events";
@@ -15,7 +15,7 @@ import { parseRegrade, reviewAnswerSchema, reviewQuerySchema } from "@/lib/valid
 import { invalid, parseOr400 } from "@/lib/validation/zod-errors";
 import type { Lab, StoredTrace } from "./grading";
 import { answerReviewRequest, overrideQuestion, recomputeAttempt } from "./rescore";
-import { attemptAccess, attemptsUsed, presentAttempt } from "./service";
+import { attemptAccess, attemptsUsed, presentAttempt } from "./attempts";
 
 /** The course's review requests for its staff (students 403, outsiders 404). */
 export async function reviewQueue(courseId: string, search: URLSearchParams) {

@@ -154,16 +154,22 @@ export const examples: readonly Example[] = [
 
   // the amp-range reading again, now through the course meter's own chain: ×50 into a 12-bit, 3.3 V converter
   template("unc-chain", "uncertainty", ["JCGM 100:2008"], { reading: 50.0e-3, readingAccuracyPercent: 0.5, readingCounts: 2, countSize: 0.1e-3, shuntResistance: 0.1, shuntTolerancePercent: 1, coverageFactor: 2, shuntTempcoPpm: 50, temperatureChange: 10, gainErrorPercent: 0.2, referenceTolerancePercent: 0.1, amplifierGain: 50, adcBits: 12, adcReference: 3.3 }, "PHYSICS.md §9 9g [FORMULA: GUM 4.3.7]", {
-    current: [0.5, "Ohm's law [FORMULA]"], readingContribution: [2.598e-3, "PHYSICS.md §9 9g [FORMULA: GUM 4.3.7, 5.1.2]"],
+    current: [0.5, "Ohm's law [FORMULA]"], readingContribution: [0, "PHYSICS.md §9 9g (the converter's rows replace the voltmeter) [FORMULA]"],
     shuntToleranceContribution: 2.887e-3, tempcoContribution: [144.3e-6, "PHYSICS.md §9 9g [FORMULA: GUM 4.3.7, ΔR/R = αΔT]"],
-    gainContribution: 577.4e-6, referenceContribution: 288.7e-6,
+    gainContribution: 577.4e-6, referenceContribution: 288.7e-6, repeatabilityContribution: [0, "PHYSICS.md §9 9g (term off) [FORMULA]"], offsetContribution: [0, "PHYSICS.md §9 9g (term off) [FORMULA]"],
+    biasContribution: [0, "PHYSICS.md §9 9g (term off) [FORMULA]"], leakageContribution: [0, "PHYSICS.md §9 9g (term off) [FORMULA]"],
     quantisationContribution: [46.52e-6, "PHYSICS.md §9 9g [FORMULA: GUM F.2.2.1, q/√12]"],
-    relativeStandardUncertaintyPercent: [0.788, "PHYSICS.md §9 9g [FORMULA]"],
-    combinedStandardUncertainty: [3.940e-3, "PHYSICS.md §9 9g [FORMULA: GUM 5.1.2]"],
+    relativeStandardUncertaintyPercent: [0.5924, "PHYSICS.md §9 9g [FORMULA]"],
+    combinedStandardUncertainty: [2.962e-3, "PHYSICS.md §9 9g [FORMULA: GUM 5.1.2]"],
     sensitivityReading: [10, "PHYSICS.md §9 9g (c_V = 1/R) [FORMULA: GUM 5.1.3]"],
     sensitivityShunt: [-5, "PHYSICS.md §9 9g (c_R = −I/R) [FORMULA: GUM 5.1.3]"],
-    expandedUncertainty: [7.880e-3, "PHYSICS.md §9 9g [FORMULA: GUM 6.2, k = 2]"],
+    expandedUncertainty: [5.924e-3, "PHYSICS.md §9 9g [FORMULA: GUM 6.2, k = 2]"],
     dominantContribution: ["shunt tolerance", "PHYSICS.md §9 9g [FORMULA]"],
+  }),
+  // a nanoamp reading through a 1 MΩ shunt: Type A, offset, bias current and leakage rows
+  template("unc-nano", "uncertainty", ["JCGM 100:2008"], { reading: 5e-3, readingAccuracyPercent: 0.05, readingCounts: 2, countSize: 1e-6, shuntResistance: 1e6, shuntTolerancePercent: 0.1, coverageFactor: 2, repeatStdDev: 30e-6, repeatCount: 10, offsetBound: 20e-6, biasCurrentBound: 10e-12, leakageBound: 5e-12 }, "PHYSICS.md §9 9i [FORMULA: GUM 4.2.3, 4.3.7, 5.1.2]", {
+    current: 5e-9, readingContribution: 2.598e-12, shuntToleranceContribution: 2.887e-12, relativeStandardUncertaintyPercent: 0.3347, repeatabilityContribution: 9.487e-12, offsetContribution: 11.55e-12, biasContribution: 5.774e-12,
+    leakageContribution: 2.887e-12, tempcoContribution: 0, gainContribution: 0, referenceContribution: 0, quantisationContribution: 0, combinedStandardUncertainty: 16.74e-12, expandedUncertainty: 33.47e-12, dominantContribution: "offset",
   }),
 
   // ---- Lesson 12: leakage and guarding ----
@@ -210,6 +216,12 @@ export const examples: readonly Example[] = [
   }),
   teaching("shot-1nA", "shotNoise", ["worked here from the formula", "Annalen der Physik"], { current: 1e-9, bandwidth: 1 }, "PHYSICS.md §7 7f [FORMULA: exact q]", {
     noiseCurrent: 17.9e-15,
+  }),
+  teaching("burst-hits-narrow", "burstHits", ["worked here from the formula"], { wakePeriod: 1.02, logRate: 1, burstWidth: 5e-3 }, "PHYSICS.md §16 16e [FORMULA]", {
+    alias: 19.61e-3, aliasPeriod: 51.0, stepPerSample: 20.0e-3, samplesPerPass: 0.25, meanTimeBetweenHits: 204.0,
+  }),
+  teaching("burst-hits-wide", "burstHits", ["worked here from the formula"], { wakePeriod: 1.002, logRate: 1, burstWidth: 5e-3 }, "PHYSICS.md §16 16f [FORMULA]", {
+    alias: 1.996e-3, aliasPeriod: 501.0, stepPerSample: 2.0e-3, samplesPerPass: 2.5, meanTimeBetweenHits: 501.0,
   }),
   teaching("unweighted-mean", "unweightedMean", ["worked here from the definition of the average"], { a: 20e-3, b: 2e-6 }, "PHYSICS.md §12.5 (wrong method) [FORMULA]", {
     mean: 10.0e-3,

@@ -260,7 +260,7 @@ export const questions: LessonQuestion[] = [
     quantity: "apparentWakeFrequency",
     unit: "mHz",
     prompt:
-      "The node wakes every {p.wakePeriod|s}. A slow data logger samples its current at {p.logRate|Hz}. At what frequency do the wakes appear to repeat in the logger's record?",
+      "The node wakes every {p.wakePeriod|s}. A slow data logger samples its current at {p.logRate|Hz}, so each sample lands a little further along the wake cycle. At what frequency does the sampling phase come back to the same point of the cycle (the alias of the wake rate)?",
   },
 ];
 

@@ -25,6 +25,24 @@ export const teaching = {
   shotNoise(p: Record<string, number>) {
     return { noiseCurrent: Math.sqrt(2 * q * p.current * p.bandwidth) };
   },
+  /**
+   * How often a slow logger's samples land in a burst (PHYSICS.md §16 16e, 16f). Each sample moves through the
+   * wake cycle by the step f_a·T/f_log. A burst at least that wide is hit on each pass, every 1/f_a; a
+   * narrower one is stepped over, and is hit on average once every T/(t_b·f_log) (or never, by phase).
+   */
+  burstHits(p: Record<string, number>) {
+    const { wakePeriod: T, logRate: flog, burstWidth: tb } = p;
+    const fw = 1 / T;
+    const alias = Math.abs(fw - Math.round(fw / flog) * flog);
+    const step = (alias * T) / flog;
+    return {
+      alias,
+      aliasPeriod: 1 / alias,
+      stepPerSample: step,
+      samplesPerPass: tb / step,
+      meanTimeBetweenHits: tb >= step ? 1 / alias : T / (tb * flog),
+    };
+  },
   /** The misconception of PHYSICS.md §12.5: averaging two levels without weighting by time. */
   unweightedMean(p: Record<string, number>) {
     return { mean: (p.a + p.b) / 2 };

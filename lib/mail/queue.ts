@@ -5,7 +5,7 @@ import { randomUUID } from "node:crypto";
 import type { Transaction } from "kysely";
 import type { Database } from "@/db/types";
 import { findOutboxByKey, insertOutbox } from "@/db/queries/mail-outbox";
-import { boss, bossDb, QUEUES } from "@/lib/jobs";
+import { boss, bossDb, QUEUES } from "@/lib/jobs/queue";
 import { retryOptions } from "./config";
 
 export interface MailRequest {

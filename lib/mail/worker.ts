@@ -6,7 +6,7 @@ import type { Transporter } from "nodemailer";
 import { db as appDb } from "@/db";
 import type { Database } from "@/db/types";
 import type { Kysely } from "kysely";
-import { QUEUES } from "@/lib/jobs";
+import { QUEUES } from "@/lib/jobs/queue";
 import { deliver } from "./deliver";
 import type { MailJob } from "./queue";
 

@@ -10,7 +10,7 @@ import "server-only";
 import crypto from "node:crypto";
 import { db } from "@/db";
 import { failUpload, findUpload, finishUpload, setUploadProgress } from "@/db/queries/uploads";
-import { getObjectStream } from "@/lib/storage";
+import { getObjectStream } from "@/lib/uploads/storage";
 import { analyzeTraceSamples, TraceError } from "@/lib/trace";
 import type { Params } from "@/lib/grader";
 import { writeSamples } from "./samples";

@@ -11,7 +11,7 @@ import crypto from "node:crypto";
 import { db } from "@/db";
 import { claimPendingUpload, deleteUpload, findUpload, insertPendingUpload, lockOwnerUploads, markAnalysing, releaseClaim, storedBytes } from "@/db/queries/uploads";
 import { AppError } from "@/lib/errors";
-import { enqueue, QUEUES } from "@/lib/jobs";
+import { enqueue, QUEUES } from "@/lib/jobs/queue";
 import {
   abortMultipartUpload,
   completeMultipartUpload,
@@ -23,8 +23,8 @@ import {
   maxUploadBytes,
   objectSize,
   signedPartUrl,
-} from "@/lib/storage";
-import { checkQuota, displayName, mb, sniffKind } from "@/lib/uploads";
+} from "@/lib/uploads/storage";
+import { checkQuota, displayName, mb, sniffKind } from "@/lib/uploads/accept";
 import { claimedKind, partBytes, type UploadRequest } from "@/lib/validation/uploads";
 import type { Params } from "@/lib/grader";
 

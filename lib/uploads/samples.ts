@@ -6,7 +6,7 @@
 import "server-only";
 import { Readable } from "node:stream";
 import type { StoredSamples } from "@/db/types";
-import { getObjectRange, putObjectStream } from "@/lib/storage";
+import { getObjectRange, putObjectStream } from "@/lib/uploads/storage";
 import { minMaxColumns, type PlotPoints } from "@/lib/trace";
 
 export const SAMPLES_BLOCK = 4096;

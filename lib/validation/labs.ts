@@ -1,6 +1,7 @@
 // The lab a builder saves and the attempt a student submits: one schema each, shared by the forms and
 // the route handlers. The parameter spec, questions and policy use the grader's own schemas.
 import { z } from "zod";
+import type { LabDataColumn } from "@/db/queries/labs";
 import { drawVariant, gradePolicySchema, questionSchema, TEMPLATE_KEYS, templates, variantSpecSchema, type TemplateKey } from "@/lib/grader";
 
 // An ISO date-time from a form or a request, or a Date already read (a PATCH merged into a stored lab).
@@ -35,6 +36,10 @@ export const labFields = {
   instructions: z.string().max(20_000, "Use at most 20,000 characters.").default(""),
   safetyNotes: z.string().max(5_000, "Use at most 5,000 characters.").default(""),
 };
+
+/** db/queries/labs.ts reads and writes these fields as columns by name; the build fails when the two lists differ. */
+type SameKeys<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
+export const labFieldsAreColumns: SameKeys<keyof typeof labFields, LabDataColumn> = true;
 
 function checkLab(lab: { templateKey: TemplateKey; spec: { template: string; parameters: Record<string, unknown> }; questions: { quantity: string }[]; opensAt: Date | null; dueAt: Date | null; closesAt?: Date | null }, ctx: z.RefinementCtx) {
   if (lab.spec.template !== lab.templateKey) {

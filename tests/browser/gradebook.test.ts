@@ -1,5 +1,5 @@
 // The instructor's gradebook in a real browser: filter a section, sort by a lab, open a cell's attempt,
-// download the CSV. The demo course has forty students in sections A and B (db/seed/demo.ts).
+// download the CSV. The demo course has forty students in sections A and B (scripts/seed/demo.ts).
 import fs from "node:fs";
 import Papa from "papaparse";
 import type { Browser } from "playwright-core";

@@ -167,7 +167,7 @@ describe("lessons in the browser", () => {
   });
 
   it("the nanoamp, microvolt and sampling lessons and the budget table have no serious or critical accessibility violations", async () => {
-    // read as the TA: the demo course opens the last three lessons to students later (db/seed/demo.ts)
+    // read as the TA: the demo course opens the last three lessons to students later (scripts/seed/demo.ts)
     await noSeriousViolations(demo.ta, ["leakage-and-guarding", "sampling-short-bursts", "uncertainty-budget"]);
   });
 

@@ -91,7 +91,7 @@ interface World {
   outsider: { id: string; email: string };
   hiddenLesson: string; // a lesson the course hides from students
   hiddenQuestion: string; // a "Check yourself" question of that lesson
-  actionIds: Record<string, string>; // "app/lessons/actions.ts#checkAnswer" → the build's action id
+  actionIds: Record<string, string>; // "components/lesson/check-question-action.ts#checkAnswer" → the build's action id
 }
 
 let w: World;
@@ -259,6 +259,8 @@ const ROWS: Record<string, Row> = {
   "GET /api/courses/[courseId]": { req: (w) => c(w), cells: members(200) },
   "PATCH /api/courses/[courseId]": { req: (w) => send("PATCH", c(w)), cells: instructors(400) },
   "POST /api/courses/[courseId]/copy": { req: (w) => send("POST", `${c(w)}/copy`), cells: instructors(400) },
+  "GET /api/courses/[courseId]/benches": { req: (w) => `${c(w)}/benches`, cells: staff(200) },
+  "PUT /api/courses/[courseId]/benches": { req: (w) => send("PUT", `${c(w)}/benches`), cells: instructors(400) },
   "GET /api/courses/[courseId]/gradebook": { req: (w) => `${c(w)}/gradebook`, cells: staff(200) },
   "GET /api/courses/[courseId]/gradebook/weights": { req: (w) => `${c(w)}/gradebook/weights`, cells: instructors(200) },
   "PUT /api/courses/[courseId]/gradebook/weights": { req: (w) => send("PUT", `${c(w)}/gradebook/weights`), cells: instructors(400) },
@@ -327,6 +329,7 @@ const ROWS: Record<string, Row> = {
   "page /courses/[courseId]/lessons": { req: (w) => `/courses/${w.courseId}/lessons`, cells: pMembers },
   "page /courses/[courseId]/reviews": { req: (w) => `/courses/${w.courseId}/reviews`, cells: pStaff },
   "page /courses/[courseId]/reviews/[attemptId]": { req: (w) => `/courses/${w.courseId}/reviews/${w.attemptId}`, cells: cells("signin", "notFound", 403, "notFound", "page", "page", "page") },
+  "page /courses/[courseId]/benches": { req: (w) => `/courses/${w.courseId}/benches`, cells: pStaff },
   "page /courses/[courseId]/roster": { req: (w) => `/courses/${w.courseId}/roster`, cells: pStaff },
   "page /courses/[courseId]/settings": { req: (w) => `/courses/${w.courseId}/settings`, cells: pInstructors },
   "page /courses/[courseId]/gradebook": { req: (w) => `/courses/${w.courseId}/gradebook`, cells: pStaff },
@@ -339,8 +342,8 @@ const ROWS: Record<string, Row> = {
 
   // --- server actions, called as the page's form does (POST with the Next-Action header)
   // checking an answer of the hidden lesson: the staff get the verdict, everyone else learns nothing
-  "action app/lessons/actions.ts#checkAnswer": {
-    req: action((w) => `/lessons/${w.hiddenLesson}`, (w) => w.actionIds["app/lessons/actions.ts#checkAnswer"], []),
+  "action components/lesson/check-question-action.ts#checkAnswer": {
+    req: action((w) => `/lessons/${w.hiddenLesson}`, (w) => w.actionIds["components/lesson/check-question-action.ts#checkAnswer"], []),
     cells: (() => {
       const gone = says(200, /no longer exists/);
       const graded = says(200, /"verdict"/);
@@ -371,7 +374,7 @@ const ROWS: Record<string, Row> = {
 
 // the action rows need arguments from the world: filled in when the request is made
 const ACTION_ARGS: Record<string, (w: World) => unknown[]> = {
-  "action app/lessons/actions.ts#checkAnswer": (w) => [w.hiddenQuestion, "1 mA"],
+  "action components/lesson/check-question-action.ts#checkAnswer": (w) => [w.hiddenQuestion, "1 mA"],
 };
 
 // ---------------------------------------------------------------------------------------------------

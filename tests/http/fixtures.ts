@@ -59,7 +59,7 @@ export async function addPerson(
   }
 }
 
-/** The build's server-action ids by "file#export" (e.g. "app/lessons/actions.ts#checkAnswer"), from Next.js's manifest. */
+/** The build's server-action ids by "file#export" (e.g. "components/lesson/check-question-action.ts#checkAnswer"), from Next.js's manifest. */
 export function serverActionIds(): Record<string, string> {
   const dist = path.resolve(import.meta.dirname, "../..", process.env.SHUNTWISE_TEST_DIST_DIR ?? ".next-test");
   const manifest = JSON.parse(readFileSync(path.join(dist, "server", "server-reference-manifest.json"), "utf8")) as {

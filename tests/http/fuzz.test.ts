@@ -290,6 +290,14 @@ const TARGETS: Target[] = [
     weight: 3,
   },
   {
+    name: "PUT /api/courses/{courseId}/benches",
+    who: "instructor",
+    method: "PUT",
+    path: () => `/api/courses/${w.courseId}/benches`,
+    valid: () => ({ benches: [{ name: "Bench 01", section: "A", memberIds: [w.memberId] }, { name: "Bench 02", memberIds: [] }] }),
+    weight: 3,
+  },
+  {
     name: "PUT /api/labs/{labId}/grades-held",
     who: "instructor",
     method: "PUT",

@@ -1,7 +1,7 @@
 // Graded e-mail against the test server: its worker sends through the local SMTP stand-in, and the
 // development mailbox API shows what arrived. Also who may read the mailbox and the outbox.
 import { beforeAll, describe, expect, it } from "vitest";
-import { DEMO_PASSWORD } from "@/db/seed/demo";
+import { DEMO_PASSWORD } from "@/scripts/seed/demo";
 import { e2eDb } from "../support/db";
 import { Client } from "../support/http";
 import { clientFor, courseWithPeople } from "./fixtures";

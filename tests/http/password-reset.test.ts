@@ -1,7 +1,7 @@
 // Password reset by e-mail against the test server: the same answer for any address, a link that works
 // once and not after 30 minutes, and every other session signed out once the new password is chosen.
 import { beforeAll, describe, expect, it } from "vitest";
-import { DEMO_PASSWORD } from "@/db/seed/demo";
+import { DEMO_PASSWORD } from "@/scripts/seed/demo";
 import { issuePasswordToken } from "@/lib/mail/tokens";
 import { e2eDb } from "../support/db";
 import { Client } from "../support/http";

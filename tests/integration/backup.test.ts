@@ -11,9 +11,9 @@ import { sql, type Kysely } from "kysely";
 import { afterAll, describe, expect, it } from "vitest";
 import { createDb, db } from "@/db";
 import type { Database } from "@/db/types";
-import { stopBoss } from "@/lib/jobs";
+import { stopBoss } from "@/lib/jobs/queue";
 import { overrideQuestion } from "@/lib/labs/rescore";
-import { submitAttempt } from "@/lib/labs/service";
+import { submitAttempt } from "@/lib/labs/attempts";
 import { smallCourse } from "../support/mail";
 
 const run = promisify(execFile);

@@ -3,7 +3,7 @@
 import { describe, expect, it } from "vitest";
 import { db } from "@/db";
 import { findLab } from "@/db/queries/labs";
-import { benchParts } from "@/lib/labs/bench";
+import { benchParts } from "@/lib/labs/parts-list";
 import { toLab } from "@/lib/labs/grading";
 import { partsCsv } from "@/lib/labs/parts";
 import Papa from "papaparse";

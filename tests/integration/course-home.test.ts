@@ -2,7 +2,7 @@
 // missing students, open review requests of current students, recomputations in progress.
 import { describe, expect, it } from "vitest";
 import { db } from "@/db";
-import { staffHome } from "@/lib/home/load";
+import { staffHome } from "@/lib/courses/home";
 import { openReviewRequests, regradesInProgress, studentReviewRequests } from "@/db/queries/course-home";
 
 const DAY = 24 * 3600 * 1000;

@@ -1,9 +1,9 @@
 // Creating a course and copying one into a new term, against real PostgreSQL.
 import { afterAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
-import { boss } from "@/lib/jobs";
-import { changeCourseSettings, copyCourse, createCourse, regenerateJoinCode } from "@/lib/course-admin";
-import { signUpStudent } from "@/lib/courses";
+import { boss } from "@/lib/jobs/queue";
+import { changeCourseSettings, copyCourse, createCourse, regenerateJoinCode } from "@/lib/courses/admin";
+import { signUpStudent } from "@/lib/courses/joining";
 
 const DAY = 24 * 3600 * 1000;
 

@@ -4,7 +4,7 @@
 import { sql } from "kysely";
 import { describe, expect, it } from "vitest";
 import { createDb, db } from "@/db";
-import { errorResponse } from "@/lib/api";
+import { errorResponse } from "@/lib/http/route";
 import { freePort } from "../support/mail";
 
 async function failureOf(p: Promise<unknown>): Promise<unknown> {

@@ -3,8 +3,8 @@
 import { sql } from "kysely";
 import { describe, expect, it } from "vitest";
 import { db } from "@/db";
-import { seedDemo } from "@/db/seed/demo";
-import { seedStorageFromEnv } from "@/db/seed/storage";
+import { seedDemo } from "@/scripts/seed/demo";
+import { seedStorageFromEnv } from "@/scripts/seed/storage";
 import { listGradeEvents } from "@/db/queries/grade-events";
 import { listReviews } from "@/db/queries/reviews";
 import { MISTAKE_KEYS } from "@/lib/grader";

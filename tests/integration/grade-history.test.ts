@@ -14,7 +14,7 @@ import type { CourseAccess } from "@/lib/auth/access";
 import { toLab } from "@/lib/labs/grading";
 import { runRegrade, startRegrade } from "@/lib/labs/regrade";
 import { answerReviewRequest, overrideQuestion } from "@/lib/labs/rescore";
-import { submitAttempt } from "@/lib/labs/service";
+import { submitAttempt } from "@/lib/labs/attempts";
 
 const DAY = 24 * 3600 * 1000;
 

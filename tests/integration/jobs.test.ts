@@ -6,11 +6,11 @@ import { sql } from "kysely";
 import { afterAll, afterEach, describe, expect, it, vi } from "vitest";
 import { db } from "@/db";
 import { findLab } from "@/db/queries/labs";
-import { boss, QUEUES, stopBoss } from "@/lib/jobs";
+import { boss, QUEUES, stopBoss } from "@/lib/jobs/queue";
 import { editLab } from "@/lib/labs/edit";
 import { toLab } from "@/lib/labs/grading";
-import { submitAttempt } from "@/lib/labs/service";
-import { startWorkersRetrying, UPLOAD_SWEEP_CRON } from "@/lib/workers";
+import { submitAttempt } from "@/lib/labs/attempts";
+import { startWorkersRetrying, UPLOAD_SWEEP_CRON } from "@/lib/jobs/workers";
 import { freePort, smallCourse, until } from "../support/mail";
 
 afterEach(async () => {

@@ -2,8 +2,8 @@
 // releasing sends each student one message with their counted score. The SMTP server is the test's own.
 import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
-import { boss, QUEUES } from "@/lib/jobs";
-import { submitAttempt } from "@/lib/labs/service";
+import { boss, QUEUES } from "@/lib/jobs/queue";
+import { submitAttempt } from "@/lib/labs/attempts";
 import { queueGradeMail } from "@/lib/mail/grade";
 import { setLabGradesHeld } from "@/lib/mail/release";
 import { transport } from "@/lib/mail/transport";

@@ -2,7 +2,7 @@
 import { sql } from "kysely";
 import { describe, expect, it } from "vitest";
 import { db } from "@/db";
-import { DEMO_DOMAIN, seedDemo } from "@/db/seed/demo";
+import { DEMO_DOMAIN, seedDemo } from "@/scripts/seed/demo";
 
 describe("the demo seed's e-mails", () => {
   it("queues graded messages for the demo student logins, each with its job, once", async () => {

@@ -2,8 +2,8 @@
 // course always keeps an instructor.
 import { afterAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
-import { boss } from "@/lib/jobs";
-import { addMember, changeMember, importMembers, removeMember } from "@/lib/roster/service";
+import { boss } from "@/lib/jobs/queue";
+import { addMember, changeMember, importMembers, removeMember } from "@/lib/courses/roster";
 
 async function course() {
   return db

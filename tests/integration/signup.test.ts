@@ -2,7 +2,7 @@ import { sql } from "kysely";
 import { describe, expect, it } from "vitest";
 import { db } from "@/db";
 import { findMembership } from "@/db/queries/courses";
-import { signUpStudent } from "@/lib/courses";
+import { signUpStudent } from "@/lib/courses/joining";
 import { AppError } from "@/lib/errors";
 import { signUpSchema } from "@/lib/validation/auth";
 

@@ -5,11 +5,11 @@ import { sql } from "kysely";
 import { afterAll, afterEach, describe, expect, it } from "vitest";
 import { db } from "@/db";
 import { findUpload } from "@/db/queries/uploads";
-import { boss, QUEUES, stopBoss } from "@/lib/jobs";
-import { submitAttempt } from "@/lib/labs/service";
-import { listKeys } from "@/lib/storage";
-import { acceptUpload, sweepUnattachedUploads } from "@/lib/uploads";
-import { startWorkers, UPLOAD_SWEEP_CRON } from "@/lib/workers";
+import { boss, QUEUES, stopBoss } from "@/lib/jobs/queue";
+import { submitAttempt } from "@/lib/labs/attempts";
+import { listKeys } from "@/lib/uploads/storage";
+import { acceptUpload, sweepUnattachedUploads } from "@/lib/uploads/accept";
+import { startWorkers, UPLOAD_SWEEP_CRON } from "@/lib/jobs/workers";
 import { smallCourse, until } from "../support/mail";
 
 // the eight-byte PNG signature (ISO/IEC 15948, 5.2) followed by an IHDR chunk: 33 bytes

@@ -1,13 +1,12 @@
 "use server";
 
 import { headers } from "next/headers";
-import { signUpStudent } from "@/lib/courses";
+import { signUpStudent } from "@/lib/courses/joining";
 import { clientAddress, throttle } from "@/lib/security/throttle";
-import { AppError, type FieldErrors } from "@/lib/errors";
+import type { SignUpState } from "@/components/auth/sign-up-form";
+import { AppError } from "@/lib/errors";
 import { signUpSchema } from "@/lib/validation/auth";
 import { fieldErrors } from "@/lib/validation/zod-errors";
-
-export type SignUpState = { ok: true; courseId: string } | { ok: false; message: string; fields?: FieldErrors };
 
 export async function signUpAction(input: unknown): Promise<SignUpState> {
   const parsed = signUpSchema.safeParse(input);

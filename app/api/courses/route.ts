@@ -1,8 +1,8 @@
 import { db } from "@/db";
 import { listCoursesForUser } from "@/db/queries/courses";
-import { json, jsonBody, route } from "@/lib/api";
+import { json, jsonBody, route } from "@/lib/http/route";
 import { requireAdmin, requireUser } from "@/lib/auth/access";
-import { createCourse } from "@/lib/course-admin";
+import { createCourse } from "@/lib/courses/admin";
 import { createCourseSchema } from "@/lib/validation/courses";
 
 export const GET = route(async () => {

@@ -1,6 +1,6 @@
 import { sql } from "kysely";
 import { db } from "@/db";
-import { json } from "@/lib/api";
+import { json } from "@/lib/http/route";
 
 export const dynamic = "force-dynamic";
 

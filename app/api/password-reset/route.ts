@@ -1,5 +1,5 @@
 import { db } from "@/db";
-import { json, jsonBody, route } from "@/lib/api";
+import { json, jsonBody, route } from "@/lib/http/route";
 import { requestPasswordReset } from "@/lib/mail/password-reset";
 import { clientAddress, throttle } from "@/lib/security/throttle";
 import { resetRequestSchema } from "@/lib/validation/mail";

@@ -1,4 +1,4 @@
-import { json, route } from "@/lib/api";
+import { json, route } from "@/lib/http/route";
 import { requireUser } from "@/lib/auth/access";
 import { defaultVariantSpec, MISTAKES, TEMPLATE_KEYS, templates } from "@/lib/grader";
 

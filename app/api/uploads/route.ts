@@ -1,9 +1,9 @@
-import { json, jsonBody, readCapped, route } from "@/lib/api";
+import { json, jsonBody, readCapped, route } from "@/lib/http/route";
 import { requireCourseRole, requireUser } from "@/lib/auth/access";
 import { AppError } from "@/lib/errors";
-import { mb, acceptUpload } from "@/lib/uploads";
-import { labAccess, variantFor } from "@/lib/labs/service";
-import { maxUploadBytes } from "@/lib/storage";
+import { mb, acceptUpload } from "@/lib/uploads/accept";
+import { labAccess, variantFor } from "@/lib/labs/attempts";
+import { maxUploadBytes } from "@/lib/uploads/storage";
 import { requestUpload } from "@/lib/uploads/direct";
 import { uploadRequestSchema } from "@/lib/validation/uploads";
 

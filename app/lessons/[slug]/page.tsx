@@ -7,7 +7,7 @@ import Link from "next/link";
 import { notFound, redirect } from "next/navigation";
 import { getLesson, lessonContents, neighbours } from "@/lib/lessons";
 import { currentUser } from "@/lib/auth/access";
-import { lessonAccess } from "@/lib/course-lessons";
+import { lessonAccess } from "@/lib/courses/lesson-plan";
 import { lessonComponents } from "@/components/lesson/mdx";
 import { CourseLessonNav } from "@/components/lesson/CourseLessonNav";
 import { AppHeader } from "@/components/shell/app-header";

@@ -2,7 +2,7 @@
 // ("4.7 kΩ", "1.8 V"), and read with the grader's parseQuantity when the form is checked.
 import type { ShowExpected } from "@/db/types";
 import type { TemplateKey } from "@/lib/grader";
-import type { Jsonified } from "@/lib/api-client";
+import type { Jsonified } from "@/lib/http/client";
 import type { LabData } from "@/lib/validation/labs";
 
 export type DrawMode = "fixed" | "range" | "list";

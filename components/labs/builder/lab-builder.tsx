@@ -9,7 +9,7 @@ import { useRouter } from "next/navigation";
 import { useEffect, useMemo, useRef, useState, useSyncExternalStore } from "react";
 import { FormProvider, useForm, useWatch } from "react-hook-form";
 import { FormMessage } from "@/components/ui/field";
-import { api, isApiError } from "@/lib/api-client";
+import { api, isApiError } from "@/lib/http/client";
 import { toLocalInput } from "@/lib/dates";
 import { templates, TEMPLATE_KEYS, type TemplateKey } from "@/lib/grader";
 import type { LabInput } from "@/lib/validation/labs";

@@ -1,9 +1,10 @@
 "use client";
 // The questions of a lab: which quantity, a prediction (worked out before the bench) or a bench reading,
 // points and an optional tolerance that overrides the lab's default.
-import { useFieldArray, useFormContext } from "react-hook-form";
-import { templates, type TemplateKey } from "@/lib/grader";
-import type { BuilderForm } from "./form-model";
+import { useDeferredValue, useMemo } from "react";
+import { useFieldArray, useFormContext, useWatch } from "react-hook-form";
+import { bandWarnings, templates, type BandWarning, type TemplateKey } from "@/lib/grader";
+import { formToInput, type BuilderForm } from "./form-model";
 import { SelectInput, TextInput, useFieldError } from "./inputs";
 
 export function QuestionFields({ templateKey }: { templateKey: TemplateKey }) {
@@ -11,6 +12,7 @@ export function QuestionFields({ templateKey }: { templateKey: TemplateKey }) {
   const { fields, append, remove, move } = useFieldArray({ control, name: "questions", keyName: "key" });
   const listError = useFieldError("root.questions");
   const t = templates[templateKey];
+  const warnings = useBandWarnings();
   const quantityOptions = t.quantities.map((q) => ({ value: q.key, label: `${q.label}${q.displayUnit ? ` (${q.displayUnit})` : ""}` }));
   return (
     <div>
@@ -35,6 +37,11 @@ export function QuestionFields({ templateKey }: { templateKey: TemplateKey }) {
                 <TextInput name={`questions.${i}.points`} label="Points" inputMode="decimal" />
                 <TextInput name={`questions.${i}.tolerancePercent`} label="Tolerance (%)" inputMode="decimal" hint="Leave empty to use the lab's default tolerance." />
               </div>
+              {warnings.has(i) ? (
+                <p className="mb-3 rounded-card border-l-4 border-caution-edge bg-caution-bg p-2 text-sm text-caution" role="note" data-testid={`question-${i + 1}-band-warning`}>
+                  {warnings.get(i)!.message}
+                </p>
+              ) : null}
               <div className="flex flex-wrap gap-2">
                 <button type="button" className="btn-quiet" onClick={() => move(i, i - 1)} disabled={i === 0} aria-label={`Move question ${i + 1} up`}>
                   Move up
@@ -60,4 +67,26 @@ export function QuestionFields({ templateKey }: { templateKey: TemplateKey }) {
       </button>
     </div>
   );
+}
+
+/**
+ * Questions whose accepted band cannot tell the right value from a tenth of it on this lab's drawn circuits
+ * (a bench meter that cannot resolve the value, a floor near zero), by question index. Worked out from the
+ * form as it stands; nothing while the form has a value that does not read.
+ */
+function useBandWarnings(): Map<number, BandWarning> {
+  const form = useWatch<BuilderForm>() as BuilderForm;
+  const deferred = useDeferredValue(form);
+  return useMemo(() => {
+    const out = new Map<number, BandWarning>();
+    if (!deferred?.templateKey || !deferred.questions) return out;
+    const { input, errors } = formToInput(deferred);
+    if (Object.keys(errors).length > 0) return out;
+    try {
+      for (const w of bandWarnings(input.spec, input.questions.map((q) => ({ ...q, points: 1 })), input.policy)) out.set(w.index, w);
+    } catch {
+      // a question naming a quantity of another template while the template changes: no warnings yet
+    }
+    return out;
+  }, [deferred]);
 }

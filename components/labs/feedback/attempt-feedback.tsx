@@ -2,10 +2,10 @@
 // the attempt as GET /api/attempts/{id} returns it, the solutions it may show typeset on the server, and
 // for staff the student's name.
 import type { AttemptRow } from "@/db/queries/attempts";
-import { asJson } from "@/lib/api-client";
+import { asJson } from "@/lib/http/client";
 import { isStaff, type CourseAccess } from "@/lib/auth/access";
 import type { Lab } from "@/lib/labs/grading";
-import { attemptsFor, attemptsUsed, presentAttempt } from "@/lib/labs/service";
+import { attemptsFor, attemptsUsed, presentAttempt } from "@/lib/labs/attempts";
 import { QueryProvider } from "@/components/providers/query-provider";
 import { FeedbackView } from "./feedback-view";
 import { typeset } from "./typeset";

@@ -5,7 +5,7 @@
 // server) as a LaTeX → HTML map.
 import { useQuery, useQueryClient } from "@tanstack/react-query";
 import Link from "next/link";
-import { api } from "@/lib/api-client";
+import { api } from "@/lib/http/client";
 import { utcDate } from "@/lib/dates";
 import { GradeTimeline } from "@/components/review/grade-timeline";
 import { StaffReview } from "@/components/review/staff-review";

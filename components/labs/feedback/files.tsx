@@ -3,7 +3,7 @@
 // link is fetched again each time the viewer asks to see it (it works for about a minute).
 import { useMutation, useQueries } from "@tanstack/react-query";
 import { useEffect } from "react";
-import { api, ApiError } from "@/lib/api-client";
+import { api, ApiError } from "@/lib/http/client";
 import type { TraceAnalysis } from "@/lib/trace/types";
 import { TracePanel } from "./trace-panel";
 import { loadError, type AttemptView, type UploadView } from "./types";

@@ -6,7 +6,7 @@ import { useId } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
 import { FormMessage } from "@/components/ui/field";
-import { api, isApiError } from "@/lib/api-client";
+import { api, isApiError } from "@/lib/http/client";
 import { reviewRequestSchema } from "@/lib/validation/labs";
 
 type Values = z.input<typeof reviewRequestSchema>;

@@ -4,7 +4,7 @@
 // min/max per pixel column of this plot's width, so a short wake still shows at its full height.
 import { useId, useRef, useState } from "react";
 import { PlotCanvas } from "@/components/ui/plot";
-import { api, isApiError } from "@/lib/api-client";
+import { api, isApiError } from "@/lib/http/client";
 import { currentScale, formatDuration } from "@/lib/trace/format";
 
 type Window = { from: number; to: number; samples: number; t: number[]; i: number[] };

@@ -1,8 +1,8 @@
 // What the feedback view receives: the attempt exactly as GET /api/attempts/{id} returns it (the page
 // builds it on the server with the same presentAttempt and hands it over), its siblings from
 // GET /api/labs/{labId}/attempts, and its files from GET /api/uploads/{id}.
-import type { Jsonified } from "@/lib/api-client";
-import type { PresentedAttempt } from "@/lib/labs/service";
+import type { Jsonified } from "@/lib/http/client";
+import type { PresentedAttempt } from "@/lib/labs/attempts";
 
 export type AttemptView = Jsonified<PresentedAttempt>;
 export type HistoryItem = { id: string; number: number; score: number; maxScore: number; submittedAt: string; studentId?: string; results: { verdict: string }[] };

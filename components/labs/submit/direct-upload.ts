@@ -6,7 +6,7 @@
 // follows the analysis (GET /api/uploads/{id}) until the upload is ready or failed.
 import Uppy from "@uppy/core";
 import AwsS3 from "@uppy/aws-s3";
-import { api, ApiError } from "@/lib/api-client";
+import { api, ApiError } from "@/lib/http/client";
 import { partBytes, UPLOAD_TYPES, type UploadRequest } from "@/lib/validation/uploads";
 import type { UploadedFile } from "./upload";
 

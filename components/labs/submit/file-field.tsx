@@ -5,7 +5,7 @@
 // server, with the analysis's progress shown; an image goes through the app (./upload.ts).
 import { useEffect, useId, useRef, useState } from "react";
 import { formatQuantity } from "@/lib/grader/format";
-import { toApiError } from "@/lib/api-client";
+import { toApiError } from "@/lib/http/client";
 import { uploadErrorMessage } from "./read";
 import { sendUpload, type UploadedFile } from "./upload";
 

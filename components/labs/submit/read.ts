@@ -1,7 +1,7 @@
 // Pure helpers of the submission form: the request body, idempotency keys and the messages for server
 // and upload errors. No React, so the unit tests run them directly. How a typed reading is read needs
 // the units library and lives in read-quantities.ts, which the form loads when a field is first used.
-import type { ApiErrorDetail } from "@/lib/api-client";
+import type { ApiErrorDetail } from "@/lib/http/client";
 
 /** What the form needs to know about one question (a subset of the handout's `questions`). */
 export interface FormQuestion {

@@ -13,7 +13,7 @@ import { useForm, useWatch, type Control, type Resolver, type UseFormRegisterRet
 import type { z } from "zod";
 import { FieldMessage, FormMessage, QuantityInput } from "@/components/ui/field";
 import { useHydrated } from "@/components/ui/use-hydrated";
-import { api, isApiError } from "@/lib/api-client";
+import { api, isApiError } from "@/lib/http/client";
 import type { AttemptInput, attemptInputSchema } from "@/lib/validation/attempts";
 import { FileField } from "./file-field";
 import { mapServerFields, measuredPayload, newIdempotencyKey, submitErrorMessage, toPayload, type FormMeasured, type FormQuestion } from "./read";

@@ -12,12 +12,14 @@ function values(p: Params) {
   const vos = num(p, "offsetVoltage");
   const seebeck = num(p, "seebeckMicrovoltsPerKelvin");
   const dT = num(p, "junctionTemperatureDifference");
+  // labs stored before the input range existed carry none: no range check for them
+  const inputRange = typeof p.inputRange === "number" ? p.inputRange : Infinity;
   const thermalEmf = seebeck * 1e-6 * dT;
   const offsets = vos + thermalEmf;
   const forwardVoltage = i * r + offsets;
   const reverseVoltage = -i * r + offsets;
   return {
-    r, i, vos, seebeck, dT, thermalEmf, offsets, forwardVoltage, reverseVoltage,
+    r, i, vos, seebeck, dT, inputRange, thermalEmf, offsets, forwardVoltage, reverseVoltage,
     apparentCurrent: offsets / r,
     offsetErrorPercent: (100 * offsets) / (i * r),
     reversedCurrent: (forwardVoltage - reverseVoltage) / (2 * r),
@@ -36,6 +38,7 @@ export const offsetThermal: Template = {
     { key: "offsetVoltage", label: "Amplifier input offset voltage (signed)", symbol: "V_\\mathrm{os}", unit: "V", displayUnit: "µV", kind: "number", default: 10e-6, min: -10e-3, max: 10e-3, suggestedRange: [5e-6, 50e-6] },
     { key: "seebeckMicrovoltsPerKelvin", label: "Thermoelectric coefficient of the junction pair", symbol: "S", unit: "", displayUnit: "µV/K", kind: "number", default: 5, min: 0, max: 1000, description: "Copper to copper about 0.2 µV/K, copper to tin-lead solder a few µV/K, copper to copper oxide up to about 1000 µV/K." },
     { key: "junctionTemperatureDifference", label: "Temperature difference between the junctions", symbol: "\\Delta T", unit: "K", displayUnit: "K", kind: "number", default: 1, min: 0, max: 100, suggestedRange: [0.5, 5] },
+    { key: "inputRange", label: "Amplifier input range (±, referred to the input)", symbol: "V_\\mathrm{in,max}", unit: "V", displayUnit: "mV", kind: "number", default: 0.1, min: 1e-6, max: 100, description: "The largest voltage either way the amplifier reads without clipping, referred to its input. Both readings of a reversal must stay within it." },
   ],
   quantities: [
     { key: "thermalEmf", label: "Thermoelectric voltage", symbol: "V_\\mathrm{th}", unit: "V", displayUnit: "µV", kind: "number", description: "The junction pair's voltage, S times the temperature difference." },
@@ -61,7 +64,9 @@ export const offsetThermal: Template = {
     if (!allPositive(v.r, v.i)) return "the shunt and the current must be positive";
     if (!(Number.isFinite(v.vos) && v.seebeck >= 0 && v.dT >= 0)) return "the offset must be a number, the coefficient and the temperature difference not negative";
     if (!(Math.abs(v.offsets) > 0)) return "the offsets cancel exactly: nothing to correct";
-    if (!(Math.abs(v.offsets) < v.i * v.r)) return "the offsets must be smaller than the signal I·R, or the reversal cannot be read";
+    // a reversal works for any offset that keeps both readings within the amplifier's range, even an offset
+    // larger than the signal, which is exactly when it is needed (PHYSICS.md §15)
+    if (!(Math.max(Math.abs(v.forwardVoltage), Math.abs(v.reverseVoltage)) <= v.inputRange)) return "both readings must stay within the amplifier's input range";
     return null;
   },
   solution(p, q) {
@@ -101,6 +106,13 @@ export const offsetThermal: Template = {
     if (q !== "reversedCurrent") return undefined;
     const v = values(p);
     return { values: { V_plus: v.forwardVoltage, V_minus: v.reverseVoltage }, formula: (r) => (r.V_plus - r.V_minus) / (2 * v.r) };
+  },
+  benchValue(nominal, actual, q) {
+    // the two readings come from the actual shunt; the student divides their difference by the given R, so
+    // the shunt's tolerance carries straight into the current (PHYSICS.md §17 17h)
+    if (q !== "reversedCurrent") return undefined;
+    const a = values(actual);
+    return (a.forwardVoltage - a.reverseVoltage) / (2 * num(nominal, "shuntResistance"));
   },
   bandFloor(p, q, rel) {
     const v = values(p);

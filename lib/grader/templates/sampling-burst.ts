@@ -44,7 +44,7 @@ export const samplingBurst: Template = {
     { key: "sleepCurrent", label: "Sleep current", symbol: "I_\\mathrm{s}", unit: "A", displayUnit: "µA", kind: "number", default: 2e-6, min: 1e-12, max: 1, suggestedRange: [1e-6, 10e-6] },
   ],
   quantities: [
-    { key: "samplesPerBurst", label: "Samples per burst", symbol: "n_\\mathrm{b}", unit: "", displayUnit: "samples", kind: "number", description: "Burst width times sample rate (a burst catches the whole number below or above it, by phase)." },
+    { key: "samplesPerBurst", label: "Samples per burst", symbol: "n_\\mathrm{b}", unit: "", displayUnit: "samples", kind: "number", counted: true, description: "Burst width times sample rate (a burst catches the whole number below or above it, by phase)." },
     { key: "minimumSampleRate", label: "Lowest sample rate for N samples per burst", symbol: "f_\\mathrm{s,min}", unit: "Hz", displayUnit: "kHz", kind: "number", description: "The required number of samples divided by the burst width." },
     { key: "apparentWakeFrequency", label: "Apparent wake frequency on the slow logger", symbol: "f_\\mathrm{a}", unit: "Hz", displayUnit: "mHz", kind: "number", description: "The wake rate 1/T as the slow logger shows it: its distance to the nearest multiple of f_log." },
     { key: "worstCaseAverageError", label: "Worst-case error of the average", symbol: "\\Delta\\bar I", unit: "A", displayUnit: "µA", kind: "number", description: "One sample interval of (I_a − I_s) per wake period." },

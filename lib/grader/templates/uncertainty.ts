@@ -22,8 +22,29 @@ export interface UncertaintyBudget {
   dominant: ContributionKey;
 }
 
-export type ContributionKey = "reading" | "shunt tolerance" | "shunt tempco" | "amplifier gain" | "reference" | "quantisation";
-export const CONTRIBUTION_KEYS: ContributionKey[] = ["reading", "shunt tolerance", "shunt tempco", "amplifier gain", "reference", "quantisation"];
+export type ContributionKey =
+  | "reading"
+  | "shunt tolerance"
+  | "shunt tempco"
+  | "amplifier gain"
+  | "reference"
+  | "quantisation"
+  | "repeatability"
+  | "offset"
+  | "bias current"
+  | "leakage";
+export const CONTRIBUTION_KEYS: ContributionKey[] = [
+  "reading",
+  "shunt tolerance",
+  "shunt tempco",
+  "amplifier gain",
+  "reference",
+  "quantisation",
+  "repeatability",
+  "offset",
+  "bias current",
+  "leakage",
+];
 
 /** One line of a GUM budget: input x_i, its standard uncertainty u(x_i), sensitivity c_i = ∂I/∂x_i and u_i(I) = |c_i|·u(x_i). */
 export interface BudgetRow {
@@ -34,14 +55,14 @@ export interface BudgetRow {
   symbol: string;
   /** the bound ±a the specification gives (in the input's unit), or the step q for quantisation */
   bound: number;
-  distribution: "rectangular ±a: a/√3" | "rectangular step q: q/√12";
+  distribution: "rectangular ±a: a/√3" | "rectangular step q: q/√12" | "Type A: s/√n" | "off";
   /** u(x_i) in the input's unit */
   standard: number;
   /** SI unit of the input ("V", "ohm", "K", "" for a relative error) */
   unit: string;
   /** c_i = ∂I/∂x_i, in A per the input's unit */
   sensitivity: number;
-  sensitivityUnit: "A/V" | "A/ohm" | "A/K" | "A";
+  sensitivityUnit: "A/V" | "A/ohm" | "A/K" | "A" | "A/A";
   /** u_i(I) = |c_i|·u(x_i), A */
   contribution: number;
 }
@@ -77,6 +98,13 @@ export function chainInputs(p: Params) {
     vref,
     /** one converter step referred to the shunt, V (0 when the chain has no converter) */
     stepAtShunt: bits > 0 ? vref / (2 ** bits * gain) : 0,
+    /** Type A: the experimental standard deviation s of n repeated readings, V (GUM 4.2.2) */
+    repeatStdDev: opt(p, "repeatStdDev", 0),
+    repeatCount: opt(p, "repeatCount", 1),
+    /** ± bounds: the amplifier's input offset at the shunt (V), its input bias current and the leakage (A) */
+    offsetBound: opt(p, "offsetBound", 0),
+    biasCurrentBound: opt(p, "biasCurrentBound", 0),
+    leakageBound: opt(p, "leakageBound", 0),
   };
 }
 
@@ -93,9 +121,12 @@ export function uncertaintyBudget(p: Params, opts: { resolutionTerm?: boolean } 
   const tol = num(p, "shuntTolerancePercent");
   const k = num(p, "coverageFactor");
   const c = chainInputs(p);
-  const readingBound = (pct / 100) * Math.abs(v) + counts * delta;
+  // With a converter the reading is the converter's code: the amplifier's gain, the reference and the step
+  // are its rows, and a voltmeter's ±(p % + n counts) would count the same errors twice (so it is off).
+  const voltmeter = c.bits === 0;
+  const readingBound = voltmeter ? (pct / 100) * Math.abs(v) + counts * delta : 0;
   let readingStandard = rectangularStandardUncertainty(readingBound);
-  if (opts.resolutionTerm) readingStandard = Math.hypot(readingStandard, delta / (2 * Math.sqrt(3)));
+  if (opts.resolutionTerm && voltmeter) readingStandard = Math.hypot(readingStandard, delta / (2 * Math.sqrt(3)));
   const relReading = readingStandard / Math.abs(v);
   const relShunt = rectangularStandardUncertainty(tol / 100);
   const current = v / r;
@@ -109,16 +140,26 @@ export function uncertaintyBudget(p: Params, opts: { resolutionTerm?: boolean } 
   const relGain = uGain;
   const relRef = uRef;
   const relQuant = uQ / Math.abs(v);
-  const relCombined = Math.hypot(relReading, relShunt, relTempco, relGain, relRef, relQuant);
-  const combined = relCombined * i;
+  // Type A (GUM 4.2.3): the standard deviation of the mean of n readings, s/√n; offset, bias current and
+  // leakage as rectangular ± bounds. The offset enters like the reading (c = 1/R); bias and leakage add to I.
+  const uTypeA = c.repeatStdDev / Math.sqrt(c.repeatCount);
+  const uOffset = rectangularStandardUncertainty(c.offsetBound);
+  const uBias = rectangularStandardUncertainty(c.biasCurrentBound);
+  const uLeak = rectangularStandardUncertainty(c.leakageBound);
+  const combined = Math.hypot(relReading * i, relShunt * i, relTempco * i, relGain * i, relRef * i, relQuant * i, uTypeA / r, uOffset / r, uBias, uLeak);
+  const relCombined = combined / i;
   const rect = "rectangular ±a: a/√3" as const;
   const rows: BudgetRow[] = [
-    { key: "reading", input: "voltage reading", symbol: "V", bound: readingBound, distribution: rect, standard: readingStandard, unit: "V", sensitivity: 1 / r, sensitivityUnit: "A/V", contribution: relReading * i },
+    { key: "reading", input: voltmeter ? "voltage reading" : "voltmeter reading (off: the converter's rows replace it)", symbol: "V", bound: readingBound, distribution: voltmeter ? rect : "off", standard: readingStandard, unit: "V", sensitivity: 1 / r, sensitivityUnit: "A/V", contribution: relReading * i },
     { key: "shunt tolerance", input: "shunt resistance", symbol: "R", bound: (tol / 100) * r, distribution: rect, standard: relShunt * r, unit: "ohm", sensitivity: -current / r, sensitivityUnit: "A/ohm", contribution: relShunt * i },
     { key: "shunt tempco", input: "shunt temperature change", symbol: "\\theta", bound: c.temperatureChange, distribution: rect, standard: uTheta, unit: "K", sensitivity: -current * alpha, sensitivityUnit: "A/K", contribution: relTempco * i },
     { key: "amplifier gain", input: "relative gain error", symbol: "\\varepsilon_G", bound: c.gainErrorPercent / 100, distribution: rect, standard: uGain, unit: "", sensitivity: -current, sensitivityUnit: "A", contribution: relGain * i },
     { key: "reference", input: "relative reference error", symbol: "\\varepsilon_\\mathrm{ref}", bound: c.referenceTolerancePercent / 100, distribution: rect, standard: uRef, unit: "", sensitivity: current, sensitivityUnit: "A", contribution: relRef * i },
     { key: "quantisation", input: "converter step at the shunt", symbol: "q", bound: c.stepAtShunt, distribution: "rectangular step q: q/√12", standard: uQ, unit: "V", sensitivity: 1 / r, sensitivityUnit: "A/V", contribution: relQuant * i },
+    { key: "repeatability", input: `mean of ${c.repeatCount} repeated readings (Type A)`, symbol: "\\bar V", bound: c.repeatStdDev, distribution: "Type A: s/√n", standard: uTypeA, unit: "V", sensitivity: 1 / r, sensitivityUnit: "A/V", contribution: uTypeA / r },
+    { key: "offset", input: "amplifier input offset at the shunt", symbol: "V_\\mathrm{os}", bound: c.offsetBound, distribution: rect, standard: uOffset, unit: "V", sensitivity: 1 / r, sensitivityUnit: "A/V", contribution: uOffset / r },
+    { key: "bias current", input: "amplifier input bias current", symbol: "I_\\mathrm{b}", bound: c.biasCurrentBound, distribution: rect, standard: uBias, unit: "A", sensitivity: 1, sensitivityUnit: "A/A", contribution: uBias },
+    { key: "leakage", input: "leakage into the measuring node", symbol: "I_\\mathrm{leak}", bound: c.leakageBound, distribution: rect, standard: uLeak, unit: "A", sensitivity: 1, sensitivityUnit: "A/A", contribution: uLeak },
   ];
   let dominant = rows[0];
   for (const row of rows) if (row.contribution > dominant.contribution) dominant = row;
@@ -132,11 +173,15 @@ const CONTRIBUTION_QUANTITY: Record<string, ContributionKey> = {
   gainContribution: "amplifier gain",
   referenceContribution: "reference",
   quantisationContribution: "quantisation",
+  repeatabilityContribution: "repeatability",
+  offsetContribution: "offset",
+  biasContribution: "bias current",
+  leakageContribution: "leakage",
 };
 
 /** LaTeX lines of the full budget table (input, u(x_i), c_i, u_i(I)) for worked solutions. */
 function budgetTable(b: UncertaintyBudget): string {
-  const cUnit: Record<BudgetRow["sensitivityUnit"], string> = { "A/V": "A/V", "A/ohm": "A/\\Omega", "A/K": "A/K", A: "A" };
+  const cUnit: Record<BudgetRow["sensitivityUnit"], string> = { "A/V": "A/V", "A/ohm": "A/\\Omega", "A/K": "A/K", A: "A", "A/A": "A/A" };
   const rows = b.rows.map((row) => {
     const u = row.unit === "" ? texNumber(row.standard) : tq(row.standard, row.unit);
     const c = `${texNumber(row.sensitivity)}\\,\\mathrm{${cUnit[row.sensitivityUnit]}}`;
@@ -166,6 +211,12 @@ export const uncertainty: Template = {
     { key: "amplifierGain", label: "Amplifier gain", symbol: "G", unit: "", displayUnit: "", kind: "number", default: 1, min: 1e-3, max: 1e6 },
     { key: "adcBits", label: "Converter resolution (0: no converter)", symbol: "N", unit: "", displayUnit: "bits", kind: "integer", default: 0, min: 0, max: 24, suggestedRange: [10, 16] },
     { key: "adcReference", label: "Converter reference voltage", symbol: "V_\\mathrm{ref}", unit: "V", displayUnit: "V", kind: "number", default: 3.3, min: 0.1, max: 10 },
+    // Nanoamp terms, each off (0) unless the lab sets it.
+    { key: "repeatStdDev", label: "Standard deviation of repeated readings (Type A)", symbol: "s", unit: "V", displayUnit: "µV", kind: "number", default: 0, min: 0, max: 10, description: "The experimental standard deviation of the repeated readings; 0 leaves the term out." },
+    { key: "repeatCount", label: "Number of repeated readings averaged", symbol: "n", unit: "", displayUnit: "readings", kind: "integer", default: 1, min: 1, max: 100000 },
+    { key: "offsetBound", label: "Amplifier input offset at the shunt (± bound)", symbol: "a_\\mathrm{os}", unit: "V", displayUnit: "µV", kind: "number", default: 0, min: 0, max: 1 },
+    { key: "biasCurrentBound", label: "Amplifier input bias current (± bound)", symbol: "a_\\mathrm{b}", unit: "A", displayUnit: "pA", kind: "number", default: 0, min: 0, max: 1e-3 },
+    { key: "leakageBound", label: "Leakage into the measuring node (± bound)", symbol: "a_\\mathrm{leak}", unit: "A", displayUnit: "pA", kind: "number", default: 0, min: 0, max: 1e-3 },
   ],
   quantities: [
     { key: "current", label: "Current", symbol: "I", unit: "A", displayUnit: "mA", kind: "number", description: "The current, reading divided by the shunt." },
@@ -180,6 +231,10 @@ export const uncertainty: Template = {
     { key: "gainContribution", label: "Contribution of the amplifier gain error", symbol: "u_G(I)", unit: "A", displayUnit: "µA", kind: "number", description: "|I| times the gain error's standard uncertainty, g/√3." },
     { key: "referenceContribution", label: "Contribution of the reference tolerance", symbol: "u_\\mathrm{ref}(I)", unit: "A", displayUnit: "µA", kind: "number", description: "|I| times the reference's standard uncertainty, r/√3." },
     { key: "quantisationContribution", label: "Contribution of quantisation", symbol: "u_q(I)", unit: "A", displayUnit: "µA", kind: "number", description: "One converter step referred to the shunt, q = V_ref/(2^N·G), over √12, divided by R." },
+    { key: "repeatabilityContribution", label: "Contribution of repeatability (Type A)", symbol: "u_A(I)", unit: "A", displayUnit: "pA", kind: "number", description: "The standard deviation of the mean, s/√n, divided by R." },
+    { key: "offsetContribution", label: "Contribution of the amplifier's offset", symbol: "u_\\mathrm{os}(I)", unit: "A", displayUnit: "pA", kind: "number", description: "The offset's bound over √3, divided by R." },
+    { key: "biasContribution", label: "Contribution of the bias current", symbol: "u_\\mathrm{b}(I)", unit: "A", displayUnit: "pA", kind: "number", description: "The bias current's bound over √3 (it adds to the current directly)." },
+    { key: "leakageContribution", label: "Contribution of leakage", symbol: "u_\\mathrm{leak}(I)", unit: "A", displayUnit: "pA", kind: "number", description: "The leakage's bound over √3 (it adds to the current directly)." },
     { key: "dominantContribution", label: "Dominant contribution", symbol: "\\text{dominant}", unit: "", displayUnit: "", kind: "category", choices: [...CONTRIBUTION_KEYS], description: "The source with the largest contribution u_i(I)." },
   ],
   compute(p) {
@@ -204,6 +259,8 @@ export const uncertainty: Template = {
     const c = chainInputs(p);
     if (!(c.tempcoPpm >= 0 && c.temperatureChange >= 0 && c.gainErrorPercent >= 0 && c.referenceTolerancePercent >= 0 && c.bits >= 0)) return "the chain's coefficients, bounds and resolution cannot be negative";
     if (!allPositive(c.gain, c.vref) || !Number.isInteger(c.bits)) return "the gain and the reference must be positive and the resolution a whole number of bits";
+    if (!(c.repeatStdDev >= 0 && c.offsetBound >= 0 && c.biasCurrentBound >= 0 && c.leakageBound >= 0)) return "the standard deviation and the bounds cannot be negative";
+    if (!(Number.isInteger(c.repeatCount) && c.repeatCount >= 1)) return "the number of repeated readings must be a whole number, at least 1";
     if (c.bits > 0 && Math.abs(num(p, "reading")) * c.gain > c.vref) return "the amplified reading must stay within the converter's reference";
     if (!allPositive(b.combined)) return "the budget has no uncertainty in it";
     return null;
@@ -223,8 +280,28 @@ export const uncertainty: Template = {
     const cV = `c_V = \\frac{\\partial I}{\\partial V} = \\frac{1}{R} = \\frac{1}{${R}} = ${texNumber(1 / num(p, "shuntResistance"))}\\,\\mathrm{A/V}`;
     const cR = `c_R = \\frac{\\partial I}{\\partial R} = -\\frac{V}{R^2} = -\\frac{I}{R} = ${texNumber(-b.current / num(p, "shuntResistance"))}\\,\\mathrm{A/\\Omega}`;
     const rowOf = (key: ContributionKey) => b.rows.find((row) => row.key === key)!;
+    const bounded = (key: ContributionKey, name: string, bound: string, viaR: boolean) => {
+      const row = rowOf(key);
+      return [
+        ...I,
+        `u(${name}) = \\frac{${bound}}{\\sqrt 3} = ${tq(row.standard, row.unit)}`,
+        viaR ? cV : `\\text{it adds to the current: } c = 1`,
+        `u(I) = ${viaR ? "\\frac{u}{R}" : "u"} = ${tq(row.contribution, "A")}`,
+      ];
+    };
     const lines: Record<string, string[]> = {
-      readingContribution: [...I, ...reading, cV, `u_V(I) = |c_V|\\,u(V) = ${tq(rowOf("reading").contribution, "A")}`],
+      readingContribution:
+        c.bits > 0
+          ? ["\\text{with a converter the reading is its code: gain, reference and step are its rows, so a voltmeter row would count them twice}", "u_V(I) = 0"]
+          : [...I, ...reading, cV, `u_V(I) = |c_V|\\,u(V) = ${tq(rowOf("reading").contribution, "A")}`],
+      repeatabilityContribution: [
+        `u_A(V) = \\frac{s}{\\sqrt n} = \\frac{${tq(c.repeatStdDev, "V")}}{\\sqrt{${c.repeatCount}}} = ${tq(rowOf("repeatability").standard, "V")}`,
+        cV,
+        `u_A(I) = \\frac{u_A(V)}{R} = ${tq(rowOf("repeatability").contribution, "A")}`,
+      ],
+      offsetContribution: bounded("offset", "V_\\mathrm{os}", tq(c.offsetBound, "V"), true),
+      biasContribution: bounded("bias current", "I_\\mathrm{b}", tq(c.biasCurrentBound, "A"), false),
+      leakageContribution: bounded("leakage", "I_\\mathrm{leak}", tq(c.leakageBound, "A"), false),
       shuntToleranceContribution: [...I, ...shunt, cR, `u_R(I) = |c_R|\\,u(R) = |I|\\,u_r(R) = ${tq(rowOf("shunt tolerance").contribution, "A")}`],
       tempcoContribution: [
         ...I,
@@ -268,6 +345,10 @@ export const uncertainty: Template = {
     const k = num(p, "coverageFactor");
     const r = num(p, "shuntResistance");
     const relBoundV = b.readingBound / Math.abs(num(p, "reading"));
+    const relBoundOs = c.offsetBound / Math.abs(num(p, "reading"));
+    const relBoundB = c.biasCurrentBound / i;
+    const relBoundL = c.leakageBound / i;
+    const relTypeA = c.repeatStdDev / Math.sqrt(c.repeatCount) / Math.abs(num(p, "reading"));
     const relBoundR = num(p, "shuntTolerancePercent") / 100;
     const relBoundT = c.tempcoPpm * 1e-6 * c.temperatureChange;
     const relBoundG = c.gainErrorPercent / 100;
@@ -275,8 +356,8 @@ export const uncertainty: Template = {
     const relBoundQ = c.stepAtShunt / 2 / Math.abs(num(p, "reading"));
     const rel = b.rows.map((row) => row.contribution / i);
     const linearStd = rel.reduce((a, x) => a + x, 0); // standard uncertainties added linearly
-    const linearBounds = relBoundV + relBoundR + relBoundT + relBoundG + relBoundRef + relBoundQ; // bounds added linearly
-    const noRoot3 = Math.hypot(relBoundV, relBoundR, relBoundT, relBoundG, relBoundRef, relBoundQ); // bounds used as standard uncertainties
+    const linearBounds = relBoundV + relBoundR + relBoundT + relBoundG + relBoundRef + relBoundQ + relBoundOs + relBoundB + relBoundL + relTypeA; // bounds added linearly
+    const noRoot3 = Math.hypot(relBoundV, relBoundR, relBoundT, relBoundG, relBoundRef, relBoundQ, relBoundOs, relBoundB, relBoundL, relTypeA); // bounds used as standard uncertainties
     const lin = "You added the relative terms linearly; independent terms add in quadrature: √(Σ u_r²).";
     const root3 = "You used the ±bounds as standard uncertainties; a rectangular bound a gives u = a/√3.";
     const out: MistakeCandidate[] = [];
@@ -289,17 +370,26 @@ export const uncertainty: Template = {
     if (q === "relativeStandardUncertaintyPercent") add(100);
     if (q === "combinedStandardUncertainty") add(i);
     if (q === "expandedUncertainty") add(k * i, [i * linearBounds]);
-    const bound: Record<string, number> = { readingContribution: relBoundV, shuntToleranceContribution: relBoundR, tempcoContribution: relBoundT, gainContribution: relBoundG, referenceContribution: relBoundRef };
+    const bound: Record<string, number> = {
+      readingContribution: relBoundV, shuntToleranceContribution: relBoundR, tempcoContribution: relBoundT, gainContribution: relBoundG, referenceContribution: relBoundRef,
+      offsetContribution: relBoundOs, biasContribution: relBoundB, leakageContribution: relBoundL,
+    };
     if (q in bound && bound[q] > 0) out.push({ key: "no-root-three", value: i * bound[q], detail: root3 });
     if (q === "quantisationContribution" && c.stepAtShunt > 0) {
       out.push({ key: "step-not-halved", value: c.stepAtShunt / Math.sqrt(3) / r, detail: "You divided the whole step by √3; rounding spreads over ±q/2, so u = q/√12." });
       out.push({ key: "no-root-three", value: c.stepAtShunt / 2 / r, detail: "You used the half-step q/2 itself as the standard uncertainty; divide it by √3 (q/√12 in all)." });
     }
+    if (q === "repeatabilityContribution" && c.repeatCount > 1 && c.repeatStdDev > 0)
+      out.push({ key: "no-root-n", value: c.repeatStdDev / r, detail: "You used the standard deviation of one reading, s; the mean of n readings has s/√n." });
     if (q === "sensitivityShunt") out.push({ key: "sign-flip", value: b.current / r, detail: "A larger shunt gives a smaller current for the same reading: ∂I/∂R = −I/R is negative." });
     return out;
   },
   bandFloor(p, q, rel) {
-    // a contribution the lab leaves out is zero: accept a small answer near it
-    return q in CONTRIBUTION_QUANTITY ? 0.1 * rel * uncertaintyBudget(p).combined : 0;
+    // a contribution the lab switches off is exactly zero: accept a small answer near it. A contribution that
+    // is small but not zero keeps its plain relative band, or a tenfold slip on it would pass (PHYSICS.md §17 17k)
+    if (!(q in CONTRIBUTION_QUANTITY)) return 0;
+    const b = uncertaintyBudget(p);
+    const row = b.rows.find((r) => r.key === CONTRIBUTION_QUANTITY[q]);
+    return row && row.contribution === 0 ? 0.1 * rel * b.combined : 0;
   },
 };

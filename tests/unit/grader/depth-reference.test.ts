@@ -127,25 +127,27 @@ describe("uncertainty: the whole chain", () => {
   });
   it("50 mV across 0.1 Ω with 50 ppm/K over 10 K, 0.2 % gain, 0.1 % reference, ×50 into 12 bits: the budget", () => {
     // GUM 4.3.7 (a/√3), F.2.2.1 (q/√12), 5.1.2 (Σ (c_i u_i)²), 6.2 (U = k u_c): worked by hand from the formulas
+    // (PHYSICS.md §9 9g). The converter reads the shunt: its gain, reference and step are the rows, and the
+    // voltmeter's ±(0.5 % + 2 counts) is not counted beside them (it would count the same errors twice).
     const v = unc(chain);
     near(v.current, 0.5);
     near(v.sensitivityReading, 10); // 1/R in A/V
     near(v.sensitivityShunt, -5); // −I/R in A/Ω
-    near(v.readingContribution, 2.598e-3); // (0.5 % × 50 mV + 2 × 0.1 mV)/√3 / 0.1 Ω
+    expect(v.readingContribution).toBe(0);
     near(v.shuntToleranceContribution, 2.887e-3); // 0.5 A × 1 %/√3
     near(v.tempcoContribution, 144.3e-6); // 0.5 A × 50e-6 K⁻¹ × 10 K/√3
     near(v.gainContribution, 577.4e-6); // 0.5 A × 0.2 %/√3
     near(v.referenceContribution, 288.7e-6); // 0.5 A × 0.1 %/√3
     near(v.quantisationContribution, 46.52e-6); // 3.3 V/(4096 × 50)/√12 / 0.1 Ω
-    near(v.relativeStandardUncertaintyPercent, 0.7880);
-    near(v.combinedStandardUncertainty, 3.940e-3);
-    near(v.expandedUncertainty, 7.880e-3);
+    near(v.relativeStandardUncertaintyPercent, 0.5924);
+    near(v.combinedStandardUncertainty, 2.962e-3);
+    near(v.expandedUncertainty, 5.924e-3);
     expect(v.dominantContribution).toBe("shunt tolerance");
   });
   it("mathjs agrees on the combined uncertainty with units", () => {
     const v = unc(chain);
     const uc = ev(
-      "sqrt((10 A/V * (0.005 * 50 mV + 2 * 0.1 mV) / sqrt(3))^2 + (5 A/ohm * 0.01 * 0.1 ohm / sqrt(3))^2 + (0.5 A * 50e-6 / K * 10 K / sqrt(3))^2 + (0.5 A * 0.002 / sqrt(3))^2 + (0.5 A * 0.001 / sqrt(3))^2 + (10 A/V * 3.3 V / (4096 * 50) / sqrt(12))^2)",
+      "sqrt((5 A/ohm * 0.01 * 0.1 ohm / sqrt(3))^2 + (0.5 A * 50e-6 / K * 10 K / sqrt(3))^2 + (0.5 A * 0.002 / sqrt(3))^2 + (0.5 A * 0.001 / sqrt(3))^2 + (10 A/V * 3.3 V / (4096 * 50) / sqrt(12))^2)",
       "A",
     );
     near(v.combinedStandardUncertainty, uc, 1e-12);
@@ -162,12 +164,30 @@ describe("uncertainty: the whole chain", () => {
         { quantity: "dominantContribution", kind: "prediction", points: 1 },
         { quantity: "relativeStandardUncertaintyPercent", kind: "prediction", points: 1 },
       ],
-      // the bounds added linearly: 0.9 % + 1 % + 0.05 % + 0.2 % + 0.1 % + 0.01611 % (by hand)
-      readings: ["Shunt tolerance", "2.266 %"],
+      // the bounds added linearly: 1 % + 0.05 % + 0.2 % + 0.1 % + 0.01611 % (by hand, PHYSICS.md §9 9h)
+      readings: ["Shunt tolerance", "1.366 %"],
     });
     expect(r.results[0].verdict).toBe("correct");
     expect(r.results[1].verdict).toBe("mistake");
     expect(r.results[1].mistake).toBe("linear-sum");
+  });
+  it("at nanoamps Type A, offset, bias current and leakage dominate (PHYSICS.md §9 9i)", () => {
+    // by hand [FORMULA: GUM 4.2.3 s/√n; 4.3.7 a/√3; 5.1.2]: 5 mV across 1 MΩ ± 0.1 % = 5 nA, read with
+    // ±(0.05 % + 2 counts of 1 µV); s = 30 µV over n = 10; offset ±20 µV; bias ±10 pA; leakage ±5 pA
+    const nano = { reading: 5e-3, readingAccuracyPercent: 0.05, readingCounts: 2, countSize: 1e-6, shuntResistance: 1e6, shuntTolerancePercent: 0.1, coverageFactor: 2, repeatStdDev: 30e-6, repeatCount: 10, offsetBound: 20e-6, biasCurrentBound: 10e-12, leakageBound: 5e-12 };
+    const v = unc(nano);
+    near(v.current, 5e-9);
+    near(v.readingContribution, 2.598e-12); // (0.05 % × 5 mV + 2 µV)/√3/1 MΩ
+    near(v.repeatabilityContribution, 9.487e-12); // 30 µV/√10/1 MΩ
+    near(v.offsetContribution, 11.55e-12); // 20 µV/√3/1 MΩ
+    near(v.biasContribution, 5.774e-12); // 10 pA/√3
+    near(v.leakageContribution, 2.887e-12); // 5 pA/√3
+    near(v.combinedStandardUncertainty, 16.74e-12);
+    near(v.expandedUncertainty, 33.47e-12);
+    expect(v.dominantContribution).toBe("offset");
+    // s itself for the mean (no √n): 30 pA, a recognised mistake
+    const r = gradeAttempt({ template: "uncertainty", params: nano, questions: [{ quantity: "repeatabilityContribution", kind: "prediction", points: 1 }], readings: ["30 pA"] });
+    expect(r.results[0].mistake).toBe("no-root-n");
   });
   it("a new lab from the builder's defaults draws the chain, and each draw can be computed", () => {
     const spec = defaultVariantSpec("uncertainty");

@@ -77,6 +77,12 @@ const cases: Case[] = [
   { key: "period-for-burst", template: "sampling-burst", params: sbp, quantity: "minimumSampleRate", wrong: "19.61 Hz", right: "4 kHz" },
   // 1/1.02 s = 980.4 mHz reported; the 1 Hz logger shows |0.9804 − 1| Hz = 19.61 mHz
   { key: "ignored-aliasing", template: "sampling-burst", params: sbp, quantity: "apparentWakeFrequency", wrong: "980.4 mHz", right: "19.61 mHz" },
+  // PHYSICS.md §9 9i [FORMULA: GUM 4.2.3]: s = 30 µV over n = 10 across 1 MΩ: 9.487 pA; s alone 30 pA
+  {
+    key: "no-root-n", template: "uncertainty",
+    params: { reading: 5e-3, readingAccuracyPercent: 0.05, readingCounts: 2, countSize: 1e-6, shuntResistance: 1e6, shuntTolerancePercent: 0.1, coverageFactor: 2, repeatStdDev: 30e-6, repeatCount: 10 },
+    quantity: "repeatabilityContribution", wrong: "30 pA", right: "9.487 pA",
+  },
 ];
 
 function grade(c: Case, answer: string | number) {
@@ -86,7 +92,7 @@ function grade(c: Case, answer: string | number) {
 describe("recognised mistakes", () => {
   it("every key in lib/grader/README.md has a case", () => {
     expect(new Set(cases.map((c) => c.key))).toEqual(new Set(MISTAKE_KEYS));
-    expect(MISTAKE_KEYS.length).toBe(19);
+    expect(MISTAKE_KEYS.length).toBe(20);
   });
   for (const c of cases) {
     it(`${c.key}: ${c.template}.${c.quantity} "${c.wrong}" is recognised; "${c.right}" is correct`, () => {

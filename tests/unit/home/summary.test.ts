@@ -1,6 +1,6 @@
 // What a student's course home says is next. Expected values are worked out by hand from the dates below.
 import { describe, expect, it } from "vitest";
-import { studentSummary, timeLeft, type HomeLab } from "@/lib/home/summary";
+import { studentSummary, timeLeft, type HomeLab } from "@/lib/courses/home-summary";
 
 const now = new Date("2027-03-10T12:00:00Z");
 const at = (iso: string) => new Date(iso);

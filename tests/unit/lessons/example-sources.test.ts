@@ -31,7 +31,7 @@ function shownExamples(mdx: string): Map<string, Shown> {
     if (m[1] === "V" && attrs.q) shown.quantities.add(attrs.q);
     if (m[1] === "Eq") for (const q of (attrs.tex ?? "").matchAll(/\[\[q\.([A-Za-z0-9]+)/g)) shown.quantities.add(q[1]);
     if (m[1] === "BudgetTable")
-      for (const q of ["current", "readingContribution", "shuntToleranceContribution", "tempcoContribution", "gainContribution", "referenceContribution", "quantisationContribution", "combinedStandardUncertainty", "expandedUncertainty", "dominantContribution"])
+      for (const q of ["current", "readingContribution", "shuntToleranceContribution", "tempcoContribution", "gainContribution", "referenceContribution", "quantisationContribution", "repeatabilityContribution", "offsetContribution", "biasContribution", "leakageContribution", "combinedStandardUncertainty", "expandedUncertainty", "dominantContribution"])
         shown.quantities.add(q);
     out.set(ex, shown);
   }

@@ -1,11 +1,13 @@
-// Each lesson compiles as MDX with the same plugins as next.config.mjs (remark-math, rehype-katex),
-// renders to static markup with the page's components, and typesets its formulas as KaTeX markup.
+// Each lesson compiles as MDX with the same plugins as next.config.mjs (remark-gfm, remark-math,
+// rehype-katex), renders to static markup with the page's components, typesets its formulas as KaTeX markup
+// and shows its Markdown tables as tables (no raw pipes left in the text).
 // And no client component in the lesson tree can pull KaTeX into the browser.
 import fs from "node:fs";
 import path from "node:path";
 import { evaluate } from "@mdx-js/mdx";
 import * as runtime from "react/jsx-runtime";
 import { renderToStaticMarkup } from "react-dom/server";
+import remarkGfm from "remark-gfm";
 import remarkMath from "remark-math";
 import rehypeKatex from "rehype-katex";
 import { describe, expect, it } from "vitest";
@@ -20,7 +22,7 @@ async function render(file: string) {
   const source = fs.readFileSync(path.join(lessonsDir, file), "utf8");
   const mod = await evaluate(source, {
     ...(runtime as unknown as Parameters<typeof evaluate>[1]),
-    remarkPlugins: [remarkMath],
+    remarkPlugins: [remarkGfm, remarkMath],
     rehypePlugins: [[rehypeKatex, { strict: false, output: "html" }]],
   });
   const Content = mod.default;
@@ -41,6 +43,12 @@ describe("lessons render", () => {
       for (const h of tableOfContents(source)) expect(html).toContain(`id="${h.id}"`);
       // each check-yourself question is in the page with its label
       expect(html).toMatch(/Your answer/);
+      // every Markdown table is a table: no delimiter row (| --- |) or pipe-led row left as text
+      const text = html.replace(/<span class="katex"[\s\S]*?<\/annotation>/g, "");
+      expect(text, "raw table syntax").not.toMatch(/\|\s*:?-{3,}:?\s*\|/);
+      expect(text, "raw table row").not.toMatch(/(^|>)\s*\|[^<|]+\|[^<]*\|/m);
+      const tables = source.split("\n").filter((l) => /^\s*\|\s*:?-{3,}/.test(l)).length;
+      expect((html.match(/<table/g) ?? []).length).toBeGreaterThanOrEqual(tables);
     });
   }
 

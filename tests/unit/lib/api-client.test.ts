@@ -4,7 +4,7 @@
 import { createServer, type Server } from "node:http";
 import type { AddressInfo } from "node:net";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { api, ApiError, asJson, isApiError, toApiError } from "@/lib/api-client";
+import { api, ApiError, asJson, isApiError, toApiError } from "@/lib/http/client";
 
 let server: Server;
 let base = "";

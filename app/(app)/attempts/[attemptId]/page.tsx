@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { forPage, isStaff, refused } from "@/lib/auth/access";
-import { attemptAccess, HELD_NOTICE } from "@/lib/labs/service";
+import { attemptAccess, HELD_NOTICE } from "@/lib/labs/attempts";
 import Link from "next/link";
 import { forbidden } from "next/navigation";
 import { AttemptFeedback } from "@/components/labs/feedback/attempt-feedback";

@@ -2,13 +2,14 @@ import Link from "next/link";
 import { forbidden } from "next/navigation";
 import { Suspense } from "react";
 import { db } from "@/db";
+import { benchOf } from "@/db/queries/benches";
 import { ownGrades } from "@/db/queries/gradebook";
 import { StudentGrades } from "@/components/gradebook/student-grades";
 import { forPage, isStaff, refused, requireCourseRole } from "@/lib/auth/access";
-import { staffHome, studentHome } from "@/lib/home/load";
+import { staffHome, studentHome } from "@/lib/courses/home";
 import { openReviewCount } from "@/lib/labs/review";
-import { labsForCourse } from "@/lib/labs/service";
-import { roleLabel } from "@/lib/roles";
+import { labsForCourse } from "@/lib/labs/attempts";
+import { roleLabel } from "@/lib/auth/roles";
 import { NextLabDue, OpenLabs, Panel, when } from "@/components/course/home-parts";
 import { DataTable, type Column } from "@/components/ui/table";
 
@@ -33,6 +34,7 @@ export default async function CoursePage({ params }: { params: Promise<{ courseI
         <Link className="btn-quiet" href={`/courses/${course.id}/labs`}>Bench labs</Link>
         {staff ? <Link className="btn-quiet" href={`/courses/${course.id}/gradebook`}>Gradebook</Link> : null}
         {staff ? <Link className="btn-quiet" href={`/courses/${course.id}/roster`}>Roster</Link> : null}
+        {staff ? <Link className="btn-quiet" href={`/courses/${course.id}/benches`}>Benches</Link> : null}
         {staff ? (
           <Link className="btn-quiet" href={`/courses/${course.id}/reviews`} data-testid="review-queue-link">
             Review queue{openReviews ? ` (${openReviews} open)` : ""}
@@ -49,9 +51,10 @@ export default async function CoursePage({ params }: { params: Promise<{ courseI
 
 async function StudentHome({ access, now }: { access: Parameters<typeof labsForCourse>[0]; now: Date }) {
   const labs = await labsForCourse(access);
-  const [{ summary, reviews, lesson }, own] = await Promise.all([
+  const [{ summary, reviews, lesson }, own, bench] = await Promise.all([
     studentHome(access.course.id, access.user.id, labs, now),
     ownGrades(db, access.course.id, access.user.id),
+    benchOf(db, access.course.id, access.user.id),
   ]);
   const courseId = access.course.id;
   return (
@@ -60,6 +63,7 @@ async function StudentHome({ access, now }: { access: Parameters<typeof labsForC
         <NextLabDue summary={summary} />
       </div>
       <OpenLabs summary={summary} now={now} />
+      <YourBench bench={bench} userId={access.user.id} />
       <Panel title="Next lesson" id="next-lesson">
         {lesson.current ? (
           <p>
@@ -105,6 +109,23 @@ async function StudentHome({ access, now }: { access: Parameters<typeof labsForC
         )}
       </Panel>
     </div>
+  );
+}
+
+function YourBench({ bench, userId }: { bench: Awaited<ReturnType<typeof benchOf>>; userId: string }) {
+  const partners = bench?.members.filter((m) => m.userId !== userId) ?? [];
+  return (
+    <Panel title="Your bench" id="bench">
+      {bench ? (
+        <p data-testid="your-bench">
+          You sit at <strong>{bench.name}</strong>
+          {bench.section ? ` (section ${bench.section})` : ""}
+          {partners.length ? <>, with {partners.map((p) => p.name).join(" and ")}.</> : ", alone for now."}
+        </p>
+      ) : (
+        <p className="text-ink-soft" data-testid="your-bench">You have no bench yet; the instructor seats you before the first bench lab.</p>
+      )}
+    </Panel>
   );
 }
 

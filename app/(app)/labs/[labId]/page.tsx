@@ -5,7 +5,7 @@ import { forPage, isStaff, refused } from "@/lib/auth/access";
 import { templates } from "@/lib/grader";
 import { handoutFor } from "@/lib/labs/handout";
 import { closeOf, expectedWhenText, isClosed, isOpen, lateDays } from "@/lib/labs/policy";
-import { attemptsFor, HELD_NOTICE, labAccess, type Lab } from "@/lib/labs/service";
+import { attemptsFor, HELD_NOTICE, labAccess, type Lab } from "@/lib/labs/attempts";
 import { DataTable, type Column } from "@/components/ui/table";
 import { HoldGrades } from "@/components/mail/hold-grades";
 import { Handout } from "@/components/labs/handout";

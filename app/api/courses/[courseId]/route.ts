@@ -1,6 +1,6 @@
-import { json, jsonBody, route } from "@/lib/api";
+import { json, jsonBody, route } from "@/lib/http/route";
 import { requireCourseRole } from "@/lib/auth/access";
-import { changeCourseSettings } from "@/lib/course-admin";
+import { changeCourseSettings } from "@/lib/courses/admin";
 import { courseSettingsSchema } from "@/lib/validation/courses";
 
 type Params = { courseId: string };

@@ -1,4 +1,4 @@
-import { json, route } from "@/lib/api";
+import { json, route } from "@/lib/http/route";
 import { requireAdmin } from "@/lib/auth/access";
 import { notFound } from "@/lib/errors";
 import { mailboxAvailable, readMailbox } from "@/lib/mail/mailbox";

@@ -1,11 +1,11 @@
 import { db } from "@/db";
 import { findLab } from "@/db/queries/labs";
-import { json, jsonBody, route } from "@/lib/api";
+import { json, jsonBody, route } from "@/lib/http/route";
 import { labPatchSchema } from "@/lib/validation/labs";
 import { isStaff } from "@/lib/auth/access";
 import { editLab } from "@/lib/labs/edit";
 import { latestRegrade } from "@/lib/labs/regrade";
-import { labAccess, toLab } from "@/lib/labs/service";
+import { labAccess, toLab } from "@/lib/labs/attempts";
 import { labFull, labPublic } from "@/lib/labs/view";
 
 type Params = { labId: string };

@@ -1,5 +1,5 @@
 import { db } from "@/db";
-import { json, jsonBody, route } from "@/lib/api";
+import { json, jsonBody, route } from "@/lib/http/route";
 import { requireUser } from "@/lib/auth/access";
 import { changePassword } from "@/lib/mail/password-reset";
 import { changePasswordSchema } from "@/lib/validation/mail";

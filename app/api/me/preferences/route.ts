@@ -1,6 +1,6 @@
 import { db } from "@/db";
 import { findPreferences, setGradeMail } from "@/db/queries/users";
-import { json, jsonBody, route } from "@/lib/api";
+import { json, jsonBody, route } from "@/lib/http/route";
 import { requireUser } from "@/lib/auth/access";
 import { preferencesSchema } from "@/lib/validation/mail";
 

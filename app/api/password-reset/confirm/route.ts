@@ -1,5 +1,5 @@
 import { db } from "@/db";
-import { json, jsonBody, route } from "@/lib/api";
+import { json, jsonBody, route } from "@/lib/http/route";
 import { resetPassword } from "@/lib/mail/password-reset";
 import { resetConfirmSchema } from "@/lib/validation/mail";
 

@@ -1,9 +1,9 @@
 import { db } from "@/db";
 import { findUpload } from "@/db/queries/uploads";
-import { json, route } from "@/lib/api";
+import { json, route } from "@/lib/http/route";
 import { isStaff, requireCourseRole } from "@/lib/auth/access";
 import { AppError, notFound } from "@/lib/errors";
-import { uploadView } from "@/lib/uploads";
+import { uploadView } from "@/lib/uploads/accept";
 import { uuidSchema } from "@/lib/validation/common";
 
 // The upload's record and a signed URL valid for 60 s: for its owner and the course staff only.

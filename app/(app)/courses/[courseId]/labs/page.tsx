@@ -4,7 +4,7 @@ import { forbidden } from "next/navigation";
 import { forPage, isStaff, refused, requireCourseRole } from "@/lib/auth/access";
 import { templates } from "@/lib/grader";
 import { closeOf } from "@/lib/labs/policy";
-import { labsForCourse } from "@/lib/labs/service";
+import { labsForCourse } from "@/lib/labs/attempts";
 import { DataTable, type Column } from "@/components/ui/table";
 import { labState, STATE_LABEL } from "@/lib/labs/schedule";
 

@@ -3,7 +3,7 @@ import Link from "next/link";
 import { forbidden } from "next/navigation";
 import { LessonPlanEditor } from "@/components/course/lesson-plan-editor";
 import { forPage, refused, requireCourseRole } from "@/lib/auth/access";
-import { coursePlan, lessonsForStudents } from "@/lib/course-lessons";
+import { coursePlan, lessonsForStudents } from "@/lib/courses/lesson-plan";
 import { QueryProvider } from "@/components/providers/query-provider";
 
 export const metadata: Metadata = { title: "Lessons" };

@@ -4,7 +4,7 @@ import { forbidden } from "next/navigation";
 import { db } from "@/db";
 import { listSections } from "@/db/queries/reviews";
 import { forPage, refused, requireCourseRole, STAFF } from "@/lib/auth/access";
-import { labsForCourse } from "@/lib/labs/service";
+import { labsForCourse } from "@/lib/labs/attempts";
 import { ReviewQueue } from "@/components/review/review-queue";
 import { QueryProvider } from "@/components/providers/query-provider";
 

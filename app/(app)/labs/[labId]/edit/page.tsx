@@ -6,7 +6,7 @@ import { countLabAttempts } from "@/db/queries/attempts";
 import { forPage, refused } from "@/lib/auth/access";
 import { labAsInput } from "@/lib/labs/edit";
 import { latestRegrade } from "@/lib/labs/regrade";
-import { labAccess } from "@/lib/labs/service";
+import { labAccess } from "@/lib/labs/attempts";
 import { LabBuilder, type StoredLabInput } from "@/components/labs/builder/lab-builder";
 import { RegradeProgress } from "@/components/labs/regrade-progress";
 import { QueryProvider } from "@/components/providers/query-provider";

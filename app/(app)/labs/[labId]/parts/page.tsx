@@ -2,8 +2,8 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { forbidden } from "next/navigation";
 import { forPage, refused, STAFF } from "@/lib/auth/access";
-import { benchParts } from "@/lib/labs/bench";
-import { labAccess } from "@/lib/labs/service";
+import { benchParts } from "@/lib/labs/parts-list";
+import { labAccess } from "@/lib/labs/attempts";
 import { PrintButton } from "@/components/labs/print-button";
 
 export const metadata: Metadata = { title: "Bench parts list" };

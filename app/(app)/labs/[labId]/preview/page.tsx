@@ -4,7 +4,7 @@ import { forbidden } from "next/navigation";
 import { forPage, refused, STAFF } from "@/lib/auth/access";
 import { drawVariant } from "@/lib/grader";
 import { handoutFromParams } from "@/lib/labs/handout";
-import { labAccess } from "@/lib/labs/service";
+import { labAccess } from "@/lib/labs/attempts";
 import { Handout } from "@/components/labs/handout";
 
 export const metadata: Metadata = { title: "Lab preview" };

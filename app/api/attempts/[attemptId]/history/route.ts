@@ -1,4 +1,4 @@
-import { json, route } from "@/lib/api";
+import { json, route } from "@/lib/http/route";
 import { attemptHistory } from "@/lib/labs/review";
 
 // The attempt's grade history, oldest first, for its owner and the course staff.

@@ -1,4 +1,4 @@
-import { json, route } from "@/lib/api";
+import { json, route } from "@/lib/http/route";
 import { bodyOf, regradeAttempt } from "@/lib/labs/review";
 
 // Course staff change one question's points (`{ questionId, points, reason }`) or re-run the grader on the

@@ -1,8 +1,8 @@
 import { db } from "@/db";
 import { requestReview } from "@/db/queries/attempts";
-import { json, jsonBody, route } from "@/lib/api";
+import { json, jsonBody, route } from "@/lib/http/route";
 import { AppError } from "@/lib/errors";
-import { attemptAccess } from "@/lib/labs/service";
+import { attemptAccess } from "@/lib/labs/attempts";
 import { reviewRequestSchema } from "@/lib/validation/labs";
 
 // The student asks the course staff to review a graded attempt, with a message.

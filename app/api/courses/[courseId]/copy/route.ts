@@ -1,6 +1,6 @@
-import { json, jsonBody, route } from "@/lib/api";
+import { json, jsonBody, route } from "@/lib/http/route";
 import { requireCourseRole } from "@/lib/auth/access";
-import { copyCourse } from "@/lib/course-admin";
+import { copyCourse } from "@/lib/courses/admin";
 import { copyCourseSchema } from "@/lib/validation/courses";
 
 type Params = { courseId: string };

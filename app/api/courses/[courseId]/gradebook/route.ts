@@ -1,6 +1,6 @@
 import { db } from "@/db";
 import { gradebook, gradebookJson } from "@/db/queries/gradebook";
-import { route } from "@/lib/api";
+import { route } from "@/lib/http/route";
 import { assertRole, requireCourseRole, STAFF } from "@/lib/auth/access";
 import { gradebookCsv } from "@/lib/gradebook/csv";
 import { gradebookQuerySchema } from "@/lib/validation/gradebook";

@@ -1,6 +1,6 @@
-import { json, route } from "@/lib/api";
+import { json, route } from "@/lib/http/route";
 import { requireCourseRole } from "@/lib/auth/access";
-import { regenerateJoinCode } from "@/lib/course-admin";
+import { regenerateJoinCode } from "@/lib/courses/admin";
 
 type Params = { courseId: string };
 

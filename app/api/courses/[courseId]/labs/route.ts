@@ -1,6 +1,6 @@
-import { json, jsonBody, route } from "@/lib/api";
+import { json, jsonBody, route } from "@/lib/http/route";
 import { requireCourseRole } from "@/lib/auth/access";
-import { createLab, labsForCourse } from "@/lib/labs/service";
+import { createLab, labsForCourse } from "@/lib/labs/attempts";
 import { labSummary } from "@/lib/labs/view";
 import { labInputSchema } from "@/lib/validation/labs";
 

@@ -1,6 +1,6 @@
-import { json, jsonBody, route } from "@/lib/api";
+import { json, jsonBody, route } from "@/lib/http/route";
 import { isStaff, requireCourseRole } from "@/lib/auth/access";
-import { coursePlan, lessonsForStudents, savePlan } from "@/lib/course-lessons";
+import { coursePlan, lessonsForStudents, savePlan } from "@/lib/courses/lesson-plan";
 import { lessonPlanSchema } from "@/lib/validation/course-lessons";
 
 type Params = { courseId: string };

@@ -1,8 +1,8 @@
 import { db } from "@/db";
 import { listMembers } from "@/db/queries/courses";
-import { json, jsonBody, route } from "@/lib/api";
+import { json, jsonBody, route } from "@/lib/http/route";
 import { requireCourseRole, STAFF } from "@/lib/auth/access";
-import { addMember } from "@/lib/roster/service";
+import { addMember } from "@/lib/courses/roster";
 import { addMemberSchema } from "@/lib/validation/members";
 
 type Params = { courseId: string };

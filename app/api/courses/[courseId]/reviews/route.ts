@@ -1,4 +1,4 @@
-import { json, route } from "@/lib/api";
+import { json, route } from "@/lib/http/route";
 import { reviewQueue } from "@/lib/labs/review";
 
 // The course's review requests: open ones first (oldest first), then answered ones.

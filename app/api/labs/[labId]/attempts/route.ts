@@ -1,6 +1,6 @@
-import { json, jsonBody, route } from "@/lib/api";
+import { json, jsonBody, route } from "@/lib/http/route";
 import { isStaff } from "@/lib/auth/access";
-import { attemptsFor, heldAttempt, labAccess, submitAttempt, viewAttempt } from "@/lib/labs/service";
+import { attemptsFor, heldAttempt, labAccess, submitAttempt, viewAttempt } from "@/lib/labs/attempts";
 import { attemptInputSchema } from "@/lib/validation/attempts";
 import { uuidSchema } from "@/lib/validation/common";
 import { AppError } from "@/lib/errors";

@@ -1,6 +1,6 @@
 import { db } from "@/db";
-import { json, jsonBody, route } from "@/lib/api";
-import { labAccess } from "@/lib/labs/service";
+import { json, jsonBody, route } from "@/lib/http/route";
+import { labAccess } from "@/lib/labs/attempts";
 import { setLabGradesHeld } from "@/lib/mail/release";
 import { gradesHeldSchema } from "@/lib/validation/mail";
 

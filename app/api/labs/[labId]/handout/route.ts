@@ -1,6 +1,6 @@
-import { json, route } from "@/lib/api";
+import { json, route } from "@/lib/http/route";
 import { handoutFor } from "@/lib/labs/handout";
-import { labAccess } from "@/lib/labs/service";
+import { labAccess } from "@/lib/labs/attempts";
 
 // The caller's own circuit values and the questions, with units.
 export const GET = route<{ labId: string }>(async (_req, { labId }) => {

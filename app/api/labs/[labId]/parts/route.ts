@@ -1,8 +1,8 @@
-import { json, route } from "@/lib/api";
+import { json, route } from "@/lib/http/route";
 import { STAFF } from "@/lib/auth/access";
-import { benchParts } from "@/lib/labs/bench";
+import { benchParts } from "@/lib/labs/parts-list";
 import { partsCsv } from "@/lib/labs/parts";
-import { labAccess } from "@/lib/labs/service";
+import { labAccess } from "@/lib/labs/attempts";
 
 type Params = { labId: string };
 

@@ -1,10 +1,10 @@
 import { db } from "@/db";
 import { findUpload } from "@/db/queries/uploads";
-import { json, route } from "@/lib/api";
+import { json, route } from "@/lib/http/route";
 import { requireUser } from "@/lib/auth/access";
 import { notFound } from "@/lib/errors";
-import { labAccess, variantFor } from "@/lib/labs/service";
-import { uploadView } from "@/lib/uploads";
+import { labAccess, variantFor } from "@/lib/labs/attempts";
+import { uploadView } from "@/lib/uploads/accept";
 import { completeUpload } from "@/lib/uploads/direct";
 import { uuidSchema } from "@/lib/validation/common";
 

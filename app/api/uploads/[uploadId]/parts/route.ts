@@ -1,6 +1,6 @@
 import { db } from "@/db";
 import { findPendingUpload } from "@/db/queries/uploads";
-import { json, route } from "@/lib/api";
+import { json, route } from "@/lib/http/route";
 import { requireUser } from "@/lib/auth/access";
 import { notFound } from "@/lib/errors";
 import { storedParts } from "@/lib/uploads/direct";

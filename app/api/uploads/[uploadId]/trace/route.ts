@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { db } from "@/db";
 import { findUploadSamples } from "@/db/queries/uploads";
-import { json, route } from "@/lib/api";
+import { json, route } from "@/lib/http/route";
 import { isStaff, requireCourseRole } from "@/lib/auth/access";
 import { AppError, notFound } from "@/lib/errors";
 import { readWindow } from "@/lib/uploads/samples";

@@ -1,5 +1,5 @@
 import { db } from "@/db";
-import { json, route } from "@/lib/api";
+import { json, route } from "@/lib/http/route";
 import { requireAdmin } from "@/lib/auth/access";
 import { notFound } from "@/lib/errors";
 import { findOutbox } from "@/db/queries/mail-outbox";

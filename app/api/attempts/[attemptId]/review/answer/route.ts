@@ -1,4 +1,4 @@
-import { json, route } from "@/lib/api";
+import { json, route } from "@/lib/http/route";
 import { bodyOf, answerReview } from "@/lib/labs/review";
 
 // Course staff answer the student's review request (`{ message }`), which closes it.

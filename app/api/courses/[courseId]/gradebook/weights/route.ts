@@ -1,6 +1,6 @@
 import { db } from "@/db";
 import { courseLabIds, labWeights, setLabWeights } from "@/db/queries/gradebook";
-import { json, jsonBody, route } from "@/lib/api";
+import { json, jsonBody, route } from "@/lib/http/route";
 import { requireCourseRole } from "@/lib/auth/access";
 import { AppError } from "@/lib/errors";
 import { labWeightsSchema } from "@/lib/validation/gradebook";

@@ -1,7 +1,7 @@
-import { json, jsonBody, route } from "@/lib/api";
+import { json, jsonBody, route } from "@/lib/http/route";
 import { requireCourseRole } from "@/lib/auth/access";
 import { notFound } from "@/lib/errors";
-import { changeMember, removeMember } from "@/lib/roster/service";
+import { changeMember, removeMember } from "@/lib/courses/roster";
 import { updateMemberSchema } from "@/lib/validation/members";
 import { uuidSchema } from "@/lib/validation/common";
 

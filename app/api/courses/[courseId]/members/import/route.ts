@@ -1,6 +1,6 @@
-import { json, jsonBody, route } from "@/lib/api";
+import { json, jsonBody, route } from "@/lib/http/route";
 import { requireCourseRole } from "@/lib/auth/access";
-import { importMembers } from "@/lib/roster/service";
+import { importMembers } from "@/lib/courses/roster";
 import { importMembersSchema } from "@/lib/validation/members";
 
 type Params = { courseId: string };

@@ -20,7 +20,8 @@ import type { Database, Role } from "@/db/types";
 import { AppError, notFound } from "@/lib/errors";
 import { queuePasswordMail } from "@/lib/mail/tokens";
 import type { addMemberSchema, updateMemberSchema } from "@/lib/validation/members";
-import { classifyRows, lookupEmails, readRosterCsv, type ImportRow, type KnownAccount } from "./csv";
+import { seatByName, seatCounts } from "@/db/queries/benches";
+import { checkBenchRoom, classifyRows, lookupEmails, readRosterCsv, type ImportRow, type KnownAccount } from "./roster-csv";
 
 const LAST_INSTRUCTOR = "A course must keep at least one instructor: make someone else an instructor first.";
 
@@ -81,7 +82,14 @@ async function preview(conn: Transaction<Database> | typeof db, courseId: string
   const entries = readRosterCsv(csv);
   const found = await accountsByEmail(conn, courseId, lookupEmails(entries));
   const accounts = new Map<string, KnownAccount>(found.map((a) => [a.email, { id: a.id, role: a.role ?? null }]));
-  return classifyRows(entries, accounts);
+  const rows = classifyRows(entries, accounts);
+  if (!rows.some((r) => r.bench)) return rows;
+  return checkBenchRoom(rows, await seatCounts(conn, courseId), (r) => seatable(r, accounts));
+}
+
+/** Whether the import seats this row's person: a student it adds, or a student already in the course. */
+function seatable(row: ImportRow, accounts: Map<string, { role: Role | null }>): boolean {
+  return row.outcome === "invite" || row.outcome === "add" || (row.outcome === "member" && accounts.get(row.email)?.role === "student");
 }
 
 /**
@@ -97,7 +105,10 @@ export async function importMembers(courseId: string, csv: string, confirm: bool
   return db.transaction().execute(async (trx) => {
     if (!(await lockCourse(trx, courseId))) throw notFound("That course");
     const rows = await preview(trx, courseId, csv);
-    const accounts = new Map((await accountsByEmail(trx, courseId, rows.map((r) => r.email))).map((a) => [a.email, a.id]));
+    const found = await accountsByEmail(trx, courseId, rows.map((r) => r.email));
+    const accounts = new Map(found.map((a) => [a.email, a.id]));
+    const roles = new Map(found.map((a) => [a.email, { role: a.role ?? null }]));
+    const seats: { userId: string; bench: string; section: string | null }[] = [];
     let saved = 0;
     for (const row of rows) {
       if (row.outcome !== "invite" && row.outcome !== "add") continue;
@@ -105,11 +116,17 @@ export async function importMembers(courseId: string, csv: string, confirm: bool
       if (!userId) {
         const user = await insertUser(trx, { email: row.email, name: row.name, passwordHash: null });
         userId = user.id;
+        accounts.set(row.email, userId);
         // the invitation: a set-password link through the mail queue, in this transaction
         await queuePasswordMail(trx, user, "set");
       }
       if (await insertMembershipIfAbsent(trx, { courseId, userId, role: "student", section: row.section })) saved++;
     }
+    for (const row of rows) {
+      if (!row.bench || !seatable(row, roles)) continue;
+      seats.push({ userId: accounts.get(row.email)!, bench: row.bench, section: row.section });
+    }
+    await seatByName(trx, courseId, seats);
     return { rows, saved };
   });
 }

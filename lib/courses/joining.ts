@@ -1,4 +1,4 @@
-// Joining a course with its join code (sign-up). Roster changes by staff live in lib/roster.
+// Joining a course with its join code (sign-up). Roster changes by staff live in roster.ts.
 import "server-only";
 import { db } from "@/db";
 import { findCourseByJoinCode, upsertMembership } from "@/db/queries/courses";

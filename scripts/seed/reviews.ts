@@ -2,7 +2,7 @@
 // changed score (a teaching assistant's override with its reason, then the answer), so the review queue,
 // the course page's count and the grade history are not empty on first start. Runs once per course.
 import type { Kysely, Transaction } from "kysely";
-import type { Database } from "../types";
+import type { Database } from "../../db/types";
 import { answerReviewRequest, overrideQuestion } from "../../lib/labs/rescore";
 import { demoLabReviews } from "./labs";
 
@@ -67,7 +67,7 @@ export async function seedReviews(db: Kysely<Database>, courseId: string, people
 }
 
 /**
- * Review requests on the demo labs that carry their own (db/seed/labs.ts `reviews`: the nanoamp,
+ * Review requests on the demo labs that carry their own (scripts/seed/labs.ts `reviews`: the nanoamp,
  * microvolt, sampling and whole-chain labs), so the teaching assistants' queue shows requests on the
  * labs running now: each lab gets its open requests and its answered ones (a teaching assistant's answer,
  * after a changed score where the lab says so). Per lab and once: a lab with any request already is left

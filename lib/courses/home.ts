@@ -2,10 +2,10 @@
 import "server-only";
 import { db } from "@/db";
 import { draftLabs, labsWithDates, openReviewRequests, regradesInProgress, studentAttemptScores, studentReviewRequests } from "@/db/queries/course-home";
-import { lessonsForStudents } from "@/lib/course-lessons";
+import { lessonsForStudents } from "@/lib/courses/lesson-plan";
 import type { Lab } from "@/lib/labs/grading";
 import { closeOf } from "@/lib/labs/policy";
-import { studentSummary, type HomeLab } from "./summary";
+import { studentSummary, type HomeLab } from "./home-summary";
 
 const WEEK = 7 * 24 * 3600 * 1000;
 

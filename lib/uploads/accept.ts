@@ -8,7 +8,7 @@ import { fileTypeFromBuffer } from "file-type";
 import { db } from "@/db";
 import { deleteUnattachedUploads, insertUpload, lockOwnerUploads, storedBytes, type UploadRow } from "@/db/queries/uploads";
 import { AppError } from "@/lib/errors";
-import { abortMultipartUpload, deleteObjects, maxUploadBytes, putObject, signedUrl, unattachedUploadHours, uploadQuotaBytes } from "@/lib/storage";
+import { abortMultipartUpload, deleteObjects, maxUploadBytes, putObject, signedUrl, unattachedUploadHours, uploadQuotaBytes } from "@/lib/uploads/storage";
 import { analyzeTrace } from "@/lib/trace";
 import type { Params } from "@/lib/grader";
 

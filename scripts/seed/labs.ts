@@ -6,11 +6,11 @@ import type { Kysely } from "kysely";
 import { drawVariant, formatQuantity, MISTAKE_KEYS, seededRandom, templates, type MistakeKey, type Params, type TemplateKey, type VariantSpec } from "../../lib/grader";
 import { attemptRecord, gradeForLab, toLab, withIds, type StoredTrace } from "../../lib/labs/grading";
 import { analyzeTrace, squareWaveCsv } from "../../lib/trace";
-import { findLab, insertLab } from "../queries/labs";
-import { insertAttempt } from "../queries/attempts";
-import { insertGradeEvent } from "../queries/grade-events";
-import { insertUpload } from "../queries/uploads";
-import type { Database, ShowExpected } from "../types";
+import { findLab, insertLab } from "../../db/queries/labs";
+import { insertAttempt } from "../../db/queries/attempts";
+import { insertGradeEvent } from "../../db/queries/grade-events";
+import { insertUpload } from "../../db/queries/uploads";
+import type { Database, ShowExpected } from "../../db/types";
 
 const DAY = 24 * 3600 * 1000;
 const SAFETY = {
@@ -31,7 +31,7 @@ interface DemoLab {
   instructions: string;
   safety: string;
   traces?: boolean;
-  /** review requests seeded on the lab's attempts (see db/seed/reviews.ts seedLabReviews) */
+  /** review requests seeded on the lab's attempts (see scripts/seed/reviews.ts seedLabReviews) */
   reviews?: DemoReviews;
 }
 

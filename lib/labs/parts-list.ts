@@ -7,7 +7,7 @@ import { listVariants } from "@/db/queries/labs";
 import type { Params } from "@/lib/grader";
 import type { Lab } from "./grading";
 import { countParts } from "./parts";
-import { variantFor } from "./service";
+import { variantFor } from "./attempts";
 
 export async function benchParts(lab: Lab) {
   const [students, stored] = await Promise.all([listStudents(db, lab.courseId), listVariants(db, lab.id)]);

@@ -1,11 +1,11 @@
 // The job handlers. Each is safe to run twice (a regrade recomputes from stored readings; a mail job
 // finds its message already sent; the upload sweep removes only what is still unattached).
 import type PgBoss from "pg-boss";
-import { boss, keepTrying, QUEUES, stopBoss } from "./jobs";
-import { runRegrade } from "./labs/regrade";
-import { startMailWorker } from "./mail/worker";
-import { sweepUnattachedUploads } from "./uploads";
-import { analyseUpload, type AnalysisJob } from "./uploads/analysis";
+import { boss, keepTrying, QUEUES, stopBoss } from "./queue";
+import { runRegrade } from "../labs/regrade";
+import { startMailWorker } from "../mail/worker";
+import { sweepUnattachedUploads } from "../uploads/accept";
+import { analyseUpload, type AnalysisJob } from "../uploads/analysis";
 
 /** When the sweep of unattached uploads runs: every hour, at 17 past (cron, UTC). */
 export const UPLOAD_SWEEP_CRON = "17 * * * *";

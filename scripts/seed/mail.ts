@@ -2,9 +2,9 @@
 // staff regrade when the history has one. They are queued like any other message (one per event key,
 // so seeding again adds none) and the app's worker delivers them to the local mailbox once it runs.
 import type { Kysely, Transaction } from "kysely";
-import { boss, stopBoss } from "../../lib/jobs";
+import { boss, stopBoss } from "../../lib/jobs/queue";
 import { queueGradeMail } from "../../lib/mail/grade";
-import type { Database } from "../types";
+import type { Database } from "../../db/types";
 
 export async function seedMail(db: Kysely<Database>, databaseUrl: string, studentIds: string[]): Promise<number> {
   await boss(databaseUrl);

@@ -2,7 +2,7 @@
 // made up. Seeding is idempotent: existing rows are left as they are, so a second run keeps the data.
 import type { Kysely } from "kysely";
 import { hash } from "@node-rs/argon2";
-import type { Database, Role } from "../types";
+import type { Database, Role } from "../../db/types";
 import { seedLabs, type SeedStorage } from "./labs";
 import { seedMail } from "./mail";
 import { seedLabReviews, seedReviews } from "./reviews";

@@ -4,7 +4,7 @@ import { currentUser } from "@/lib/auth/access";
 import { AppError } from "@/lib/errors";
 import { checkLessonAnswer, type CheckResult } from "@/lib/lessons/check";
 import { getQuestion } from "@/lib/lessons/questions";
-import { lessonAccess } from "@/lib/course-lessons";
+import { lessonAccess } from "@/lib/courses/lesson-plan";
 import { throttle } from "@/lib/security/throttle";
 
 export type { CheckResult };
