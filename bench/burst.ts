@@ -159,8 +159,8 @@ runBench(async () => {
   const env = benchEnv(url);
   await build(env);
   const secret = env.NEXTAUTH_SECRET!;
-  const cookies = await Promise.all(students.map((id) => sessionCookie(id, secret)));
-  const instructorCookie = await sessionCookie(instructorId, secret);
+  const cookies = await Promise.all(students.map((id) => sessionCookie(db, id, secret)));
+  const instructorCookie = await sessionCookie(db, instructorId, secret);
 
   const results: Outcome[] = [];
   for (const processes of [1, 2]) {

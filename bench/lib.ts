@@ -6,6 +6,8 @@ import fs from "node:fs";
 import net from "node:net";
 import { sql, type Kysely } from "kysely";
 import { encode } from "next-auth/jwt";
+import { createSession } from "../db/queries/sessions";
+import { sessionLimits } from "../lib/auth/sessions";
 import pg from "pg";
 import type { Database } from "../db";
 import { appEnv } from "../scripts/lib/app-env";
@@ -106,9 +108,13 @@ export function stopChild(child: ChildProcess): Promise<void> {
   });
 }
 
-/** A signed session cookie for a user, as next-auth's sign-in would set it (the bench skips 500 password checks). */
-export async function sessionCookie(userId: string, secret: string): Promise<string> {
-  const token = await encode({ token: { sub: userId, at: Date.now() }, secret });
+/**
+ * A signed session cookie for a user with its session row, as next-auth's sign-in would make them (the
+ * bench skips 500 password checks).
+ */
+export async function sessionCookie(db: Kysely<Database>, userId: string, secret: string): Promise<string> {
+  const sid = await createSession(db, userId, "bench", sessionLimits());
+  const token = await encode({ token: { sub: userId, sid }, secret });
   return `next-auth.session-token=${token}`;
 }
 

@@ -81,7 +81,7 @@ runBench(async () => {
   await build(env);
   const app = await startApp(env);
   const student = await db.selectFrom("users").select("id").where("email", "=", STUDENT).executeTakeFirstOrThrow();
-  const cookie = await sessionCookie(student.id, env.NEXTAUTH_SECRET!);
+  const cookie = await sessionCookie(db, student.id, env.NEXTAUTH_SECRET!);
 
   // the demo student's lab that is open now
   const get = async <T>(path: string) => (await (await fetch(`${app.base}${path}`, { headers: { cookie } })).json()) as T;

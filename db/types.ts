@@ -19,6 +19,17 @@ export interface UsersTable {
   grade_mail: Generated<boolean>;
   /** sessions signed in before this time are void (set when a password is chosen through an e-mailed link) */
   sessions_valid_after: Timestamp | null;
+  /** set by the site admin: the account cannot sign in and its sessions are gone */
+  disabled_at: Timestamp | null;
+}
+
+/** One signed-in browser: its cookie carries the id; signing out deletes the row. */
+export interface SessionsTable {
+  id: Generated<string>;
+  user_id: string;
+  created_at: Generated<Date>;
+  last_seen_at: Generated<Date>;
+  user_agent: string | null;
 }
 
 export interface CoursesTable {
@@ -85,7 +96,11 @@ export interface LabsTable {
   grades_released_at: Timestamp | null;
   /** Weight in the course total; null = weighted by the lab's points. */
   weight: number | null;
+  /** where the readings come from: the real bench, the simulated bench (lib/simulation) or either */
+  bench: Generated<BenchMode>;
 }
+
+export type BenchMode = "real" | "simulated" | "either";
 
 export interface LabVariantsTable {
   lab_id: string;
@@ -156,6 +171,8 @@ export interface AttemptsTable {
   changed_by_staff: Generated<boolean>;
   /** points set by staff per question, applied over the grader's and kept through recomputations */
   overrides: ColumnType<Record<string, StaffOverride>, string | undefined, string>;
+  /** the readings came from the simulated bench */
+  simulated: Generated<boolean>;
 }
 
 export interface StaffOverride {
@@ -165,7 +182,7 @@ export interface StaffOverride {
   at: string;
 }
 
-export type GradeEventKind = "graded" | "recomputed" | "override" | "rerun" | "review_answer";
+export type GradeEventKind = "graded" | "recomputed" | "override" | "rerun" | "review_answer" | "exception";
 
 /** Append-only (a trigger refuses UPDATE and DELETE). Attempt-level events carry the raw points total in points_*; question events the question's points. */
 export interface GradeEventsTable {
@@ -259,11 +276,25 @@ export interface BenchSeatsTable {
   bench_id: string;
 }
 
+/** One student's own dates and extra attempts at a lab, with the instructor's reason. */
+export interface LabExceptionsTable {
+  lab_id: string;
+  user_id: string;
+  due_at: Timestamp | null;
+  closes_at: Timestamp | null;
+  extra_attempts: Generated<number>;
+  reason: string;
+  granted_by: string | null;
+  granted_at: Generated<Date>;
+}
+
 export interface Database {
+  lab_exceptions: LabExceptionsTable;
   benches: BenchesTable;
   bench_seats: BenchSeatsTable;
   rate_limits: RateLimitsTable;
   users: UsersTable;
+  sessions: SessionsTable;
   courses: CoursesTable;
   memberships: MembershipsTable;
   verification_tokens: VerificationTokensTable;

@@ -98,7 +98,8 @@ async function AdminPanel() {
       <h2 id="admin-title" className="text-xl">Every course on the site</h2>
       <p className="mt-1 mb-3 text-sm text-ink-soft">
         {courses.length} course{courses.length === 1 ? "" : "s"}
-        {withoutInstructor ? `, ${withoutInstructor} without an instructor` : ""}. <Link href="/admin/courses">Create a course</Link> for the next term or a new subject.
+        {withoutInstructor ? `, ${withoutInstructor} without an instructor` : ""}. <Link href="/admin/courses">Create a course</Link> for the next term or a new subject, or{" "}
+        <Link href="/admin/users">find an account</Link> to disable it.
       </p>
       <AllCourses courses={courses} />
     </section>

@@ -167,7 +167,7 @@ export function GradebookTable({ courseId, canExport }: { courseId: string; canE
                   <td className="border-b border-ink/10 px-3 py-1 group-hover:bg-paper-sunk">{s.section ?? ""}</td>
                   {labs.map((l) => {
                     const c = s.cells[l.id];
-                    const marks = cellMarkers(c);
+                    const marks = cellMarkers(c, s.exceptions?.[l.id]);
                     const title = marks.map((m) => m.label).join(", ");
                     return (
                       <td key={l.id} className="border-b border-ink/10 px-3 py-1 tabular-nums group-hover:bg-paper-sunk">

@@ -64,7 +64,7 @@ export function StudentGrades({
                     )}
                   </td>
                   <td className="py-1 text-ink-soft">
-                    {held ? "" : [...cellMarkers(c).map((m) => m.label), ...(c && c.attempts > 1 ? [`${c.attempts} attempts`] : [])].join("; ")}
+                    {held ? "" : [...cellMarkers(c, gradebook.students[0]?.exceptions?.[l.id]).map((m) => m.label), ...(c && c.attempts > 1 ? [`${c.attempts} attempts`] : [])].join("; ")}
                   </td>
                 </tr>
               );

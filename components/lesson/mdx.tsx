@@ -10,6 +10,7 @@ import { Eq } from "./Eq";
 import { V } from "./Value";
 import { BudgetTable } from "./BudgetTable";
 import { LazyCalculator, type CalculatorName } from "./lazy-calculators";
+import { LessonBench } from "@/components/labs/bench/lesson-bench";
 
 function H2(props: ComponentPropsWithoutRef<"h2">) {
   return <h2 id={headingId(childrenText(props.children))} className="mt-10 mb-3 scroll-mt-6 text-2xl break-after-avoid" {...props} />;
@@ -49,4 +50,5 @@ export const lessonComponents: MDXComponents = {
   ThermalReversalCalculator: calculator("ThermalReversalCalculator"),
   BurstSamplingCalculator: calculator("BurstSamplingCalculator"),
   BudgetTable,
+  LessonBench,
 };

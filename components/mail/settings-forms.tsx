@@ -4,7 +4,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation } from "@tanstack/react-query";
 import { useState } from "react";
-import { signIn, signOut } from "next-auth/react";
+import { signOut } from "next-auth/react";
 import { useForm } from "react-hook-form";
 import { Field, FormMessage } from "@/components/ui/field";
 import { useHydrated } from "@/components/ui/use-hydrated";
@@ -45,16 +45,13 @@ export function GradeMailForm({ initial }: { initial: boolean }) {
   );
 }
 
-export function ChangePasswordForm({ email }: { email: string }) {
+export function ChangePasswordForm() {
   const hydrated = useHydrated();
   const { register, handleSubmit, formState, reset, setError } = useForm<ChangePasswordInput>({ resolver: zodResolver(changePasswordSchema) });
   const change = useMutation({
     mutationFn: (body: ChangePasswordInput) => api<{ message: string }>("/api/me/password", { method: "POST", body }),
-    // the change ends every session signed in before it, this one too: sign this one in again
-    onSuccess: async (_data, body) => {
-      await signIn("credentials", { email, password: body.newPassword, redirect: false });
-      reset({ currentPassword: "", newPassword: "", confirm: "" });
-    },
+    // the change ends every other session of the account; this one stays signed in
+    onSuccess: () => reset({ currentPassword: "", newPassword: "", confirm: "" }),
     onError: (e) => {
       const f = isApiError(e) ? e.fields : undefined;
       if (f?.currentPassword) setError("currentPassword", { type: "server", message: f.currentPassword[0] });

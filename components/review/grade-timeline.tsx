@@ -25,6 +25,8 @@ function what(e: EventView): string {
       return `${who} re-ran the grader`;
     case "review_answer":
       return `${who} answered the review request`;
+    case "exception":
+      return `${who} changed the student's own dates or attempts (late penalty applied again)`;
   }
 }
 

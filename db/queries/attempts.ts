@@ -29,6 +29,7 @@ const ATTEMPT_COLUMNS = [
   "a.review_answered_by as reviewAnsweredBy",
   "a.changed_by_staff as changedByStaff",
   "a.overrides",
+  "a.simulated",
 ] as const;
 
 export async function findAttempt(db: Db, attemptId: string) {
@@ -85,6 +86,8 @@ export interface AttemptWrite {
   graderVersion: string;
   labVersion: number;
   submittedAt: Date;
+  /** the readings came from the simulated bench */
+  simulated?: boolean;
 }
 
 function attemptValues(a: AttemptWrite) {
@@ -106,6 +109,7 @@ function attemptValues(a: AttemptWrite) {
     lab_version: a.labVersion,
     submitted_at: a.submittedAt,
     graded_at: a.submittedAt,
+    simulated: a.simulated ?? false,
   };
 }
 
@@ -203,4 +207,9 @@ export async function answerReview(db: Db, attemptId: string, answer: string, by
 
 export async function requestReview(db: Db, attemptId: string, message: string) {
   await db.updateTable("attempts").set({ review_requested_at: new Date(), review_message: message }).where("id", "=", attemptId).execute();
+}
+
+/** A new late penalty on an attempt (its own due date changed): late days, penalty and the score from its raw score. */
+export async function setAttemptPenalty(db: Db, attemptId: string, p: { lateDays: number; penaltyPercent: number; score: number }) {
+  await db.updateTable("attempts").set({ late_days: p.lateDays, penalty_percent: p.penaltyPercent, score: p.score }).where("id", "=", attemptId).execute();
 }

@@ -23,6 +23,8 @@ export interface GradebookCell {
   late: boolean;
   changedByStaff: boolean;
   reviewOpen: boolean;
+  /** the counted attempt's readings came from the simulated bench */
+  simulated: boolean;
 }
 
 export interface GradebookStudent {
@@ -33,6 +35,8 @@ export interface GradebookStudent {
   /** Weighted percentage over the labs that count so far (past due, or submitted); null when none does. */
   total: number | null;
   cells: Record<string, GradebookCell | null>;
+  /** the reason of each exception the student has (own dates or extra attempts), by lab */
+  exceptions: Record<string, string>;
 }
 
 export interface Gradebook {
@@ -93,7 +97,7 @@ function gradebookCtes(courseId: string, onlyUser?: string, hideHeld = false, st
       -- the counted attempt's columns: merged with a second scan of the same index in the same order
       -- (no hash of the attempts, no read of the table)
       select gk.lab_id, gk.user_id, a.id as attempt_id, a.score, a.max_score, a.late_days,
-        ${CHANGED_BY_STAFF} as changed_by_staff, gk.attempts, gk.review_open
+        ${CHANGED_BY_STAFF} as changed_by_staff, a.simulated, gk.attempts, gk.review_open
       from gk join attempts a on a.lab_id = gk.lab_id and a.user_id = gk.user_id and a.number = gk.number
       where a.lab_id = any(${labIds}) ${attemptUser}
     )`;
@@ -110,20 +114,29 @@ export function gradebookJsonQuery(courseId: string, onlyUser?: string, hideHeld
   const released = hideHeld ? sql`not gl.grades_held` : sql`true`;
   return sql<{ doc: string }>`
     with ${gradebookCtes(courseId, onlyUser, hideHeld)},
+    gx as (
+      -- the students' exceptions in these labs (a handful): their own due dates and the reasons by lab
+      select x.lab_id, x.user_id, x.due_at, x.reason from lab_exceptions x where x.lab_id = any(array(select gl.id from gl))
+    ),
     grid as (
-      -- every (student, lab) pair, kept narrow (the names join back at the end) so its sort stays in memory
+      -- every (student, lab) pair, kept narrow (the names join back at the end) so its sort stays in memory;
+      -- a lab counts once submitted or past the student's own due date
       select gs.ord, gl.ord as lab_ord, gl.id as lab_id, coalesce(gl.weight, gl.max_points) as w,
-        gc.attempt_id, gc.score, gc.max_score, gc.late_days, gc.changed_by_staff, gc.attempts, gc.review_open,
-        ((gc.attempt_id is not null or gl.due_at <= now()) and ${released}) as counts
+        gc.attempt_id, gc.score, gc.max_score, gc.late_days, gc.changed_by_staff, gc.simulated, gc.attempts, gc.review_open,
+        ((gc.attempt_id is not null or coalesce(gx.due_at, gl.due_at) <= now()) and ${released}) as counts
       from gs cross join gl
       left join gc on gc.lab_id = gl.id and gc.user_id = gs.user_id
+      left join gx on gx.lab_id = gl.id and gx.user_id = gs.user_id
+    ),
+    gxs as (
+      select gx.user_id, string_agg(concat('"', gx.lab_id, '":', to_json(gx.reason)::text), ',') as exceptions from gx group by gx.user_id
     ),
     gcells as (
       select ord,
         string_agg(concat('"', lab_id, '":', case when attempt_id is null then 'null' else concat(
             '{"score":', score, ',"maxScore":', max_score, ',"attemptId":"', attempt_id, '","attempts":', attempts,
             ',"late":', ${jbool("late_days > 0")}, ',"changedByStaff":', ${jbool("changed_by_staff")},
-            ',"reviewOpen":', ${jbool("review_open")}, '}') end), ',' order by lab_ord) as cells,
+            ',"reviewOpen":', ${jbool("review_open")}, ',"simulated":', ${jbool("simulated")}, '}') end), ',' order by lab_ord) as cells,
         case when sum(w) filter (where counts) > 0 then
           round((100 * sum(w * coalesce(score::float8 / nullif(max_score, 0), 0)) filter (where counts)
             / sum(w) filter (where counts))::numeric, 1)::float8
@@ -134,8 +147,8 @@ export function gradebookJsonQuery(courseId: string, onlyUser?: string, hideHeld
     grow as (
       select gs.ord, concat('{"userId":"', gs.user_id, '","name":', to_json(gs.name), ',"email":', to_json(gs.email),
         ',"section":', coalesce(to_json(gs.section)::text, 'null'), ',"total":', coalesce(gcells.total::text, 'null'),
-        ',"cells":{', gcells.cells, '}}') as student
-      from gs left join gcells on gcells.ord = gs.ord
+        ',"cells":{', gcells.cells, '},"exceptions":{', gxs.exceptions, '}}') as student
+      from gs left join gcells on gcells.ord = gs.ord left join gxs on gxs.user_id = gs.user_id
     )
     select concat(
       '{"labs":', coalesce((select json_agg(json_build_object(

@@ -5,7 +5,7 @@
 // to this module's queries only: the rest of the project's queries are written against the snake_case
 // tables of db/types.ts, and a global plugin would rename every one of them.
 import { CamelCasePlugin, sql, type Insertable, type Kysely, type Selectable, type Transaction, type Updateable } from "kysely";
-import type { CoursesTable, Database, LabStatus, LabsTable, LabVariantsTable, MembershipsTable, Role } from "../types";
+import type { BenchMode, CoursesTable, Database, LabExceptionsTable, LabStatus, LabsTable, LabVariantsTable, MembershipsTable, Role } from "../types";
 
 type Db = Kysely<Database> | Transaction<Database>;
 
@@ -19,6 +19,8 @@ interface LabsDatabase {
   /** read only by findLabForMember, with the lab */
   courses: Camel<CoursesTable>;
   memberships: Camel<MembershipsTable>;
+  /** read only by findLabForMember: the member's own exception to the lab */
+  labExceptions: Camel<LabExceptionsTable>;
 }
 
 // JSON columns (spec, questions, policy, params) are read as stored: their keys are the grader's, not columns.
@@ -46,6 +48,7 @@ export const LAB_DATA_COLUMNS = [
   "showExpected",
   "instructions",
   "safetyNotes",
+  "bench",
 ] as const;
 export type LabDataColumn = (typeof LAB_DATA_COLUMNS)[number];
 
@@ -81,6 +84,10 @@ export async function findLabForMember(db: Db, labId: string, userId: string | n
       const sameCourse = j.onRef("m.courseId", "=", "l.courseId");
       return userId === null ? sameCourse.on(sql<boolean>`false`) : sameCourse.on("m.userId", "=", userId);
     })
+    .leftJoin("labExceptions as x", (j) => {
+      const sameLab = j.onRef("x.labId", "=", "l.id");
+      return userId === null ? sameLab.on(sql<boolean>`false`) : sameLab.on("x.userId", "=", userId);
+    })
     .select(LAB_COLUMNS.map((c) => `l.${c}` as const))
     .select([
       "c.code as courseCode",
@@ -93,6 +100,10 @@ export async function findLabForMember(db: Db, labId: string, userId: string | n
       "c.defaultLateFloorPercent as courseDefaultLateFloorPercent",
       "m.role as memberRole",
       "m.section as memberSection",
+      "x.dueAt as exceptionDueAt",
+      "x.closesAt as exceptionClosesAt",
+      "x.extraAttempts as exceptionExtraAttempts",
+      "x.reason as exceptionReason",
     ])
     .where("l.id", "=", labId)
     .executeTakeFirst();
@@ -108,8 +119,22 @@ export async function findLabForMember(db: Db, labId: string, userId: string | n
     courseDefaultLateFloorPercent,
     memberRole,
     memberSection,
+    exceptionDueAt,
+    exceptionClosesAt,
+    exceptionExtraAttempts,
+    exceptionReason,
     ...lab
   } = row;
+  // the member's own exception to the lab's dates and attempts (lib/labs/policy.ts withException)
+  const exception =
+    exceptionReason === null
+      ? null
+      : {
+          dueAt: exceptionDueAt ? new Date(exceptionDueAt) : null,
+          closesAt: exceptionClosesAt ? new Date(exceptionClosesAt) : null,
+          extraAttempts: exceptionExtraAttempts ?? 0,
+          reason: exceptionReason,
+        };
   const course = {
     id: lab.courseId,
     code: courseCode,
@@ -121,7 +146,7 @@ export async function findLabForMember(db: Db, labId: string, userId: string | n
     defaultLatePenaltyPercentPerDay: courseDefaultLatePenaltyPercentPerDay,
     defaultLateFloorPercent: courseDefaultLateFloorPercent,
   };
-  return { lab: lab as LabRow, course, membership: memberRole ? { role: memberRole as Role, section: memberSection } : null };
+  return { lab: lab as LabRow, course, membership: memberRole ? { role: memberRole as Role, section: memberSection } : null, exception };
 }
 
 export async function listLabs(db: Db, courseId: string, opts: { publishedOnly: boolean }) {
@@ -135,11 +160,13 @@ export async function listLabs(db: Db, courseId: string, opts: { publishedOnly: 
  * (lib/labs/grading.ts withIds). The JSON fields are written as given; the close may be left out: no
  * explicit close.
  */
-export type LabWrite = Pick<Selectable<Camel<LabsTable>>, Exclude<LabDataColumn, "spec" | "questions" | "policy" | "closesAt">> & {
+export type LabWrite = Pick<Selectable<Camel<LabsTable>>, Exclude<LabDataColumn, "spec" | "questions" | "policy" | "closesAt" | "bench">> & {
   spec: unknown;
   questions: ({ id: string } & Record<string, unknown>)[];
   policy: unknown;
   closesAt?: Date | null;
+  /** left out: the real bench (the column's default) */
+  bench?: BenchMode;
 };
 
 /** The JSON fields as JSON text; a field left out stays out (Kysely skips undefined values). */
@@ -195,6 +222,43 @@ export async function storeVariant(db: Db, labId: string, userId: string, seed: 
     .returning(["seed", "params"])
     .executeTakeFirst();
   return stored ?? (await findVariant(db, labId, userId))!;
+}
+
+/** Stores many drawn circuits at once; one already stored (drawn by an open in between) is kept. */
+export async function storeVariants(db: Db, labId: string, rows: { userId: string; seed: string; params: unknown }[]): Promise<number> {
+  if (!rows.length) return 0;
+  const r = await labsDb(db)
+    .insertInto("labVariants")
+    .values(rows.map((v) => ({ labId, userId: v.userId, seed: v.seed, params: JSON.stringify(v.params) })))
+    .onConflict((oc) => oc.columns(["labId", "userId"]).doNothing())
+    .returning("userId")
+    .execute();
+  return r.length;
+}
+
+/** The course's students without a stored circuit for the lab. */
+export async function studentsWithoutVariant(db: Db, labId: string, courseId: string): Promise<string[]> {
+  const rows = await db
+    .selectFrom("memberships as m")
+    .leftJoin("lab_variants as v", (j) => j.onRef("v.user_id", "=", "m.user_id").on("v.lab_id", "=", labId))
+    .select("m.user_id")
+    .where("m.course_id", "=", courseId)
+    .where("m.role", "=", "student")
+    .where("v.user_id", "is", null)
+    .execute();
+  return rows.map((r) => r.user_id);
+}
+
+/** How many of the course's students have a stored circuit for the lab, of how many. */
+export async function drawProgress(db: Db, labId: string, courseId: string): Promise<{ drawn: number; students: number }> {
+  const r = await db
+    .selectFrom("memberships as m")
+    .leftJoin("lab_variants as v", (j) => j.onRef("v.user_id", "=", "m.user_id").on("v.lab_id", "=", labId))
+    .select([sql<number>`count(v.user_id)::int`.as("drawn"), sql<number>`count(*)::int`.as("students")])
+    .where("m.course_id", "=", courseId)
+    .where("m.role", "=", "student")
+    .executeTakeFirstOrThrow();
+  return r;
 }
 
 export async function deleteVariants(db: Db, labId: string) {

@@ -11,21 +11,29 @@ import type { PublicUser } from "@/db/queries/users";
 import type { Role } from "@/db/types";
 import { AppError, forbidden, notFound, unauthorized } from "@/lib/errors";
 import { uuidSchema } from "@/lib/validation/common";
-import { authOptions, sessionUser } from "./options";
+import { authOptions, sessionOf, sessionUser } from "./options";
 import { decodeSessionToken } from "./session-token";
 
 export const STAFF: Role[] = ["ta", "instructor"];
 export const EVERYONE: Role[] = ["student", "ta", "instructor"];
 
+/** The request's session token (decrypted from its cookie), once per request. */
+const requestToken = cache(async () =>
+  getToken({ req: { cookies: await cookies(), headers: {} } as unknown as Parameters<typeof getToken>[0]["req"], secureCookie: authOptions.useSecureCookies, decode: decodeSessionToken }),
+);
+
 /**
  * The signed-in user, read once per request (the layout and the page share it): the session cookie is
- * decrypted here and the user, with the time their sessions were revoked, is one query. (next-auth's
+ * decrypted here and the user with their session is one statement (db/queries/sessions.ts). (next-auth's
  * getServerSession would also run its callbacks and sign a renewed cookie that a server component cannot set.)
  */
-export const currentUser = cache(async (): Promise<PublicUser | null> => {
-  const token = await getToken({ req: { cookies: await cookies(), headers: {} } as unknown as Parameters<typeof getToken>[0]["req"], secureCookie: authOptions.useSecureCookies, decode: decodeSessionToken });
-  return sessionUser(token);
-});
+export const currentUser = cache(async (): Promise<PublicUser | null> => sessionUser(await requestToken()));
+
+/** The id of the caller's session (the row their cookie names), or null when not signed in. */
+export async function currentSessionId(): Promise<string | null> {
+  if (!(await currentUser())) return null;
+  return sessionOf(await requestToken())?.sessionId ?? null;
+}
 
 export async function requireUser(): Promise<PublicUser> {
   const user = await currentUser();

@@ -3,15 +3,21 @@ import type { NextAuthOptions } from "next-auth";
 import type { JWT } from "next-auth/jwt";
 import CredentialsProvider from "next-auth/providers/credentials";
 import { db } from "@/db";
-import { findCredentials, findSessionUser, type PublicUser } from "@/db/queries/users";
+import { createSession, findSessionUser } from "@/db/queries/sessions";
+import { findCredentials, type PublicUser } from "@/db/queries/users";
 import { uuidSchema } from "@/lib/validation/common";
 import { isHttps } from "@/lib/security/headers";
 import { signInSchema } from "@/lib/validation/auth";
 import { checkPassword } from "./password";
 import { decodeSessionToken } from "./session-token";
+import { cleanUserAgent, sessionLimits } from "./sessions";
+
+/** The sign-in error a disabled account gets (after its password was right); the sign-in page words it. */
+export const ACCOUNT_DISABLED = "AccountDisabled";
 
 export const authOptions: NextAuthOptions = {
-  session: { strategy: "jwt", maxAge: 14 * 24 * 3600 },
+  // the cookie holds the session's id; the row (lib/auth/sessions.ts) sets the real lifetimes
+  session: { strategy: "jwt", maxAge: sessionLimits().absoluteSeconds },
   jwt: { decode: decodeSessionToken },
   // `Secure` cookies (and the __Secure- prefix) whenever the public address is https.
   useSecureCookies: isHttps(process.env.NEXTAUTH_URL),
@@ -20,13 +26,16 @@ export const authOptions: NextAuthOptions = {
     CredentialsProvider({
       name: "E-mail and password",
       credentials: { email: { label: "E-mail", type: "email" }, password: { label: "Password", type: "password" } },
-      async authorize(raw) {
+      async authorize(raw, req) {
         const parsed = signInSchema.safeParse(raw);
         if (!parsed.success) return null;
         const found = await findCredentials(db, parsed.data.email);
         const ok = await checkPassword(found?.passwordHash, parsed.data.password);
         if (!found || !ok) return null;
-        return { id: found.id };
+        // said only to someone who knows the password: the account exists and the site admin disabled it
+        if (found.disabledAt) throw new Error(ACCOUNT_DISABLED);
+        const sid = await createSession(db, found.id, cleanUserAgent(req?.headers?.["user-agent"]), sessionLimits());
+        return { id: found.id, sid };
       },
     }),
   ],
@@ -42,13 +51,13 @@ export const authOptions: NextAuthOptions = {
       }
     },
     async jwt({ token, user }) {
-      // `at`: when this sign-in happened. next-auth renews `iat` whenever it re-issues the cookie, so the
-      // sign-in time travels separately; sessions signed in before a password reset are refused below.
-      // milliseconds, so that a sign-in just after a revocation (in the same second) still counts
-      const at = user ? Date.now() : ((token.at as number | undefined) ?? (token.iat as number | undefined));
-      if (user) token.sub = user.id;
+      // `sid`: the server-side session this cookie stands for (a row of `sessions`, made at sign-in).
+      if (user) {
+        token.sub = user.id;
+        token.sid = (user as { sid?: string }).sid;
+      }
       // Nothing else goes into the token: names, roles and the admin flag are read fresh on each request.
-      return { sub: token.sub, at, iat: token.iat, exp: token.exp, jti: token.jti };
+      return { sub: token.sub, sid: token.sid, iat: token.iat, exp: token.exp, jti: token.jti };
     },
     async session({ session, token }) {
       // next-auth's own /api/auth/session; the app's pages and routes read the cookie through currentUser
@@ -59,23 +68,22 @@ export const authOptions: NextAuthOptions = {
   },
 };
 
-/** When the token's holder signed in, in milliseconds (tokens from before `at` was in milliseconds carry seconds). */
-function signedInAt(token: JWT): number {
-  const raw = (token.at as number | undefined) ?? (token.iat as number | undefined) ?? 0;
-  return raw < 1e11 ? raw * 1000 : raw;
+/** The session a token stands for: its user's id and the session row's id, or null when it names none. */
+export function sessionOf(token: JWT | null): { userId: string; sessionId: string } | null {
+  const userId = token?.sub;
+  const sessionId = token?.sid;
+  if (typeof userId !== "string" || typeof sessionId !== "string") return null;
+  if (!uuidSchema.safeParse(userId).success || !uuidSchema.safeParse(sessionId).success) return null;
+  return { userId, sessionId };
 }
 
 /**
- * The user a session token names, read with one query, or null: no token, no such user, or a session
- * signed in before the user's `sessions_valid_after` (signed out everywhere, a new password). A database
- * out of reach throws (a route answers 503), it never reads as "signed out".
+ * The user a session token names, read with one statement, or null: no token, a session signed out,
+ * past its idle or absolute limit, or a disabled user. A database out of reach throws (a route answers
+ * 503), it never reads as "signed out".
  */
 export async function sessionUser(token: JWT | null): Promise<PublicUser | null> {
-  const id = token?.sub;
-  if (!token || !id || !uuidSchema.safeParse(id).success) return null;
-  const found = await findSessionUser(db, id);
-  if (!found) return null;
-  const { sessionsValidAfter, ...user } = found;
-  if (sessionsValidAfter && signedInAt(token) < sessionsValidAfter.getTime()) return null;
-  return user;
+  const s = sessionOf(token);
+  if (!s) return null;
+  return (await findSessionUser(db, s.sessionId, s.userId, sessionLimits())) ?? null;
 }

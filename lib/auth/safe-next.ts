@@ -14,5 +14,9 @@ export function safeNext(next: string | null | undefined, fallback = "/"): strin
     return fallback;
   }
   if (url.origin !== BASE) return fallback;
-  return url.pathname + url.search + url.hash;
+  // `/.//evil.example` resolves to the path `//evil.example`: the result itself must pass, so that cleaning
+  // it again changes nothing (the page cleans once and the form uses the result as it is)
+  const clean = url.pathname + url.search + url.hash;
+  if (clean.startsWith("//") || /[\\\u0000-\u001f\u007f]/.test(clean)) return fallback;
+  return clean;
 }

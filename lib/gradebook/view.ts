@@ -2,7 +2,7 @@
 import type { GradebookCell, GradebookStudent } from "@/db/queries/gradebook";
 
 export interface Marker {
-  key: "late" | "staff" | "review" | "missing";
+  key: "late" | "staff" | "review" | "simulated" | "missing" | "exception";
   symbol: string;
   label: string;
 }
@@ -11,15 +11,19 @@ export const MARKERS: Record<Marker["key"], Marker> = {
   late: { key: "late", symbol: "L", label: "submitted late (penalty applied)" },
   staff: { key: "staff", symbol: "✎", label: "changed by staff" },
   review: { key: "review", symbol: "?", label: "review requested, not yet answered" },
+  simulated: { key: "simulated", symbol: "S", label: "readings from the simulated bench" },
   missing: { key: "missing", symbol: "–", label: "not submitted" },
+  exception: { key: "exception", symbol: "E", label: "own dates or extra attempts (exception)" },
 };
 
-export function cellMarkers(cell: GradebookCell | null): Marker[] {
-  if (!cell) return [MARKERS.missing];
-  const out: Marker[] = [];
+export function cellMarkers(cell: GradebookCell | null, exceptionReason?: string): Marker[] {
+  const exception = exceptionReason ? [{ ...MARKERS.exception, label: `${MARKERS.exception.label}: ${exceptionReason}` }] : [];
+  if (!cell) return [MARKERS.missing, ...exception];
+  const out: Marker[] = [...exception];
   if (cell.late) out.push(MARKERS.late);
   if (cell.changedByStaff) out.push(MARKERS.staff);
   if (cell.reviewOpen) out.push(MARKERS.review);
+  if (cell.simulated) out.push(MARKERS.simulated);
   return out;
 }
 

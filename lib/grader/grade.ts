@@ -285,7 +285,7 @@ function gradeCategory(t: Template, spec: QuantitySpec, p: Params, q: Question, 
       const m = MISTAKES[c.key];
       r.answer = c.value;
       r.mistake = c.key;
-      return finish(r, "mistake", `${m.title}. ${c.detail ?? m.explain} ${m.fix}`);
+      return finish(r, "mistake", `${c.title ?? m.title}. ${c.detail ?? m.explain} ${m.fix}`);
     }
   }
   const known = spec.choices?.map(normaliseCategory).includes(answer);
@@ -421,7 +421,7 @@ function gradeNumber(t: Template, spec: QuantitySpec, p: Params, q: Question, ex
     if (Math.abs(answer - m.value) <= cHalf) {
       const info = MISTAKES[m.key];
       out.mistake = m.key;
-      return finish(out, "mistake", `${read}${info.title}. ${m.detail ?? info.explain} ${info.fix} The answer is ${fmt(expected, spec)}.`);
+      return finish(out, "mistake", `${read}${m.title ?? info.title}. ${m.detail ?? info.explain} ${info.fix} The answer is ${fmt(expected, spec)}.`);
     }
   }
   if (Math.abs(answer - expected) <= c.closeMultiple * half + slack)

@@ -111,7 +111,7 @@ export const MISTAKES: Record<MistakeKey, MistakeInfo> = {
   "wrong-guard-node": {
     title: "Guard at the wrong node",
     explain: "A guard only helps when it sits at (almost) the potential of the input it protects; tied to the source side or to a fixed rail it leaves the full voltage across the insulation.",
-    fix: "Drive the guard from the input's own potential (the amplifier's inverting input or a buffer of it), so only the guard's residual offset remains across the insulation: I = V_g/R_ins.",
+    fix: "Drive the guard from the input's own potential (the amplifier's non-inverting input, or a unity-gain buffer of the input; never the inverting input, the summing node itself), so only the guard's residual offset remains across the insulation: I = V_g/R_ins.",
   },
   "offset-wrong-sign": {
     title: "Offset added with the wrong sign",

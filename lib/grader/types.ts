@@ -66,6 +66,8 @@ export interface MistakeCandidate {
   value: QuantityValue;
   /** one sentence describing exactly what was done wrong for this quantity */
   detail?: string;
+  /** a title for this case when the key's general title would misdescribe what the student did */
+  title?: string;
 }
 
 export type MistakeKey =

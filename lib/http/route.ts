@@ -3,7 +3,7 @@
 import { NextResponse } from "next/server";
 import { z } from "zod";
 import { AppError, isDatabaseUnavailable, ServiceUnavailable } from "@/lib/errors";
-import { invalid, parseOr400 } from "@/lib/validation/zod-errors";
+import { invalid, parseOr400, refuseControlCharacters } from "@/lib/validation/zod-errors";
 
 type Ctx<P> = { params: Promise<P> };
 
@@ -21,17 +21,19 @@ function originOf(url: string | undefined | null): string | null {
   }
 }
 
+/** The site's public origins as configured (NEXTAUTH_URL, and APP_URL when set); never read from a request. */
+function publicOrigins(): (string | null)[] {
+  return [originOf(process.env.NEXTAUTH_URL ?? `http://127.0.0.1:${process.env.PORT ?? 3000}`), originOf(process.env.APP_URL)];
+}
+
 /**
- * Cross-site request refusal for state-changing methods: the browser's `Origin` must be this site's
- * (the public address in NEXTAUTH_URL, or the address the request was made to). Browsers send `Origin`
- * with every POST, PUT, PATCH and DELETE; other clients must send it too.
+ * Cross-site request refusal for state-changing methods: the browser's `Origin` must be the configured
+ * public address. Host and X-Forwarded-Host are not consulted (a client sets them to anything). Browsers
+ * send `Origin` with every POST, PUT, PATCH and DELETE; other clients must send it too.
  */
 export function assertSameOrigin(req: Request): void {
   const origin = req.headers.get("origin");
-  const host = req.headers.get("x-forwarded-host") ?? req.headers.get("host");
-  const proto = req.headers.get("x-forwarded-proto") ?? new URL(req.url).protocol.replace(":", "");
-  const allowed = [originOf(process.env.NEXTAUTH_URL), originOf(process.env.APP_URL), host ? originOf(`${proto}://${host}`) : null];
-  if (!origin || origin === "null" || !allowed.includes(origin)) {
+  if (!origin || origin === "null" || !publicOrigins().includes(origin)) {
     throw new AppError("forbidden", "This change must come from a page of this site (the Origin header is missing or another site's).", {
       origin: ["Send the Origin header of this site."],
     });
@@ -72,13 +74,22 @@ export async function readCapped(req: Request, cap: number, field = "body"): Pro
   return out;
 }
 
+/**
+ * `Cache-Control: no-store` on every answer of the API unless the handler chose otherwise: an answer
+ * depends on the caller (their data, a signed URL, a CSV of grades), so no browser or proxy may keep it.
+ */
+function noStore(res: Response): Response {
+  if (!res.headers.has("cache-control")) res.headers.set("cache-control", "no-store");
+  return res;
+}
+
 export function route<P = Record<string, string>>(handler: (req: Request, params: P) => Promise<Response>) {
   return async (req: Request, ctx: Ctx<P>): Promise<Response> => {
     try {
       if (STATE_CHANGING.has(req.method)) assertSameOrigin(req);
-      return await handler(req, await ctx.params);
+      return noStore(await handler(req, await ctx.params));
     } catch (e) {
-      return errorResponse(e);
+      return noStore(errorResponse(e));
     }
   };
 }
@@ -102,7 +113,8 @@ export function errorResponse(e: unknown): Response {
 
 /**
  * Reads a JSON body: Content-Type application/json (else 415), at most MAX_JSON_BYTES counted as it
- * streams (else 413), well-formed (else 400 that says so).
+ * streams (else 413), well-formed (else 400 that says so), no control character in any text (else 400
+ * naming the field).
  */
 export async function readJson(req: Request): Promise<unknown> {
   const type = (req.headers.get("content-type") ?? "").split(";")[0].trim().toLowerCase();
@@ -112,11 +124,15 @@ export async function readJson(req: Request): Promise<unknown> {
     });
   }
   const bytes = await readCapped(req, MAX_JSON_BYTES);
+  let data: unknown;
   try {
-    return JSON.parse(new TextDecoder("utf-8", { fatal: true }).decode(bytes));
+    data = JSON.parse(new TextDecoder("utf-8", { fatal: true }).decode(bytes));
   } catch {
     throw new AppError("bad_request", "The request body must be JSON.", { body: ["Not valid JSON."] });
   }
+  // every text field of every JSON body: a control character is a 400 naming the field, never a 500
+  refuseControlCharacters(data);
+  return data;
 }
 
 /** Reads a JSON body (see readJson) and validates it against the mutation's schema. */

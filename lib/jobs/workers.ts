@@ -2,6 +2,7 @@
 // finds its message already sent; the upload sweep removes only what is still unattached).
 import type PgBoss from "pg-boss";
 import { boss, keepTrying, QUEUES, stopBoss } from "./queue";
+import { drawForEveryone } from "../labs/draws";
 import { runRegrade } from "../labs/regrade";
 import { startMailWorker } from "../mail/worker";
 import { sweepUnattachedUploads } from "../uploads/accept";
@@ -23,6 +24,9 @@ export async function startWorkers(connectionString?: string): Promise<void> {
 async function registerWorkers(b: PgBoss): Promise<void> {
   await b.work<{ regradeId: string }>(QUEUES.regrade, { pollingIntervalSeconds: 1 }, async (jobs) => {
     for (const job of jobs) await runRegrade(job.data.regradeId);
+  });
+  await b.work<{ labId: string }>(QUEUES.draws, { pollingIntervalSeconds: 1 }, async (jobs) => {
+    for (const job of jobs) await drawForEveryone(job.data.labId);
   });
   await startMailWorker(b);
   await b.work<AnalysisJob>(QUEUES.uploadAnalysis, { pollingIntervalSeconds: 1, includeMetadata: true }, async (jobs) => {

@@ -4,14 +4,15 @@ import "server-only";
 import { db } from "@/db";
 import type { Database, Role } from "@/db/types";
 import type { Kysely, Transaction } from "kysely";
-import { countAttempts, findAttempt, insertGradedAttempt, listAttempts, lockStudentLab, submissionState, type AttemptRow } from "@/db/queries/attempts";
+import { countAttempts, findAttempt, insertGradedAttempt, listAttempts, lockStudentLab, submissionState, type AttemptRow, type AttemptWrite } from "@/db/queries/attempts";
 import { findLabForMember, findVariant, insertLab, listLabs, storeVariant } from "@/db/queries/labs";
 import { findUploads, lockUploadsForAttempt } from "@/db/queries/uploads";
 import { assertRole, courseAccess, currentUser, EVERYONE, isStaff, type CourseAccess } from "@/lib/auth/access";
 import { AppError, notFound, unauthorized } from "@/lib/errors";
 import { queueGradeMail } from "@/lib/mail/grade";
 import { drawVariant, type Params } from "@/lib/grader";
-import { attemptRecord, checkReadings, gradeForLab, parseMeasured, toLab, withIds, type Lab, type StoredTrace } from "./grading";
+import { studentExceptions } from "@/db/queries/exceptions";
+import { attemptRecord, checkReadings, forStudent, gradeForLab, parseMeasured, toLab, withIds, type Lab, type StoredTrace } from "./grading";
 import { closeOf, expectedVisible, isClosed, isOpen } from "./policy";
 import { reviewIsOpen } from "./overrides";
 import { presentResults, type StoredResult } from "./present";
@@ -30,15 +31,17 @@ export async function labAccess(labId: string, allowed: Role[] = EVERYONE): Prom
   if (!found) throw notFound("That lab");
   if (!user) throw unauthorized();
   const access = courseAccess(user, found.course, found.membership, EVERYONE);
-  const lab = toLab(found.lab);
+  // a student works the lab with their own dates and attempts when the instructor granted an exception
+  const lab = access.role === "student" ? forStudent(toLab(found.lab), found.exception) : toLab(found.lab);
   if (!isStaff(access.role) && lab.status !== "published") throw notFound("That lab");
   assertRole(access, allowed);
   return { lab, access };
 }
 
 export async function labsForCourse(access: CourseAccess): Promise<Lab[]> {
-  const rows = await listLabs(db, access.course.id, { publishedOnly: !isStaff(access.role) });
-  return rows.map(toLab);
+  if (isStaff(access.role)) return (await listLabs(db, access.course.id, { publishedOnly: false })).map(toLab);
+  const [rows, exceptions] = await Promise.all([listLabs(db, access.course.id, { publishedOnly: true }), studentExceptions(db, access.course.id, access.user.id)]);
+  return rows.map((r) => forStudent(toLab(r), exceptions.get(r.id)));
 }
 
 export async function createLab(access: CourseAccess, data: LabData, status: "draft" | "published" = "draft"): Promise<string> {
@@ -62,6 +65,16 @@ export interface SubmitInput {
   readings: Record<string, string | null>;
   measured: Record<string, string | null>;
   uploadIds: string[];
+  /** the readings came from the simulated bench (only a lab that allows either asks) */
+  simulated?: boolean;
+}
+
+/** Whether an attempt's readings came from the simulated bench: the lab decides, or the student where it allows either. */
+export function attemptSimulated(lab: Pick<Lab, "bench">, said: boolean | undefined): boolean {
+  if (lab.bench === "real" && said) {
+    throw new AppError("bad_request", "This lab is taken on the real bench.", { simulated: ["This lab has no simulated bench."] });
+  }
+  return lab.bench === "simulated" || (lab.bench === "either" && said === true);
 }
 
 /**
@@ -82,6 +95,7 @@ export async function submitAttempt(
     throw new AppError("bad_request", `These readings answer no question of this lab: ${unknown.join(", ")}.`, Object.fromEntries(unknown.map((k) => [`readings.${k}`, ["This lab has no such question."]])));
   }
   checkReadings(lab, input.readings);
+  const simulated = attemptSimulated(lab, input.simulated);
   const measured = parseMeasured(lab, input.measured);
   const userId = access.user.id;
 
@@ -111,7 +125,7 @@ export async function submitAttempt(
     }
     const params = (state.params as Params | null) ?? (await drawVariantFor(lab, userId, trx));
     const result = gradeForLab(lab, params, input.readings, measured, traces);
-    const record = attemptRecord({
+    const record: AttemptWrite = attemptRecord({
       lab,
       userId,
       number: state.used + 1,
@@ -123,6 +137,7 @@ export async function submitAttempt(
       result,
       submittedAt: now,
     });
+    record.simulated = simulated;
     // the attempt and its "graded" event are one statement
     const attempt = await insertGradedAttempt(trx, record);
     // the message is queued in this transaction: no grade without its e-mail job, no job without its grade.
@@ -205,6 +220,8 @@ export function presentAttempt(attempt: AttemptRow, lab: Lab, viewerIsStaff: boo
     reviewAnsweredAt: attempt.reviewAnsweredAt,
     reviewOpen: reviewIsOpen(attempt),
     changedByStaff: attempt.changedByStaff,
+    /** the readings came from the simulated bench */
+    simulated: attempt.simulated,
   };
 }
 

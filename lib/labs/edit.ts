@@ -37,6 +37,7 @@ export function labAsInput(lab: Lab) {
     showExpected: lab.showExpected,
     instructions: lab.instructions,
     safetyNotes: lab.safetyNotes,
+    bench: lab.bench,
   };
 }
 
@@ -67,6 +68,8 @@ export async function editLab(lab: Lab, patch: LabPatch): Promise<{ regrade: { i
   // is ever left "queued" without a job
   return db.transaction().execute(async (trx) => {
     await updateLab(trx, lab.id, { ...changed, ...(status ? { status } : {}) }, recompute);
+    // publishing draws every student's circuit in one job (lib/labs/draws.ts), queued with the change
+    if (status === "published" && lab.status !== "published") await enqueue(QUEUES.draws, { labId: lab.id }, { singletonKey: `draws:${lab.id}`, trx });
     if (!recompute) return { regrade: null };
     const regrade = await startRegrade(lab.id, lab.version + 1, attempts, trx);
     await enqueue(QUEUES.regrade, { regradeId: regrade.id }, { singletonKey: regrade.id, trx });

@@ -1,6 +1,7 @@
 // Grading a lab's attempt from stored data: no framework, session or request objects, so the web
 // server, the regrade job and the tests share it.
 import type { findLab } from "@/db/queries/labs";
+import type { BenchMode } from "@/db/types";
 import { AppError } from "@/lib/errors";
 import {
   componentTolerancesFromSpec,
@@ -16,7 +17,7 @@ import {
   type TemplateKey,
   type VariantSpec,
 } from "@/lib/grader";
-import { applyPenalty, latePenaltyPercent, lateDays, type LabRules } from "./policy";
+import { applyPenalty, latePenaltyPercent, lateDays, withException, type LabException, type LabRules } from "./policy";
 import type { StoredResult } from "./present";
 
 export interface Lab extends LabRules {
@@ -35,6 +36,18 @@ export interface Lab extends LabRules {
   updatedAt: Date;
   /** students see "graded, not yet released" and get no grade e-mail until the instructor releases */
   gradesHeld: boolean;
+  /** where students take their readings: the real bench, the simulated bench, or either */
+  bench: BenchMode;
+  /**
+   * The viewing student's own exception, already applied to the dates and attempts above (null for
+   * everyone else): see `forStudent`.
+   */
+  exception: LabException | null;
+}
+
+/** The lab as one student works it: their own dates and attempt limit when they have an exception. */
+export function forStudent(lab: Lab, exception: LabException | null | undefined): Lab {
+  return exception ? { ...withException(lab, exception), exception } : lab;
 }
 
 type LabRow = NonNullable<Awaited<ReturnType<typeof findLab>>>;
@@ -50,6 +63,7 @@ export function toLab(row: LabRow): Lab {
     dueAt: row.dueAt ? new Date(row.dueAt) : null,
     closesAt: row.closesAt ? new Date(row.closesAt) : null,
     publishedAt: row.publishedAt ? new Date(row.publishedAt) : null,
+    exception: null,
   };
 }
 

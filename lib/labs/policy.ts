@@ -102,3 +102,29 @@ export function expectedWhenText(rules: ExpectedRules, formatDate: (d: Date) => 
   const due = rules.showExpected === "after_due" && rules.dueAt ? `, and not before the due date (${formatDate(rules.dueAt)})` : "";
   return `Expected values, bands and worked solutions appear ${when}${due}: never while points can still be earned.`;
 }
+
+/** One student's exception to a lab's rules (granted by the instructor with a reason). */
+export interface LabException {
+  dueAt: Date | null;
+  closesAt: Date | null;
+  extraAttempts: number;
+  reason: string;
+}
+
+/**
+ * The lab's rules for a student with an exception: their own due date (no late penalty before it), their
+ * own close, and the extra attempts added to the lab's. A new due date without a new close moves an
+ * explicit close by as much as the due date moved (never earlier); the default close follows the due date
+ * by itself.
+ */
+export function withException<R extends Pick<LabRules, "dueAt" | "closesAt" | "attemptsAllowed">>(rules: R, ex: LabException | null | undefined): R {
+  if (!ex) return rules;
+  const dueAt = ex.dueAt ?? rules.dueAt;
+  let closesAt = ex.closesAt ?? rules.closesAt;
+  if (!ex.closesAt && ex.dueAt && rules.closesAt && rules.dueAt) {
+    const moved = ex.dueAt.getTime() - rules.dueAt.getTime();
+    if (moved > 0) closesAt = new Date(rules.closesAt.getTime() + moved);
+  }
+  if (!ex.closesAt && ex.dueAt && rules.closesAt && !rules.dueAt && rules.closesAt < ex.dueAt) closesAt = ex.dueAt;
+  return { ...rules, dueAt, closesAt, attemptsAllowed: rules.attemptsAllowed + ex.extraAttempts };
+}

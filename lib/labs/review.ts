@@ -15,7 +15,7 @@ import { parseRegrade, reviewAnswerSchema, reviewQuerySchema } from "@/lib/valid
 import { invalid, parseOr400 } from "@/lib/validation/zod-errors";
 import type { Lab, StoredTrace } from "./grading";
 import { answerReviewRequest, overrideQuestion, recomputeAttempt } from "./rescore";
-import { attemptAccess, attemptsUsed, presentAttempt } from "./attempts";
+import { attemptAccess, attemptsUsed, HELD_NOTICE, presentAttempt } from "./attempts";
 
 /** The course's review requests for its staff (students 403, outsiders 404). */
 export async function reviewQueue(courseId: string, search: URLSearchParams) {
@@ -106,9 +106,13 @@ export function presentEvent(e: GradeEventRow, lab: Lab) {
 
 export type PresentedEvent = ReturnType<typeof presentEvent>;
 
-/** The attempt's grade history, oldest first: the owner and the course staff (anyone else 404). */
-export async function attemptHistory(attemptId: string) {
-  const { attempt, lab } = await attemptAccess(attemptId);
+/**
+ * The attempt's grade history, oldest first: the owner and the course staff (anyone else 404). While the
+ * lab's grades are held its student gets no events (every one carries points), only the held notice.
+ */
+export async function attemptHistory(attemptId: string): Promise<{ events: PresentedEvent[]; status?: "held"; notice?: string }> {
+  const { attempt, lab, access } = await attemptAccess(attemptId);
+  if (lab.gradesHeld && !isStaff(access.role)) return { events: [], status: "held", notice: HELD_NOTICE };
   const rows = await listGradeEvents(db, attempt.id);
-  return rows.map((e) => presentEvent(e, lab));
+  return { events: rows.map((e) => presentEvent(e, lab)) };
 }

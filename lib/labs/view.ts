@@ -29,6 +29,10 @@ export function labPublic(lab: Lab) {
     showExpected: lab.showExpected,
     instructions: lab.instructions,
     safetyNotes: lab.safetyNotes,
+    /** where students take their readings: "real", "simulated" or "either" */
+    bench: lab.bench,
+    /** the viewing student's own exception (its dates and attempts are already the ones above), or null */
+    exception: lab.exception ? { extraAttempts: lab.exception.extraAttempts, reason: lab.exception.reason } : null,
   };
 }
 

@@ -37,5 +37,19 @@ export async function checkLessonAnswer(questionId: string, answer: string): Pro
   });
   const r = result.results[0];
   const expected = typeof r.expected === "number" ? formatText(r.expected, q.unit) : String(r.expected);
-  return { ok: true, verdict: r.verdict, feedback: r.feedback, expected, solutionHtml: r.solution.map(tex) };
+  return { ok: true, verdict: r.verdict, feedback: readerFeedback(r.verdict, r.feedback, r.readAs), expected, solutionHtml: r.solution.map(tex) };
+}
+
+/**
+ * The grader's feedback speaks to a student in a graded lab (bands, lab tolerance, points). A reader of a
+ * lesson gets it once, in plain words: the verdict's label is shown beside it, and the expected value with
+ * the worked solution, so neither is repeated here.
+ */
+export function readerFeedback(verdict: string, feedback: string, readAs?: string): string {
+  const read = readAs ? `Read as ${readAs}. ` : "";
+  if (verdict === "correct") return `${read}That agrees with the worked solution within 1 %.`;
+  if (verdict === "close") return `${read}Near, but more than 1 % away: check your rounding and the values you used.`;
+  if (verdict === "wrong") return `${read}Compare your steps with the worked solution.`;
+  // a recognised slip or a unit: the grader's explanation, without the answer (shown with the solution)
+  return feedback.replace(/\s*The answer is [^]*$/, "").trim();
 }

@@ -14,8 +14,14 @@ export interface StoredMessage {
   date: string;
 }
 
+/**
+ * The mailbox shows reset links of every account, so it is served only while the local SMTP stand-in
+ * takes the mail and either NODE_ENV is not production or SHUNTWISE_DEV_MAILBOX=1 says so explicitly
+ * (`npm start` and `npm test` set it when they run the stand-in); a deployment has neither.
+ */
 export function mailboxAvailable(): boolean {
-  return standInMailDir() !== null;
+  if (standInMailDir() === null) return false;
+  return process.env.NODE_ENV !== "production" || process.env.SHUNTWISE_DEV_MAILBOX === "1";
 }
 
 const addresses = (a: AddressObject | AddressObject[] | undefined): string[] =>

@@ -2,6 +2,7 @@
 // whether an account exists; choosing the new password uses the link once and signs out every session.
 import type { Kysely } from "kysely";
 import type { Database } from "@/db/types";
+import { deleteSessionsOf } from "@/db/queries/sessions";
 import { findCredentials, findUserByEmail, setPassword } from "@/db/queries/users";
 import { checkPassword, hashPassword } from "@/lib/auth/password";
 import { AppError } from "@/lib/errors";
@@ -23,16 +24,21 @@ export async function resetPassword(db: Kysely<Database>, token: string, passwor
   return db.transaction().execute(async (trx) => {
     const used = await consumeToken(trx, token, now);
     if (!used) throw new AppError("bad_request", LINK_UNUSABLE, { token: [LINK_UNUSABLE] });
-    await setPassword(trx, used.userId, passwordHash, { signOutBefore: now });
+    await setPassword(trx, used.userId, passwordHash);
+    await deleteSessionsOf(trx, used.userId);
     return { userId: used.userId };
   });
 }
 
-export async function changePassword(db: Kysely<Database>, user: { id: string; email: string }, current: string, next: string) {
+/** A new password from the settings page: every other session of the user, on every device, ends. */
+export async function changePassword(db: Kysely<Database>, user: { id: string; email: string }, current: string, next: string, keepSessionId: string | null) {
   const found = await findCredentials(db, user.email);
   if (!found || found.id !== user.id || !(await checkPassword(found.passwordHash, current))) {
     throw new AppError("bad_request", "Your current password is not right.", { currentPassword: ["That is not your current password."] });
   }
-  // every session signed in before, on every device, ends (the form signs this one in again)
-  await setPassword(db, user.id, await hashPassword(next), { signOutBefore: new Date() });
+  const passwordHash = await hashPassword(next);
+  await db.transaction().execute(async (trx) => {
+    await setPassword(trx, user.id, passwordHash);
+    await deleteSessionsOf(trx, user.id, keepSessionId ?? undefined);
+  });
 }

@@ -4,6 +4,7 @@
 // account's e-mail (whether or not an account has it: the answer and the time taken never tell) and the
 // caller's address.
 import "server-only";
+import { timingSafeEqual } from "node:crypto";
 import type pg from "pg";
 import { RateLimiterPostgres, RateLimiterRes } from "rate-limiter-flexible";
 import { newPool } from "@/db/pool";
@@ -25,8 +26,11 @@ export const LIMITS = {
 
 export type LimitName = keyof typeof LIMITS;
 
-/** A counter's key as stored: lower case, without control characters (PostgreSQL text cannot hold NUL). */
-const keyOf = (key: string) => key.toLowerCase().replace(/[\u0000-\u001f\u007f]/g, "");
+/**
+ * A counter's key as stored: lower case, without control characters (PostgreSQL text cannot hold NUL),
+ * at most 200 characters (the table's key is varchar(255) with the limit's name in front).
+ */
+const keyOf = (key: string) => key.toLowerCase().replace(/[\u0000-\u001f\u007f]/g, "").slice(0, 200);
 
 const WHAT: Record<string, string> = {
   signIn: "sign-in attempts",
@@ -61,17 +65,19 @@ export class TooManyRequests extends AppError {
   constructor(
     public retryAfterSeconds: number,
     what: string,
+    field?: string,
   ) {
     const minutes = Math.max(1, Math.ceil(retryAfterSeconds / 60));
-    super("too_many_requests", `Too many ${what} in a short time. Wait ${minutes} minute${minutes === 1 ? "" : "s"} and try again.`);
+    const message = `Too many ${what} in a short time. Wait ${minutes} minute${minutes === 1 ? "" : "s"} and try again.`;
+    super("too_many_requests", message, field ? { [field]: [message] } : undefined);
   }
 }
 
 /**
  * Counts one try against every given counter; throws TooManyRequests when any is used up. Keys that are
- * empty are skipped.
+ * empty are skipped. `field`: the form field a 429 names (the one whose value is being tried).
  */
-export async function throttle(counters: [LimitName, string | null | undefined][]): Promise<void> {
+export async function throttle(counters: [LimitName, string | null | undefined][], field?: string): Promise<void> {
   const results = await Promise.allSettled(counters.filter(([, key]) => key).map(([name, key]) => limiter(name).consume(keyOf(key!))));
   let wait = 0;
   for (const r of results) {
@@ -83,24 +89,23 @@ export async function throttle(counters: [LimitName, string | null | undefined][
   if (wait > 0) {
     const first = counters[0][0];
     const what = WHAT[Object.keys(WHAT).find((k) => first.startsWith(k)) ?? "signIn"];
-    throw new TooManyRequests(Math.ceil(wait / 1000), what);
+    throw new TooManyRequests(Math.ceil(wait / 1000), what, field);
   }
 }
 
-/** Throws TooManyRequests when any counter is already used up, without counting a try. */
-export async function refuseIfUsedUp(counters: [LimitName, string | null | undefined][]): Promise<void> {
-  let wait = 0;
-  for (const [name, key] of counters) {
-    if (!key) continue;
-    const res = await limiter(name).get(keyOf(key));
-    if (res && res.consumedPoints >= LIMITS[name].points) wait = Math.max(wait, res.msBeforeNext);
-  }
-  if (wait > 0) throw new TooManyRequests(Math.ceil(wait / 1000), WHAT.signIn);
+/**
+ * A try at a secret (a password): one point is taken from every counter before the secret is checked,
+ * atomically in PostgreSQL (an upsert per counter), so tries sent in parallel cannot all pass a check made
+ * before any is counted. Throws TooManyRequests when any counter was already used up. On success the
+ * caller gives the points back (giveBack) or forgets the counter.
+ */
+export async function takeTry(counters: [LimitName, string | null | undefined][], field?: string): Promise<void> {
+  await throttle(counters, field);
 }
 
-/** Counts one failed try against every counter (a refusal is already handled by refuseIfUsedUp). */
-export async function countFailure(counters: [LimitName, string | null | undefined][]): Promise<void> {
-  await Promise.allSettled(counters.filter(([, key]) => key).map(([name, key]) => limiter(name).consume(keyOf(key!))));
+/** Returns the point takeTry took from each counter (the try succeeded). */
+export async function giveBack(counters: [LimitName, string | null | undefined][]): Promise<void> {
+  await Promise.all(counters.filter(([, key]) => key).map(([name, key]) => limiter(name).reward(keyOf(key!), 1)));
 }
 
 /** Forgets a counter (a successful sign-in clears its account's failures). */
@@ -109,11 +114,18 @@ export async function forgive(name: LimitName, key: string | null | undefined): 
 }
 
 /**
- * The caller's address: the last entry of X-Forwarded-For (the one the nearest proxy, or Next.js
- * itself, wrote; earlier entries come from the client and can be forged).
+ * The caller's address as the server wrapper (scripts/serve.mjs) resolved it: the socket's peer, or with
+ * SHUNTWISE_TRUSTED_PROXIES the address a trusted proxy saw. The wrapper's header counts only with its
+ * process's key (a client cannot make one up); without the wrapper (`next dev`) every caller shares the
+ * one counter "unknown" rather than trusting a header the client writes.
  */
 export function clientAddress(headers: Headers | { get(name: string): string | null }): string {
-  const xff = headers.get("x-forwarded-for");
-  const last = xff?.split(",").at(-1)?.trim();
-  return last || headers.get("x-real-ip") || "unknown";
+  const key = process.env.SHUNTWISE_CLIENT_HEADER_KEY;
+  const stamped = headers.get("x-shuntwise-client");
+  if (!key || !stamped) return "unknown";
+  const space = stamped.indexOf(" ");
+  if (space <= 0) return "unknown";
+  const given = Buffer.from(stamped.slice(0, space));
+  const expected = Buffer.from(key);
+  return given.length === expected.length && timingSafeEqual(given, expected) ? stamped.slice(space + 1) || "unknown" : "unknown";
 }

@@ -5,4 +5,5 @@ export {
   accuracyBound, cutoffOf, inputResistance, loadedCurrent, noiseBandwidthOf, senseResistance, sensitivityOf, steadyCurrent,
   stepOf, thermalNoiseCurrent, timeConstantOf,
 } from "./model";
-export { autoRangeStep, benchSeed, filteredCurrent, fixedErrors, quantise, simulateReadings, switchTimeConstant } from "./simulate";
+export { autoRangeStep, benchSeed, filteredCurrent, fixedErrors, quantise, readingRun, simulateReadings, switchTimeConstant } from "./simulate";
+export { NODE_SUPPLY_VOLTS, SIMULATED_TEMPLATES, circuitFor, hasSimulatedBench } from "./circuits";

@@ -36,14 +36,16 @@ export function fixedErrors(seed: string, range: SimRange): { gain: number; offs
   return { gain: (2 * r() - 1) * (range.accuracy.percentOfReading / 100), offset: (2 * r() - 1) * offsetBound };
 }
 
-const errorCache = new Map<string, { gain: number; offset: number }>();
+// the fixed errors of a range object for a seed, drawn once
+const errorCache = new WeakMap<SimRange, Map<string, { gain: number; offset: number }>>();
 function errorsOf(seed: string, range: SimRange) {
-  const key = `${seed}|${range.key}|${JSON.stringify(range.accuracy)}|${JSON.stringify(range.resolution)}|${range.fullScale}|${range.sensitivity ?? ""}`;
-  let e = errorCache.get(key);
+  let bySeed = errorCache.get(range);
+  if (!bySeed) errorCache.set(range, (bySeed = new Map()));
+  let e = bySeed.get(seed);
   if (!e) {
-    if (errorCache.size > 256) errorCache.clear();
+    if (bySeed.size > 64) bySeed.clear();
     e = fixedErrors(seed, range);
-    errorCache.set(key, e);
+    bySeed.set(seed, e);
   }
   return e;
 }
@@ -127,41 +129,54 @@ export function switchTimeConstant(instrument: SimInstrument, range: SimRange, f
   return Math.max(timeConstantOf(range, filter), (instrument.autoRange?.settlingSeconds ?? 0) / Math.log(100));
 }
 
-/** The readings of one run. Throws on a range the instrument does not have (or "auto" without auto-ranging). */
-export function simulateReadings(seed: string, instrument: SimInstrument, circuit: BenchCircuit, run: ReadingRun): SimReading[] {
+/**
+ * The readings of one run, one after another: `next()` gives reading 0, 1, 2, … of the run (the live display
+ * calls it as time passes). Throws on a range the instrument does not have (or "auto" without auto-ranging).
+ */
+export function readingRun(seed: string, instrument: SimInstrument, circuit: BenchCircuit, run: ReadingRun): { next(): SimReading } {
   const rate = run.rate ?? DISPLAY_RATE_HZ;
-  const out: SimReading[] = [];
   const timeOf = (i: number) => run.from + i / rate;
+  let i = 0;
   if (run.range !== "auto") {
     const range = instrument.ranges.find((r) => r.key === run.range);
     if (!range) throw new Error(`no range ${run.range}`);
-    for (let i = 0; i < run.count; i++) {
-      const t = timeOf(i);
-      out.push({ t, value: readOnce(seed, instrument, range, circuit, run, run.from, t), unit: "A", range: range.key });
-    }
-    return out;
+    return {
+      next() {
+        const t = timeOf(i++);
+        return { t, value: readOnce(seed, instrument, range, circuit, run, run.from, t), unit: "A", range: range.key };
+      },
+    };
   }
-  const auto = instrument.autoRange;
-  if (!auto) throw new Error("this instrument does not range automatically");
+  if (!instrument.autoRange) throw new Error("this instrument does not range automatically");
   const ranges = instrument.ranges;
   // an auto-ranger starts on its least sensitive range and works down (PHYSICS.md §3)
   let k = ranges.length - 1;
   let since = run.from;
   let tau = timeConstantOf(ranges[k], run.filter);
-  for (let i = 0; i < run.count; i++) {
-    const t = timeOf(i);
-    const range = ranges[k];
-    const value = readOnce(seed, instrument, range, circuit, run, since, t, tau);
-    out.push({ t, value, unit: "A", range: range.key });
-    // readings taken while the output settles (to 0.1 %, 7τ) are shown but take no decision (PHYSICS.md §3)
-    if (t - since < 7 * tau) continue;
-    const next = autoRangeStep(instrument, k, value);
-    if (next !== k) {
-      k = next;
-      since = t;
-      tau = switchTimeConstant(instrument, ranges[k], run.filter);
-    }
-  }
+  return {
+    next() {
+      const t = timeOf(i++);
+      const range = ranges[k];
+      const value = readOnce(seed, instrument, range, circuit, run, since, t, tau);
+      // readings taken while the output settles (to 0.1 %, 7τ) are shown but take no decision (PHYSICS.md §3)
+      if (t - since >= 7 * tau) {
+        const next = autoRangeStep(instrument, k, value);
+        if (next !== k) {
+          k = next;
+          since = t;
+          tau = switchTimeConstant(instrument, ranges[k], run.filter);
+        }
+      }
+      return { t, value, unit: "A", range: range.key };
+    },
+  };
+}
+
+/** The readings of one run: `count` readings of readingRun. */
+export function simulateReadings(seed: string, instrument: SimInstrument, circuit: BenchCircuit, run: ReadingRun): SimReading[] {
+  const stepper = readingRun(seed, instrument, circuit, run);
+  const out: SimReading[] = [];
+  for (let n = 0; n < run.count; n++) out.push(stepper.next());
   return out;
 }
 

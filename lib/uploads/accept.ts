@@ -8,7 +8,7 @@ import { fileTypeFromBuffer } from "file-type";
 import { db } from "@/db";
 import { deleteUnattachedUploads, insertUpload, lockOwnerUploads, storedBytes, type UploadRow } from "@/db/queries/uploads";
 import { AppError } from "@/lib/errors";
-import { abortMultipartUpload, deleteObjects, maxUploadBytes, putObject, signedUrl, unattachedUploadHours, uploadQuotaBytes } from "@/lib/uploads/storage";
+import { abortMultipartUpload, deleteObjects, downloadName, maxUploadBytes, putObject, signedUrl, unattachedUploadHours, uploadQuotaBytes } from "@/lib/uploads/storage";
 import { analyzeTrace } from "@/lib/trace";
 import type { Params } from "@/lib/grader";
 
@@ -129,7 +129,7 @@ export async function uploadView(u: UploadRow) {
     failure: u.failure,
     /** the samples are kept for zooming (GET /api/uploads/{id}/trace) */
     zoomable: u.zoomable,
-    url: await signedUrl(u.storageKey, 60, u.originalName),
+    url: await signedUrl(u.storageKey, 60, downloadName(u.originalName, u.contentType)),
     urlExpiresInSeconds: 60,
   };
 }

@@ -71,6 +71,18 @@ export async function listKeys(prefix: string): Promise<string[]> {
   return keys;
 }
 
+/** The extension of each type an upload can be stored as (the type read from the bytes, never the name's). */
+const EXTENSION: Record<string, string> = { "image/png": "png", "image/jpeg": "jpg", "text/csv": "csv" };
+
+/**
+ * A stored file's download name: the name the student gave without its extension, with the extension of
+ * the detected type (`poly.html` stored as PNG downloads as `poly.png`).
+ */
+export function downloadName(originalName: string, contentType: string): string {
+  const base = (originalName.split(/[\\/]/).pop() ?? "").replace(/\.[^.]*$/, "").replace(/[^\w.\- ]/g, "_").replace(/^[.\s]+/, "") || "file";
+  return `${base.slice(0, 100)}.${EXTENSION[contentType.split(";")[0].trim().toLowerCase()] ?? "bin"}`;
+}
+
 /** `attachment; filename=…` with the name reduced to safe characters. */
 export function attachmentDisposition(name = "file"): string {
   return `attachment; filename="${name.replace(/[^\w.\- ]/g, "_") || "file"}"`;

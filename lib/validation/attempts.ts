@@ -7,5 +7,7 @@ export const attemptInputSchema = z.object({
   readings: z.record(z.string(), z.string().max(200, "Use at most 200 characters.").nullable()),
   measured: z.record(z.string(), z.string().max(200, "Use at most 200 characters.").nullable()).optional().default({}),
   uploadIds: z.array(z.uuid({ error: "Not an upload id." })).max(4, "Attach at most 4 files.").optional().default([]),
+  /** the readings came from the simulated bench (a lab that allows either; a simulated-only lab sets it itself) */
+  simulated: z.boolean({ error: "Say true or false." }).optional(),
 });
 export type AttemptInput = z.input<typeof attemptInputSchema>;

@@ -2,10 +2,11 @@
 // the route handlers. The parameter spec, questions and policy use the grader's own schemas.
 import { z } from "zod";
 import type { LabDataColumn } from "@/db/queries/labs";
+import { hasSimulatedBench } from "@/lib/simulation/circuits";
 import { drawVariant, gradePolicySchema, questionSchema, TEMPLATE_KEYS, templates, variantSpecSchema, type TemplateKey } from "@/lib/grader";
 
 // An ISO date-time from a form or a request, or a Date already read (a PATCH merged into a stored lab).
-const isoDate = z
+export const isoDate = z
   .union([z.date(), z.iso.datetime({ offset: true, local: true }), z.literal(""), z.null()])
   .transform((v) => (v instanceof Date ? v : v ? new Date(v) : null))
   .refine((d) => d === null || !Number.isNaN(d.getTime()), { message: "Enter a valid date and time." });
@@ -17,6 +18,9 @@ const percent = () =>
     .min(0, "Use 0 or more.")
     .max(100, "Use at most 100.")
     .transform((v) => Math.round(v * 100) / 100);
+
+export const BENCH_MODES = ["real", "simulated", "either"] as const;
+export const benchModeSchema = z.enum(BENCH_MODES, { error: "Choose real, simulated or either." });
 
 export const labFields = {
   title: z.string({ error: "Give the lab a title." }).trim().min(1, "Give the lab a title.").max(120, "Use at most 120 characters."),
@@ -35,13 +39,15 @@ export const labFields = {
   showExpected: z.enum(["after_attempt", "after_due", "never"], { error: "Choose when expected values are shown." }),
   instructions: z.string().max(20_000, "Use at most 20,000 characters.").default(""),
   safetyNotes: z.string().max(5_000, "Use at most 5,000 characters.").default(""),
+  /** where students take their readings: the real bench, the simulated bench, or either */
+  bench: benchModeSchema.default("real"),
 };
 
 /** db/queries/labs.ts reads and writes these fields as columns by name; the build fails when the two lists differ. */
 type SameKeys<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
 export const labFieldsAreColumns: SameKeys<keyof typeof labFields, LabDataColumn> = true;
 
-function checkLab(lab: { templateKey: TemplateKey; spec: { template: string; parameters: Record<string, unknown> }; questions: { quantity: string }[]; opensAt: Date | null; dueAt: Date | null; closesAt?: Date | null }, ctx: z.RefinementCtx) {
+function checkLab(lab: { bench: "real" | "simulated" | "either"; templateKey: TemplateKey; spec: { template: string; parameters: Record<string, unknown> }; questions: { quantity: string }[]; opensAt: Date | null; dueAt: Date | null; closesAt?: Date | null }, ctx: z.RefinementCtx) {
   if (lab.spec.template !== lab.templateKey) {
     ctx.addIssue({ code: "custom", path: ["spec", "template"], message: "The parameter spec belongs to another template." });
   }
@@ -63,6 +69,9 @@ function checkLab(lab: { templateKey: TemplateKey; spec: { template: string; par
       ctx.addIssue({ code: "custom", path: ["spec"], message: (e as Error).message });
     }
   }
+  if (lab.bench !== "real" && !hasSimulatedBench(lab.templateKey)) {
+    ctx.addIssue({ code: "custom", path: ["bench"], message: "This template has no circuit for the simulated bench: choose the real bench." });
+  }
   if (lab.opensAt && lab.dueAt && lab.dueAt <= lab.opensAt) {
     ctx.addIssue({ code: "custom", path: ["dueAt"], message: "The due date must come after the opening date." });
   }
@@ -82,13 +91,14 @@ export type LabInput = z.input<typeof labInputSchema>;
 export type LabData = z.output<typeof labInputSchema>;
 
 /** PATCH: any subset of the fields, plus publishing. No defaults here: a field left out stays as it is. */
-const WITH_DEFAULTS = new Set(["policy", "instructions", "safetyNotes"]);
+const WITH_DEFAULTS = new Set(["policy", "instructions", "safetyNotes", "bench"]);
 export const labPatchSchema = z
   .object({
     ...Object.fromEntries(Object.entries(labFields).filter(([k]) => !WITH_DEFAULTS.has(k)).map(([k, v]) => [k, v.optional()])),
     policy: gradePolicySchema.partial().optional(),
     instructions: z.string().max(20_000, "Use at most 20,000 characters.").optional(),
     safetyNotes: z.string().max(5_000, "Use at most 5,000 characters.").optional(),
+    bench: benchModeSchema.optional(),
     status: z.enum(["draft", "published"]).optional(),
   })
   .strict();

@@ -32,5 +32,8 @@ export function appEnv(cfg: ServiceConfig, databaseUrl: string): NodeJS.ProcessE
     S3_ACCESS_KEY_ID: process.env.S3_ACCESS_KEY_ID ?? "S3RVER",
     S3_SECRET_ACCESS_KEY: process.env.S3_SECRET_ACCESS_KEY ?? "S3RVER",
     SHUNTWISE_MAIL_DIR: path.join(cfg.dataDir, `mail-${cfg.profile}`),
+    // the development mailbox (/dev/mailbox): these scripts run the local SMTP stand-in, so they turn it
+    // on; it stays off whenever SMTP_URL names another server (lib/mail/mailbox.ts)
+    SHUNTWISE_DEV_MAILBOX: process.env.SHUNTWISE_DEV_MAILBOX ?? "1",
   };
 }

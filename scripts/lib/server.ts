@@ -1,4 +1,5 @@
-// Starts `next start` on 127.0.0.1 as one child process, and waits until it answers.
+// Starts the app's production server (scripts/serve.mjs: Next.js behind the wrapper that records each
+// request's client address) as one child process, and waits until it answers.
 import { type ChildProcess, spawn } from "node:child_process";
 import net from "node:net";
 import path from "node:path";
@@ -19,7 +20,7 @@ export function portInUse(port: number, host = "127.0.0.1"): Promise<boolean> {
 export function startNext(opts: { distDir: string; port: number; host: string; env: NodeJS.ProcessEnv; quiet?: boolean; pipeErrors?: boolean }): ChildProcess {
   return spawn(
     process.execPath,
-    [path.join(root, "node_modules/next/dist/bin/next"), "start", "-H", opts.host, "-p", String(opts.port)],
+    [path.join(root, "scripts/serve.mjs"), "-H", opts.host, "-p", String(opts.port)],
     {
       cwd: root,
       env: { ...opts.env, SHUNTWISE_DIST_DIR: opts.distDir, NEXT_TELEMETRY_DISABLED: "1" },

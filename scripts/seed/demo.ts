@@ -3,6 +3,7 @@
 import type { Kysely } from "kysely";
 import { hash } from "@node-rs/argon2";
 import type { Database, Role } from "../../db/types";
+import { seedBenches, seedDraws, seedExceptions } from "./benches";
 import { seedLabs, type SeedStorage } from "./labs";
 import { seedMail } from "./mail";
 import { seedLabReviews, seedReviews } from "./reviews";
@@ -116,6 +117,11 @@ export async function seedDemo(db: Kysely<Database>, opts: { storage?: SeedStora
     await seedReviews(trx, courseId, { studentOne: ids[`student.one@${DEMO_DOMAIN}`], studentTwo: ids[`student.two@${DEMO_DOMAIN}`], ta: ids[`ta.one@${DEMO_DOMAIN}`] });
     // and on the labs running now (labs 10 to 13), open and answered
     await seedLabReviews(trx, courseId, ids[`ta.one@${DEMO_DOMAIN}`]);
+
+    // the forty students in twenty pairs by section, two extensions, and every published lab's circuits drawn
+    await seedBenches(trx, courseId);
+    await seedExceptions(trx, courseId, [ids[`student.one@${DEMO_DOMAIN}`], others[0].id], ids[`instructor@${DEMO_DOMAIN}`]);
+    await seedDraws(trx, courseId);
 
     // The lesson plan: the whole syllabus, the last three lessons opening over the coming weeks. A plan
     // seeded before newer lessons existed gets them appended (visible, open), and keeps its own rows.

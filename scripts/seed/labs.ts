@@ -31,6 +31,8 @@ interface DemoLab {
   instructions: string;
   safety: string;
   traces?: boolean;
+  /** where the readings are taken (default the real bench); the demo has one lab of each kind */
+  bench?: "real" | "simulated" | "either";
   /** review requests seeded on the lab's attempts (see scripts/seed/reviews.ts seedLabReviews) */
   reviews?: DemoReviews;
 }
@@ -87,6 +89,7 @@ const LABS: DemoLab[] = [
     title: "Lab 4 · A sleeping sensor node: average current and battery life",
     template: "duty-cycle",
     state: "open",
+    bench: "either",
     spec: {
       sleepCurrent: list([2e-6, 3e-6, 5e-6]),
       activeCurrent: list([0.012, 0.02, 0.025]),
@@ -228,6 +231,7 @@ const LABS: DemoLab[] = [
     title: "Lab 12 · How often to sample a waking node",
     template: "sampling-burst",
     state: "open",
+    bench: "simulated",
     spec: {
       sampleRate: list([500, 1000, 2000]),
       burstWidth: list([2e-3, 5e-3, 10e-3]),
@@ -240,7 +244,7 @@ const LABS: DemoLab[] = [
     questions: [predict("samplesPerBurst", 2), predict("minimumSampleRate", 2), bench("apparentWakeFrequency", 3), predict("worstCaseErrorPercent", 3)],
     showExpected: "after_due",
     instructions:
-      "Log the node's current with the fast logger at your sample rate and, at the same time, with the once-a-second logger for five minutes.\n\n- Count the samples in a burst and find the rate that gives twenty.\n- From the slow log, measure how often the wakes appear to repeat.\n- Bound the error of the average from one sample interval per wake.",
+      "Log the node's current with the fast logger at your sample rate and, at the same time, with the once-a-second logger for five minutes.\n\n- Count the samples in a burst and find the rate that gives twenty.\n- From the slow log, measure how often the wakes appear to repeat.\n- Bound the error of the average from one sample interval per wake.\n\nThis lab is taken on the simulated bench (below the handout): the course teaching meter on your own node. Use a fixed range that holds the wake current, record a trace at your sample rate and one at 1 sample per second for five minutes, and attach the trace you analyse.",
     safety: SAFETY.cell,
     reviews: {
       open: ["Question 3: on the slow log the wakes drift the opposite way from my prediction. Is the size of the apparent frequency what counts?"],
@@ -382,6 +386,7 @@ export async function seedLabs(
         showExpected: demo.showExpected,
         instructions: demo.instructions,
         safetyNotes: demo.safety,
+        bench: demo.bench ?? "real",
       },
       demo.state === "draft" ? "draft" : "published",
     );
@@ -458,7 +463,9 @@ export async function seedLabs(
         const late = demo.state === "graded" && si2 === 7 && n === 1;
         const submittedAt = new Date((late ? lab.dueAt!.getTime() + 1.5 * DAY : (lab.opensAt?.getTime() ?? now) + (1 + r() * 5) * DAY + n * 3600_000));
         const record = attemptRecord({ lab, userId: student.id, number: n, idempotencyKey: `demo-${n}`, readings, measured: { typed: {}, values: {} }, uploadIds, params, result, submittedAt });
-        const attemptId = await insertAttempt(db, record);
+        // on a lab that allows either bench, every third student took the simulated one
+        const simulated = demo.bench === "simulated" || (demo.bench === "either" && si2 % 3 === 0);
+        const attemptId = await insertAttempt(db, { ...record, simulated });
         await insertGradeEvent(db, { attemptId, kind: "graded", pointsAfter: record.rawScore, scoreAfter: record.score, graderVersion: record.graderVersion, at: submittedAt });
       }
     }

@@ -133,7 +133,8 @@ beforeAll(async () => {
   [as.outsider, as.student, as.peer, as.ta, as.instructor, as.admin] = signedIn;
   as.anonymous = new Client();
 
-  const labId = await publishedLab(sendAs(as.instructor), f.courseId, fixedCircuitLab({ title: "Matrix lab" }));
+  // either bench: the simulated bench's routes answer on it too
+  const labId = await publishedLab(sendAs(as.instructor), f.courseId, fixedCircuitLab({ title: "Matrix lab", bench: "either" }));
 
   // both students submit and ask for a review with their mark in the message; the student uploads a file
   // named with their mark
@@ -281,9 +282,15 @@ const ROWS: Record<string, Row> = {
   "PATCH /api/labs/[labId]": { req: (w) => send("PATCH", l(w)), cells: instructors(400) },
   "GET /api/labs/[labId]/attempts": { req: (w) => `${l(w)}/attempts`, cells: members(200) },
   "POST /api/labs/[labId]/attempts": { req: (w) => send("POST", `${l(w)}/attempts`), cells: members(400) },
+  "PUT /api/labs/[labId]/exceptions/[userId]": { req: (w) => send("PUT", `${l(w)}/exceptions/${w.student.id}`), cells: instructors(400) },
+  // the outsider has no exception (and is no student): an allowed caller is told so, nothing changes
+  "DELETE /api/labs/[labId]/exceptions/[userId]": { req: (w) => send("DELETE", `${l(w)}/exceptions/${w.outsider.id}`, ""), cells: instructors(404) },
   "PUT /api/labs/[labId]/grades-held": { req: (w) => send("PUT", `${l(w)}/grades-held`), cells: instructors(400) },
   "GET /api/labs/[labId]/handout": { req: (w) => `${l(w)}/handout`, cells: members(200) },
   "GET /api/labs/[labId]/parts": { req: (w) => `${l(w)}/parts`, cells: staff(200) },
+  "GET /api/labs/[labId]/bench": { req: (w) => `${l(w)}/bench`, cells: members(200) },
+  // the student's replay: the student and the staff; the other student is told it does not exist
+  "GET /api/labs/[labId]/bench/readings": { req: (w) => `${l(w)}/bench/readings?range=r50m&count=3&userId=${w.student.id}`, cells: owner(200) },
   "GET /api/attempts/[attemptId]": { req: (w) => a(w), cells: owner(200) },
   "GET /api/attempts/[attemptId]/history": { req: (w) => `${a(w)}/history`, cells: owner(200) },
   "POST /api/attempts/[attemptId]/regrades": { req: (w) => send("POST", `${a(w)}/regrades`), cells: cells(401, 404, 403, 404, 400, 400, 400) },
@@ -303,12 +310,17 @@ const ROWS: Record<string, Row> = {
   "GET /api/me/preferences": { req: () => "/api/me/preferences", cells: signedIn(200) },
   "PATCH /api/me/preferences": { req: () => send("PATCH", "/api/me/preferences"), cells: signedIn(400) },
   "POST /api/me/password": { req: () => send("POST", "/api/me/password"), cells: signedIn(400) },
+  "GET /api/me/sessions": { req: () => "/api/me/sessions", cells: signedIn(200) },
+  // a session that does not exist: an allowed caller is told so, and no session ends
+  "DELETE /api/me/sessions/[sessionId]": { req: () => send("DELETE", `/api/me/sessions/${UNKNOWN}`, ""), cells: signedIn(404) },
   "POST /api/me/sign-out-everywhere": { req: () => send("POST", "/api/me/sign-out-everywhere", ""), cells: signedIn(200), last: true },
   "POST /api/password-reset": { req: () => send("POST", "/api/password-reset"), cells: everyone(400) },
   "POST /api/password-reset/confirm": { req: () => send("POST", "/api/password-reset/confirm"), cells: everyone(400) },
   "GET /api/admin/outbox": { req: () => "/api/admin/outbox", cells: admins(200) },
   "POST /api/admin/outbox/[mailId]/resend": { req: () => send("POST", `/api/admin/outbox/${UNKNOWN}/resend`, ""), cells: admins(404) },
   "GET /api/dev/mail": { req: () => "/api/dev/mail", cells: admins(200) },
+  "GET /api/admin/users": { req: () => "/api/admin/users?query=fixture", cells: admins(200) },
+  "PATCH /api/admin/users/[userId]": { req: (w) => send("PATCH", `/api/admin/users/${w.outsider.id}`), cells: admins(400) },
 
   // --- pages
   "page /": { req: () => "/", cells: pSignedIn },
@@ -319,6 +331,7 @@ const ROWS: Record<string, Row> = {
   "page /settings": { req: () => "/settings", cells: pSignedIn },
   "page /admin/courses": { req: () => "/admin/courses", cells: pAdmins },
   "page /admin/outbox": { req: () => "/admin/outbox", cells: pAdmins },
+  "page /admin/users": { req: () => "/admin/users?query=fixture", cells: pAdmins },
   "page /dev/mailbox": { req: () => "/dev/mailbox", cells: pAdmins },
   "page /lessons": { req: () => "/lessons", cells: pSignedIn },
   // a lesson the course hides: its staff read it, its students and outsiders are told it does not exist
@@ -350,11 +363,12 @@ const ROWS: Record<string, Row> = {
       return cells("signin", gone, gone, gone, graded, graded, graded);
     })(),
   },
-  // "Sign out" in the header: anyone may post it; it ends the caller's own session only (it expires the
-  // session cookie of the copy of the client that sent it, and the other rows keep theirs)
+  // "Sign out" in the header: anyone may post it; it ends the caller's session on the server (so a copy
+  // of its cookie ends too) and expires the cookie: made after the other rows, like signing out everywhere
   "action lib/auth/sign-out.ts#signOutHere": {
     req: action(() => "/", (w) => w.actionIds["lib/auth/sign-out.ts#signOutHere"], []),
     copy: true,
+    last: true,
     cells: (() => {
       // an anonymous caller is sent to sign in before the action runs; a signed-in one is redirected by it
       const out = (r: Answer) => {
@@ -396,8 +410,8 @@ const limit = (() => {
   };
 })();
 
-async function ask(key: string, row: Row, role: Role): Promise<Answer> {
-  const client = row.copy ? as[role].copy() : as[role];
+async function ask(key: string, row: Row, role: Role, caller: Client = as[role]): Promise<Answer> {
+  const client = row.copy ? caller.copy() : caller;
   return limit(async () => {
     let r = await row.req(w, client);
     if (ACTION_ARGS[key] && typeof r === "object") r = { ...r, init: { ...r.init, body: JSON.stringify(ACTION_ARGS[key](w)) } };
@@ -479,6 +493,50 @@ describe("access matrix", () => {
       ROLES.forEach((role, i) => check(key, role, row.cells[role], answers[i]));
     });
   }
+  // Grades held: the instructor holds the lab's grades; every route and page a student reads then
+  // answers without the student's score, points, verdicts or grade history (the course has this one lab).
+  it("grades held: no student-facing route or page shows a score", async () => {
+    const hold = (held: boolean) => as.instructor.json(`/api/labs/${w.labId}/grades-held`, { method: "PUT", headers: { "content-type": "application/json" }, body: JSON.stringify({ held }) });
+    expect((await hold(true)).status).toBe(200);
+    try {
+      const read = byOrder.filter(([key, row]) => (key.startsWith("GET ") || key.startsWith("page ")) && !row.last);
+      const studentFacing = read.filter(([, row]) => row.cells.student === 200 || row.cells.student === "page");
+      expect(studentFacing.map(([k]) => k)).toEqual(expect.arrayContaining(["GET /api/attempts/[attemptId]/history", "GET /api/labs/[labId]/attempts", "page /courses/[courseId]", "page /attempts/[attemptId]"]));
+      const leaks: string[] = [];
+      for (const [key, row] of studentFacing) {
+        const r = await ask(key, row, "student");
+        check(key, "student", row.cells.student, r);
+        // JSON keys of a graded result (in API answers and in a page's payload alike) and the words pages use
+        for (const leak of [/\\?"(score|rawScore|scoreBefore|scoreAfter|pointsBefore|pointsAfter|total)\\?"\s*:\s*-?\d/, /\\?"verdict\\?"\s*:/, /\b\d+(\.\d+)? of \d+(\.\d+)? points\b/]) {
+          const m = r.text.match(leak);
+          if (m) leaks.push(`${key}: ${m[0]}`);
+        }
+      }
+      expect(leaks, "a student reads a held grade").toEqual([]);
+    } finally {
+      expect((await hold(false)).status).toBe(200);
+    }
+  });
+
+  // A disabled account: the site admin disables a member who is signed in; from then on every route,
+  // page and action answers that member's cookie as it answers someone not signed in.
+  it("a disabled account: every route, page and action answers as to a caller not signed in", async () => {
+    const member = await addPerson("disabled", { courseId: w.courseId, role: "student" });
+    const client = await clientFor(member.email);
+    expect((await client.json("/api/courses")).status).toBe(200);
+    const r = await as.admin.json(`/api/admin/users/${member.id}`, { method: "PATCH", headers: { "content-type": "application/json" }, body: JSON.stringify({ disabled: true }) });
+    expect(r.status).toBe(200);
+    expect(r.body.user).toEqual({ id: member.id, disabled: true });
+    for (const [key, row] of byOrder) {
+      const answer = await ask(key, row, "anonymous", client);
+      // the proxy sees only that a cookie is there, so an action runs: "Check yourself" asks to sign in,
+      // the others answer as to someone outside the course; routes and pages as to an anonymous caller
+      if (key === "action components/lesson/check-question-action.ts#checkAnswer") check(key, "outsider", says(200, /Sign in to check your answers/), answer);
+      else if (key.startsWith("action ")) check(key, "outsider", row.cells.outsider, answer);
+      else check(key, "anonymous", row.cells.anonymous, answer);
+    }
+  });
+
   for (const [key, row] of byOrder.filter(([, r]) => r.last)) {
     it(key, async () => {
       const answers = await Promise.all(ROLES.map((role) => ask(key, row, role)));

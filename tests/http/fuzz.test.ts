@@ -127,12 +127,43 @@ const randomJson: fc.Arbitrary<unknown> = fc.oneof(fc.jsonValue({ maxDepth: 4 })
 interface Case {
   target: string;
   body: unknown;
+  /** the field (path) whose text had a control character put into it: the answer must be 400 naming it */
+  control?: string;
   /** sent as it is (not JSON.stringify'd): unreadable JSON, or a wrong content type */
   raw?: { text: string; type: string };
 }
 
+/** Control characters no text field may hold (C0 but tab, LF and CR; DEL; C1). */
+const controlChar = fc.oneof(
+  fc.constantFrom("\u0000", "\u0001", "\u0007", "\u0008", "\u000b", "\u000c", "\u001b", "\u001f", "\u007f", "\u0085", "\u009f"),
+  fc.integer({ min: 0, max: 0x9f }).filter((c) => (c < 0x20 && ![9, 10, 13].includes(c)) || c >= 0x7f).map((c) => String.fromCharCode(c)),
+);
+
+/** Every path to a string inside `v`. */
+function stringPaths(v: unknown, at: string[] = []): string[][] {
+  if (typeof v === "string") return at.length ? [at] : [];
+  if (v === null || typeof v !== "object") return [];
+  return Object.entries(v).flatMap(([k, x]) => stringPaths(x, [...at, k]));
+}
+
+/** A valid body with a control character put into one of its texts (every text field gets its turn). */
+function withControl(t: Target): fc.Arbitrary<Case> | null {
+  const base = t.valid();
+  const all = stringPaths(base);
+  if (!all.length) return null;
+  return fc.record({ path: fc.constantFrom(...all), ch: controlChar, at: fc.nat() }).map(({ path, ch, at }) => {
+    let node = base as Record<string, unknown>;
+    for (const k of path) node = node[k] as Record<string, unknown>;
+    const text = node as unknown as string;
+    const i = at % (text.length + 1);
+    return { target: t.name, body: mutate(base, { path, how: "replace", value: text.slice(0, i) + ch + text.slice(i), key: "" }), control: path.join(".") };
+  });
+}
+
 function casesFor(t: Target, n: number, seed: number): Case[] {
+  const control = withControl(t);
   const arb: fc.Arbitrary<Case> = fc.oneof(
+    ...(control ? [{ weight: 2, arbitrary: control }] : []),
     { weight: 5, arbitrary: nearValid(t).map((body) => ({ target: t.name, body })) },
     { weight: 4, arbitrary: randomJson.map((body) => ({ target: t.name, body })) },
     {
@@ -298,6 +329,14 @@ const TARGETS: Target[] = [
     weight: 3,
   },
   {
+    name: "PUT /api/labs/{labId}/exceptions/{userId}",
+    who: "instructor",
+    method: "PUT",
+    path: () => `/api/labs/${w.labId}/exceptions/${w.memberId}`,
+    valid: () => ({ dueAt: "2031-05-01T12:00:00Z", closesAt: "2031-05-03T12:00:00Z", extraAttempts: 1, reason: "Fuzzed reason" }),
+    weight: 3,
+  },
+  {
     name: "PUT /api/labs/{labId}/grades-held",
     who: "instructor",
     method: "PUT",
@@ -333,6 +372,9 @@ const TARGETS: Target[] = [
     valid: () => ({ name: "Fuzz Person", email: "fuzz.signup@test.example", password: "a-long-password-1", joinCode: "NO-SUCH-CODE" }),
     weight: 2,
   },
+  // the site admin enables (or, with a changed body, disables) a member of the fuzzed course
+  { name: "PATCH /api/admin/users/{userId}", who: "admin", method: "PATCH", path: () => `/api/admin/users/${w.memberId}`, valid: () => ({ disabled: false }), weight: 1 },
+  { name: "GET /api/admin/users?…", who: "admin", method: "GET", query: true, path: () => "/api/admin/users", valid: () => ({ query: "fuzz" }), weight: 1 },
   { name: "GET /api/courses/{courseId}/reviews?…", who: "ta", method: "GET", query: true, path: () => `/api/courses/${w.courseId}/reviews`, valid: () => ({ status: "open", labId: w.labId, section: "A", mistake: "true", late: "0", changed: "" }), weight: 2 },
   { name: "GET /api/courses/{courseId}/gradebook?…", who: "ta", method: "GET", query: true, path: () => `/api/courses/${w.courseId}/gradebook`, valid: () => ({ format: "json" }), weight: 1 },
 ];
@@ -424,6 +466,17 @@ async function send(t: Target, c: Case): Promise<Outcome> {
 /** What is wrong with an answer, or null. */
 function fault(t: Target, o: Outcome): string | null {
   if (o.status >= 500) return `answered ${o.status}`;
+  if (o.c.control) {
+    // a control character in a text: refused, naming that field
+    const named = t.action ? o.text.includes(`"fields":{`) && o.text.includes(`"${o.c.control}":[`) : o.status === 400 && (() => {
+      try {
+        return Object.keys(JSON.parse(o.text).error?.fields ?? {}).includes(o.c.control!);
+      } catch {
+        return false;
+      }
+    })();
+    if (!named) return `answered ${o.status} to a control character in "${o.c.control}" without a 400 naming it`;
+  }
   if (t.action) {
     // the action answers its result in the page's payload: a refusal names at least one field
     if (o.status !== 200) return `answered ${o.status}`;

@@ -87,8 +87,8 @@ describe("GET /api/courses/{courseId}/gradebook", () => {
       expect(r.body.students).toHaveLength(1);
       const s = r.body.students[0];
       expect(s).toMatchObject({ userId: f.people.student.id, name: "=1+1", email: f.people.student.email, section: "Tue", total: 60 });
-      expect(s.cells[labId]).toEqual({ score: 7, maxScore: 10, attemptId: attemptIds[1], attempts: 2, late: false, changedByStaff: false, reviewOpen: false });
-      expect(s.cells[lastId]).toEqual({ score: 5, maxScore: 10, attemptId: attemptIds[3], attempts: 2, late: true, changedByStaff: false, reviewOpen: false });
+      expect(s.cells[labId]).toEqual({ score: 7, maxScore: 10, attemptId: attemptIds[1], attempts: 2, late: false, changedByStaff: false, reviewOpen: false, simulated: false });
+      expect(s.cells[lastId]).toEqual({ score: 5, maxScore: 10, attemptId: attemptIds[3], attempts: 2, late: true, changedByStaff: false, reviewOpen: false, simulated: false });
     }
   });
 

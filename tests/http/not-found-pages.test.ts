@@ -83,31 +83,36 @@ function freePort(): Promise<number> {
   });
 }
 
-describe("the development mailbox on a server without the local mail stand-in", () => {
-  let server: ChildProcess | undefined;
-  let url: string;
+// Two servers on the same build and database: one without the local mail stand-in, one with it but in
+// production without SHUNTWISE_DEV_MAILBOX=1 (the mailbox shows every account's reset links)
+for (const setting of ["without the local mail stand-in", "with the stand-in's folder, in production, without SHUNTWISE_DEV_MAILBOX"] as const) {
+  describe(`the development mailbox on a server ${setting}`, () => {
+    let server: ChildProcess | undefined;
+    let url: string;
 
-  beforeAll(async () => {
-    const port = await freePort();
-    url = `http://127.0.0.1:${port}`;
-    // the same build and database as the server under test, but no stand-in mail folder and no workers
-    const env: NodeJS.ProcessEnv = { ...process.env, NODE_ENV: "production", DATABASE_URL: process.env.E2E_DATABASE_URL, SHUNTWISE_NO_WORKERS: "1", APP_URL: url, NEXTAUTH_URL: url };
-    delete env.SHUNTWISE_MAIL_DIR;
-    server = startNext({ distDir: process.env.SHUNTWISE_TEST_DIST_DIR ?? ".next-test", port, host: "127.0.0.1", env, quiet: true });
-    await waitForHttp(`${url}/api/health`, server);
-  });
+    beforeAll(async () => {
+      const port = await freePort();
+      url = `http://127.0.0.1:${port}`;
+      const env: NodeJS.ProcessEnv = { ...process.env, NODE_ENV: "production", DATABASE_URL: process.env.E2E_DATABASE_URL, SHUNTWISE_NO_WORKERS: "1", APP_URL: url, NEXTAUTH_URL: url };
+      delete env.SHUNTWISE_DEV_MAILBOX;
+      if (setting === "without the local mail stand-in") delete env.SHUNTWISE_MAIL_DIR;
+      else expect(env.SHUNTWISE_MAIL_DIR).toBeTruthy();
+      server = startNext({ distDir: process.env.SHUNTWISE_TEST_DIST_DIR ?? ".next-test", port, host: "127.0.0.1", env, quiet: true });
+      await waitForHttp(`${url}/api/health`, server);
+    }, 120_000);
 
-  afterAll(async () => {
-    if (!server || server.exitCode !== null) return;
-    const exited = new Promise((r) => server!.once("exit", r));
-    server.kill("SIGTERM");
-    await exited;
-  });
+    afterAll(async () => {
+      if (!server || server.exitCode !== null) return;
+      const exited = new Promise((r) => server!.once("exit", r));
+      server.kill("SIGTERM");
+      await exited;
+    });
 
-  it("answers 404 for the page and its JSON", async () => {
-    const page = await fetch(`${url}/dev/mailbox`, { redirect: "manual" });
-    expect(page.status).toBe(404);
-    expect(await page.text()).toContain("Not found");
-    expect((await fetch(`${url}/api/dev/mail`)).status).toBe(404);
+    it("answers 404 for the page and its JSON", async () => {
+      const page = await fetch(`${url}/dev/mailbox`, { redirect: "manual" });
+      expect(page.status).toBe(404);
+      expect(await page.text()).toContain("Not found");
+      expect((await fetch(`${url}/api/dev/mail`)).status).toBe(404);
+    });
   });
-});
+}

@@ -156,8 +156,8 @@ describe("the gradebook query", () => {
     ]);
 
     const ada = g.students.find((s) => s.userId === f.ada)!;
-    expect(ada.cells[f.labA]).toEqual({ score: 8, maxScore: 10, attemptId: f.ids.adaA2, attempts: 3, late: false, changedByStaff: false, reviewOpen: false });
-    expect(ada.cells[f.labB]).toEqual({ score: 3, maxScore: 5, attemptId: f.ids.adaB2, attempts: 2, late: true, changedByStaff: false, reviewOpen: false });
+    expect(ada.cells[f.labA]).toEqual({ score: 8, maxScore: 10, attemptId: f.ids.adaA2, attempts: 3, late: false, changedByStaff: false, reviewOpen: false, simulated: false });
+    expect(ada.cells[f.labB]).toEqual({ score: 3, maxScore: 5, attemptId: f.ids.adaB2, attempts: 2, late: true, changedByStaff: false, reviewOpen: false, simulated: false });
     expect(ada.cells[f.labC]).toMatchObject({ score: 9, attemptId: f.ids.adaC1, reviewOpen: true });
     expect(Object.keys(ada.cells)).toEqual([f.labA, f.labB, f.labC]);
     const formula = g.students.find((s) => s.userId === f.formula)!;
@@ -181,6 +181,7 @@ describe("the gradebook query", () => {
             late: want.late_days > 0,
             changedByStaff: want.staff,
             reviewOpen: want.review,
+            simulated: false,
           });
       }
     }

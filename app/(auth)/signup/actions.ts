@@ -6,9 +6,11 @@ import { clientAddress, throttle } from "@/lib/security/throttle";
 import type { SignUpState } from "@/components/auth/sign-up-form";
 import { AppError } from "@/lib/errors";
 import { signUpSchema } from "@/lib/validation/auth";
-import { fieldErrors } from "@/lib/validation/zod-errors";
+import { controlCharacterFields, fieldErrors } from "@/lib/validation/zod-errors";
 
 export async function signUpAction(input: unknown): Promise<SignUpState> {
+  const control = controlCharacterFields(input);
+  if (Object.keys(control).length) return { ok: false, message: "Check the highlighted fields.", fields: control };
   const parsed = signUpSchema.safeParse(input);
   if (!parsed.success) return { ok: false, message: "Check the highlighted fields.", fields: fieldErrors(parsed.error) };
   try {

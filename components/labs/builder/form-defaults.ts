@@ -61,6 +61,7 @@ export function emptyForm(templateKey: TemplateKey = "shunt-burden", latePolicy?
     latePenaltyPercentPerDay: String(latePolicy?.latePenaltyPercentPerDay ?? 10),
     lateFloorPercent: String(latePolicy?.lateFloorPercent ?? 50),
     showExpected: "after_attempt",
+    bench: "real",
     instructions: "",
     safetyNotes: "",
   };
@@ -91,6 +92,7 @@ export function inputToForm(input: StoredLabInput): BuilderForm {
     latePenaltyPercentPerDay: String(input.latePenaltyPercentPerDay),
     lateFloorPercent: String(input.lateFloorPercent),
     showExpected: input.showExpected,
+    bench: input.bench ?? "real",
     instructions: input.instructions ?? "",
     safetyNotes: input.safetyNotes ?? "",
   };

@@ -23,6 +23,7 @@ const TOP_FIELDS = new Set([
   "latePenaltyPercentPerDay",
   "lateFloorPercent",
   "showExpected",
+  "bench",
   "instructions",
   "safetyNotes",
 ]);

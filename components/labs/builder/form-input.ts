@@ -145,6 +145,7 @@ export function formToInput(form: BuilderForm, kept: KeptPolicy = {}): { input: 
     latePenaltyPercentPerDay: readNumber(form.latePenaltyPercentPerDay),
     lateFloorPercent: readNumber(form.lateFloorPercent),
     showExpected: form.showExpected,
+    bench: form.bench,
     instructions: form.instructions,
     safetyNotes: form.safetyNotes,
   };

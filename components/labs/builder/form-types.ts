@@ -1,6 +1,6 @@
 // The lab builder's form state: every value with a unit is kept as the text the instructor typed
 // ("4.7 kΩ", "1.8 V"), and read with the grader's parseQuantity when the form is checked.
-import type { ShowExpected } from "@/db/types";
+import type { BenchMode, ShowExpected } from "@/db/types";
 import type { TemplateKey } from "@/lib/grader";
 import type { Jsonified } from "@/lib/http/client";
 import type { LabData } from "@/lib/validation/labs";
@@ -53,6 +53,8 @@ export interface BuilderForm {
   latePenaltyPercentPerDay: string;
   lateFloorPercent: string;
   showExpected: ShowExpected;
+  /** where students take their readings */
+  bench: BenchMode;
   instructions: string;
   safetyNotes: string;
 }
@@ -64,5 +66,5 @@ export interface KeptPolicy {
 }
 
 /** A stored lab as the builder receives it: the lab schema's output as JSON (labAsInput's shape, dates as ISO strings). */
-export type StoredLabInput = Omit<Jsonified<LabData>, "closesAt"> & { closesAt?: string | null };
+export type StoredLabInput = Omit<Jsonified<LabData>, "closesAt" | "bench"> & { closesAt?: string | null; bench?: LabData["bench"] };
 

@@ -121,6 +121,17 @@ export function RulesSection({ timeZone }: { timeZone: string }) {
           ]}
         />
         <ExpectedWhen />
+        <SelectInput
+          name="bench"
+          label="Where students take their readings"
+          className="mb-4 sm:col-span-2"
+          hint="The simulated bench runs the course's instrument on each student's own circuit in the browser; staff can replay every reading."
+          options={[
+            { value: "real", label: "On the real bench" },
+            { value: "simulated", label: "On the simulated bench" },
+            { value: "either", label: "Either: each student says which" },
+          ]}
+        />
       </div>
     </section>
   );

@@ -9,6 +9,7 @@ import { api } from "@/lib/http/client";
 import { utcDate } from "@/lib/dates";
 import { GradeTimeline } from "@/components/review/grade-timeline";
 import { StaffReview } from "@/components/review/staff-review";
+import { BenchReplay } from "@/components/labs/bench/bench-replay";
 import { Files } from "./files";
 import { Graded } from "./graded";
 import { ReviewForm } from "./review-form";
@@ -54,6 +55,7 @@ export function FeedbackView({ attempt: initial, studentId, studentName, isOwner
       <Graded attempt={attempt} typed={typed} solutionHtml={solutionHtml} studentName={studentName} />
 
       {reviewQueueHref ? <StaffReview attempt={attempt} /> : null}
+      {reviewQueueHref && attempt.simulated ? <BenchReplay labId={attempt.labId} studentId={studentId} /> : null}
 
       <Files attempt={attempt} inline={Boolean(reviewQueueHref)} />
 

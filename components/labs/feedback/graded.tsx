@@ -26,6 +26,11 @@ export function Graded({ attempt, typed, solutionHtml, studentName }: { attempt:
         </p>
         <p className="mt-1 text-sm">{scoreLine(attempt)}.</p>
         <p className="mt-1 text-sm text-ink-soft">{verdictSummary(attempt.results)}.</p>
+        {attempt.simulated ? (
+          <p className="mt-1 text-sm" data-testid="attempt-bench">
+            Readings taken on the simulated bench.
+          </p>
+        ) : null}
         {!attempt.expectedShown ? (
           <p className="mt-2 text-sm text-ink-soft">Expected values and worked solutions stay hidden while you can still earn points on this lab (attempts left and the lab still open); the feedback below says how each answer was judged.</p>
         ) : null}

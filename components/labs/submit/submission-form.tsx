@@ -70,13 +70,25 @@ const UNIT_HINT: Record<string, string> = {
   "": "a plain number",
 };
 
-export function SubmissionForm({ labId, questions, components }: { labId: string; questions: FormQuestion[]; components: FormMeasured[] }) {
+export function SubmissionForm({
+  labId,
+  questions,
+  components,
+  bench = "real",
+}: {
+  labId: string;
+  questions: FormQuestion[];
+  components: FormMeasured[];
+  /** where the lab's readings are taken: "either" asks the student which bench they used */
+  bench?: "real" | "simulated" | "either";
+}) {
   const router = useRouter();
   const [idempotencyKey] = useState(() => newIdempotencyKey());
   const [message, setMessage] = useState<string | null>(null);
   const [fileErrors, setFileErrors] = useState<string | undefined>();
   const [image, setImage] = useState<UploadedFile | null>(null);
   const [trace, setTrace] = useState<UploadedFile | null>(null);
+  const [simulated, setSimulated] = useState(false);
   const [busyUploads, setBusyUploads] = useState({ image: false, trace: false });
   const [sent, setSent] = useState(false);
   const inFlight = useRef(false);
@@ -127,6 +139,7 @@ export function SubmissionForm({ labId, questions, components }: { labId: string
           readings: toPayload(values.readings),
           measured: measuredPayload(values.measured ?? {}),
           uploadIds: [image?.id, trace?.id].filter((x): x is string => Boolean(x)),
+          ...(bench === "either" ? { simulated } : {}),
         };
         try {
           const { attempt } = await api<{ attempt: { id: string } }>(`/api/labs/${labId}/attempts`, { method: "POST", body });
@@ -271,6 +284,15 @@ export function SubmissionForm({ labId, questions, components }: { labId: string
           <a href="/samples/duty-cycle-decimal-comma.csv" download>one with semicolons, decimal commas and a few broken rows</a>.
         </p>
       </fieldset>
+
+      {bench === "either" ? (
+        <label className="card mb-4 flex items-center gap-2 text-sm">
+          <input type="checkbox" checked={simulated} onChange={(e) => setSimulated(e.target.checked)} data-testid="took-simulated" />
+          I took these readings on the simulated bench
+        </label>
+      ) : bench === "simulated" ? (
+        <p className="mb-4 text-sm text-ink-soft">This lab is taken on the simulated bench: your attempt is recorded as such.</p>
+      ) : null}
 
       <div className="flex flex-wrap items-center gap-3">
         <button type="submit" className="btn-primary" disabled={submitting || uploading || !hydrated} aria-describedby="submit-note">

@@ -82,11 +82,11 @@ export const shuntBurden: Template = {
     const v = values(p);
     switch (q) {
       case "trueCurrent":
-        return [{ key: "ignored-burden", value: v.indicatedCurrent, detail: "You included the shunt, but the true current is the one without the meter: V_s/R_L." }];
+        return [{ key: "ignored-burden", value: v.indicatedCurrent, title: "Meter's shunt counted in the true current", detail: "You included the shunt, but the true current is the one without the meter: V_s/R_L." }];
       case "indicatedCurrent":
         return [{ key: "ignored-burden", value: v.trueCurrent, detail: "You used V_s/R_L; with the meter in series the current is V_s/(R_L + R_sh)." }];
       case "burdenVoltage":
-        return [{ key: "ignored-burden", value: v.trueCurrent * v.rsh, detail: "You multiplied the shunt by V_s/R_L; the current that flows through it is V_s/(R_L + R_sh)." }];
+        return [{ key: "ignored-burden", value: v.trueCurrent * v.rsh, title: "Current without the meter used for the burden", detail: "You multiplied the shunt by V_s/R_L; the current that flows through it is V_s/(R_L + R_sh)." }];
       case "loadingErrorPercent":
         return [{ key: "sign-flip", value: -v.loadingErrorPercent, detail: "The meter reads low, so the loading error is negative." }];
     }

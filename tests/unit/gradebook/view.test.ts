@@ -23,11 +23,11 @@ describe("gradebook filtering", () => {
 });
 
 describe("cell markers", () => {
-  it("marks a missing cell, and late, staff-changed and open-review attempts", () => {
+  it("marks a missing cell, and late, staff-changed, open-review and simulated-bench attempts", () => {
     expect(cellMarkers(null).map((m) => m.key)).toEqual(["missing"]);
-    const c = { score: 5, maxScore: 10, attemptId: "a", attempts: 1, late: true, changedByStaff: true, reviewOpen: true };
-    expect(cellMarkers(c).map((m) => m.key)).toEqual(["late", "staff", "review"]);
-    expect(cellMarkers({ ...c, late: false, changedByStaff: false, reviewOpen: false })).toEqual([]);
+    const c = { score: 5, maxScore: 10, attemptId: "a", attempts: 1, late: true, changedByStaff: true, reviewOpen: true, simulated: true };
+    expect(cellMarkers(c).map((m) => m.key)).toEqual(["late", "staff", "review", "simulated"]);
+    expect(cellMarkers({ ...c, late: false, changedByStaff: false, reviewOpen: false, simulated: false })).toEqual([]);
     expect(formatScore(7.125)).toBe("7.13");
     expect(formatScore(8)).toBe("8");
   });

@@ -1,7 +1,7 @@
 // Lab rules around the grader: late days, the late penalty with its floor, which attempt counts, and
 // when expected values may be shown. Expected numbers are worked out by hand in each case.
 import { describe, expect, it } from "vitest";
-import { applyPenalty, canStillEarn, closeOf, countingAttempt, expectedVisible, isClosed, isOpen, latePenaltyPercent, lateDays } from "@/lib/labs/policy";
+import { applyPenalty, canStillEarn, closeOf, countingAttempt, expectedVisible, isClosed, isOpen, latePenaltyPercent, lateDays, withException } from "@/lib/labs/policy";
 
 const due = new Date("2027-03-01T12:00:00Z");
 const at = (iso: string) => new Date(iso);
@@ -109,5 +109,29 @@ describe("the close and expected values (no expected value while points can stil
     const open = { ...rules, dueAt: null, showExpected: "after_attempt" as const };
     expect(expectedVisible(open, 2, at("2030-01-01T00:00:00Z"))).toBe(false);
     expect(expectedVisible(open, 3, at("2030-01-01T00:00:00Z"))).toBe(true);
+  });
+});
+
+describe("a student's exception (extension and extra attempts)", () => {
+  const rules = { dueAt: due, closesAt: at("2027-03-04T12:00:00Z"), attemptsAllowed: 3, latePenaltyPercentPerDay: 10, lateFloorPercent: 50 };
+  const ex = (over: Partial<{ dueAt: Date | null; closesAt: Date | null; extraAttempts: number }>) => ({ dueAt: null, closesAt: null, extraAttempts: 0, reason: "Illness, note seen", ...over });
+
+  it("uses the student's own due date: no late day inside the extension, days counted from it after", () => {
+    const own = withException(rules, ex({ dueAt: at("2027-03-05T12:00:00Z") }));
+    expect(lateDays(own, at("2027-03-04T18:00:00Z"))).toBe(0);
+    expect(lateDays(rules, at("2027-03-04T18:00:00Z"))).toBe(4);
+    expect(lateDays(own, at("2027-03-05T13:00:00Z"))).toBe(1);
+  });
+
+  it("moves an explicit close by as much as the due date moved, unless the exception sets its own", () => {
+    expect(withException(rules, ex({ dueAt: at("2027-03-05T12:00:00Z") })).closesAt).toEqual(at("2027-03-08T12:00:00Z"));
+    expect(withException(rules, ex({ dueAt: at("2027-03-05T12:00:00Z"), closesAt: at("2027-03-06T00:00:00Z") })).closesAt).toEqual(at("2027-03-06T00:00:00Z"));
+    // the default close (none set) follows the new due date: 5 days to the floor at 10 %/day down to 50 %
+    expect(closeOf(withException({ ...rules, closesAt: null }, ex({ dueAt: at("2027-03-05T12:00:00Z") })))).toEqual(at("2027-03-10T12:00:00Z"));
+  });
+
+  it("adds extra attempts to the lab's, and leaves the rules alone without an exception", () => {
+    expect(withException(rules, ex({ extraAttempts: 2 })).attemptsAllowed).toBe(5);
+    expect(withException(rules, null)).toBe(rules);
   });
 });

@@ -24,7 +24,7 @@ describe("burden: the mean of 10,000 readings", () => {
   const step = 2e-3 / 2000; // 1 µA
   const bandOf = (i: number) => 0.005 * i + 2 * step; // ±(0.5 % of reading + 2 counts)
 
-  it("lies within the stated accuracy of the loaded current for every student, and outside the unloaded band", () => {
+  it("lies within the stated accuracy of the loaded current for every student, and outside the unloaded band", { timeout: 60_000 }, () => {
     const means = new Set<number>();
     for (const student of ["s-1", "s-2", "s-3", "s-4", "s-5", "s-6", "s-7", "s-8"]) {
       const rs = simulateReadings(`seed-${student}`, countsMeter, circuit, { range: "r2m", filter: false, from: 0, count: 10_001 });

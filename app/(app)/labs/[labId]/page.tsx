@@ -8,11 +8,18 @@ import { closeOf, expectedWhenText, isClosed, isOpen, lateDays } from "@/lib/lab
 import { attemptsFor, HELD_NOTICE, labAccess, type Lab } from "@/lib/labs/attempts";
 import { DataTable, type Column } from "@/components/ui/table";
 import { HoldGrades } from "@/components/mail/hold-grades";
+import { ExceptionsPanel } from "@/components/labs/exceptions-panel";
+import { db } from "@/db";
+import { listMembers } from "@/db/queries/courses";
+import { labExceptions } from "@/db/queries/exceptions";
+import { draws } from "@/lib/labs/draws";
 import { Handout } from "@/components/labs/handout";
 import type { FormMeasured, FormQuestion } from "@/components/labs/submit/read";
 import { utcDate } from "@/lib/dates";
 import { attemptsLeftText, lateRuleText } from "@/lib/labs/wording";
 import { SubmissionForm } from "@/components/labs/submit/submission-form";
+import { BenchLauncher } from "@/components/labs/bench/bench-launcher";
+import { hasSimulatedBench } from "@/lib/simulation/circuits";
 import { VERDICT_ORDER, VERDICTS, points, verdictCounts, verdictSummary } from "@/components/labs/feedback/verdict";
 
 export const metadata: Metadata = { title: "Lab" };
@@ -78,6 +85,7 @@ export default async function LabPage({ params }: { params: Promise<{ labId: str
       <>
         {back}
         <StaffOverview lab={lab} attempts={attempts} canEdit={access.role === "instructor"} />
+        <LabDrawsAndExceptions lab={lab} canEdit={access.role === "instructor"} />
       </>
     );
   }
@@ -115,6 +123,11 @@ export default async function LabPage({ params }: { params: Promise<{ labId: str
           {attemptsLeftText(used, lab.attemptsAllowed)}
         </p>
         <p className="mt-1 text-sm text-ink-soft">{lateRuleText({ ...lab, closesAt: closeOf(lab) })}</p>
+        {lab.exception ? (
+          <p className="mt-1 text-sm" data-testid="own-dates">
+            These are your own dates{lab.exception.extraAttempts ? ` and attempts (${lab.exception.extraAttempts} extra)` : ""}, given by the instructor: {lab.exception.reason}
+          </p>
+        ) : null}
         {late && !closed ? (
           <p className="mt-1 text-sm font-semibold text-verdict-close">
             <span aria-hidden="true">! </span>
@@ -158,9 +171,43 @@ export default async function LabPage({ params }: { params: Promise<{ labId: str
             You have used all your attempts. Open an attempt above to see its feedback or to ask for a review.
           </p>
         ) : (
-          <SubmissionForm labId={lab.id} questions={questions} components={components} />
+          <SubmissionForm labId={lab.id} questions={questions} components={components} bench={lab.bench} />
         )}
       </section>
+
+      {lab.bench !== "real" && hasSimulatedBench(lab.templateKey) ? (
+        <div className="no-print mt-6">
+          <BenchLauncher labId={lab.id} />
+        </div>
+      ) : null}
+    </>
+  );
+}
+
+/** The staff's view of the publish job's draws and the students' exceptions (the instructor grants and removes them). */
+async function LabDrawsAndExceptions({ lab, canEdit }: { lab: Lab; canEdit: boolean }) {
+  const [exceptions, members, drawn] = await Promise.all([labExceptions(db, lab.id), canEdit ? listMembers(db, lab.courseId) : Promise.resolve([]), draws(lab.id, lab.courseId)]);
+  return (
+    <>
+      {lab.status === "published" ? (
+        <p className="card mt-6 text-sm" data-testid="draw-progress">
+          Circuits drawn: {drawn.drawn} of {drawn.students} student{drawn.students === 1 ? "" : "s"}
+          {drawn.drawn < drawn.students ? " (publishing draws them in the background; a student who joins later is drawn on first opening the lab)." : "."}
+        </p>
+      ) : null}
+      <ExceptionsPanel
+        labId={lab.id}
+        canEdit={canEdit}
+        students={members.filter((m) => m.role === "student").map((m) => ({ userId: m.userId, name: m.name }))}
+        exceptions={exceptions.map((x) => ({
+          userId: x.userId,
+          studentName: x.studentName,
+          dueAt: x.dueAt ? new Date(x.dueAt).toISOString() : null,
+          closesAt: x.closesAt ? new Date(x.closesAt).toISOString() : null,
+          extraAttempts: x.extraAttempts,
+          reason: x.reason,
+        }))}
+      />
     </>
   );
 }

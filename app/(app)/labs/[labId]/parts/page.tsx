@@ -23,7 +23,11 @@ export default async function PartsPage({ params }: { params: Promise<{ labId: s
       <h1 className="mt-2 text-3xl">Bench parts list: {lab.title}</h1>
       <p className="mt-1 text-sm text-ink-soft">
         {access.course.code} · {list.students} student{list.students === 1 ? "" : "s"}, one circuit each · {total} resistor{total === 1 ? "" : "s"} in all.
-        {list.drawnNow ? ` The values of ${list.drawnNow} student${list.drawnNow === 1 ? " who has" : "s who have"} not opened the lab were drawn now; they will see exactly these.` : ""}
+        {list.drawn < list.students
+          ? lab.status === "published"
+            ? ` Circuits drawn so far: ${list.drawn} of ${list.students}; publishing draws the rest in the background (a student who joins later is drawn on first opening the lab). Reload to see the whole list.`
+            : ` The circuits are drawn when the lab is published; this draft counts ${list.drawn} of ${list.students}.`
+          : ""}
       </p>
       <p className="no-print mt-3 flex gap-3">
         <PrintButton />

@@ -16,5 +16,5 @@ export const GET = route<Params>(async (req, { labId }) => {
       headers: { "content-type": "text/csv; charset=utf-8", "content-disposition": `attachment; filename="${name}"` },
     });
   }
-  return json({ parts: list.rows, sections: list.sections, students: list.students, drawnNow: list.drawnNow });
+  return json({ parts: list.rows, sections: list.sections, students: list.students, drawn: list.drawn });
 });
