@@ -288,7 +288,18 @@ export interface LabExceptionsTable {
   granted_at: Generated<Date>;
 }
 
+/** A line of a course's stockroom: parts on the shelf (value in SI: ohms or farads). */
+export interface StockItemsTable {
+  id: Generated<string>;
+  course_id: string;
+  kind: "resistor" | "capacitor";
+  value: number;
+  tolerance_percent: number;
+  quantity: number;
+}
+
 export interface Database {
+  stock_items: StockItemsTable;
   lab_exceptions: LabExceptionsTable;
   benches: BenchesTable;
   bench_seats: BenchSeatsTable;

@@ -3,7 +3,8 @@
 // nearestStandard); this file only reads inputs, lays out results and draws plots. The calculators of the
 // newer lessons are in calculators-depth.tsx; what both share is in fields.tsx.
 import { useMemo, useState } from "react";
-import { nearestStandard } from "@/lib/grader";
+import { nearestStandard, RANGES } from "@/lib/grader";
+import { TEACHING_BITS, TEACHING_REFERENCE_VOLTS } from "@/lib/instruments/library";
 import { formatAuto, formatText } from "@/lib/lessons/format";
 import { teaching } from "@/lib/lessons/teaching";
 import { CalculatorCard, compute, Fields, invalid, num, Output, useQuantityFields } from "./fields";
@@ -87,12 +88,14 @@ export function ShuntPicker() {
 }
 
 // ---------------------------------------------------------------- range and ADC-code picker
-const rangeDefs = { current: { label: "Current to measure", unit: "A", initial: "500 nA", hint: "e.g. 500 nA, 2 mA, 3.4e-3 A" } };
-const rangeLabel: Record<string, string> = { nA: "nA range (1 mV/nA)", uA: "µA range (1 mV/µA)", mA: "mA range (1 mV/mA)" };
+const rangeDefs = { current: { label: "Current to measure", unit: "A", initial: "500 nA", hint: "e.g. 500 nA, 2 mA, 0.6e-3 A" } };
+/** the teaching meter's ranges with their sensitivities, e.g. "500 µA range (5 mV/µA)" */
+const rangeLabel: Record<string, string> = Object.fromEntries(RANGES.map((r) => [r.name, `${r.name} range (${r.shown})`]));
+const meter = { fullScaleVoltage: TEACHING_REFERENCE_VOLTS, adcBits: TEACHING_BITS, adcReference: TEACHING_REFERENCE_VOLTS };
 
 export function RangePicker() {
   const f = useQuantityFields(rangeDefs);
-  const c = f.allOk ? compute("range-resolution", { current: f.values.current!, fullScaleVoltage: 3.3, adcBits: 12, adcReference: 3.3 }) : null;
+  const c = f.allOk ? compute("range-resolution", { current: f.values.current!, ...meter }) : null;
   const best = c ? String(c.bestRange) : "";
   const step = num(c, "currentResolution");
   return (
@@ -102,7 +105,7 @@ export function RangePicker() {
         <dl className="mt-4 mb-0" aria-live="polite">
           <Output label="Most sensitive range that does not saturate" value={rangeLabel[best] ?? best} testId="best-range" />
           <Output label="Output voltage" value={formatAuto(num(c, "outputVoltage"), "V")} />
-          <Output label="ADC code (12 bit, truncating)" value={String(c.adcCode)} testId="adc-code" />
+          <Output label={`ADC code (${TEACHING_BITS} bit, truncating)`} value={String(c.adcCode)} testId="adc-code" />
           <Output label="Current per ADC step on this range" value={formatAuto(step, "A")} />
           <Output label="One step as a share of the reading" value={`${((100 * step) / Math.abs(f.values.current!)).toPrecision(3)} %`} />
         </dl>

@@ -182,19 +182,20 @@ const specs: Record<DiagramTemplate, Spec> = {
     ),
   },
   "range-resolution": {
-    title: "Range shunts, amplifier and 12-bit converter",
-    desc: "The current passes through one of three range shunts chosen by a switch: 10 kilohms for the nA range, 10 ohms for the µA range, 10 milliohms for the mA range. An amplifier with gain 100 turns each into 1 mV per unit (per nA, µA or mA). A 12-bit converter with a 3.3 V reference digitises the output into codes 0 to 4095.",
+    title: "The teaching meter: range shunts, amplifier and 14-bit converter",
+    desc: "The current passes through one of four range shunts chosen by a switch: 10 kilohms for the 5 µA range, 100 ohms for the 500 µA range, 1 ohm for the 50 mA range, 50 milliohms for the 1 A range. Each drops 50 mV at its full scale; an amplifier with gain 50 turns that into 2.5 V. A 14-bit converter with a 2.5 V reference digitises the output into codes 0 to 16383.",
     body: (
       <g>
         <Wire d="M20,40 L60,40" />
         <Arrow x1={24} y1={30} x2={54} y2={30} />
         <Label x={38} y={24} color={TRACE}>I</Label>
         <Dot x={60} y={40} />
-        <Wire d="M60,40 L60,150" />
+        <Wire d="M60,40 L60,155" />
         {[
-          { y: 60, label: "nA: 10 kΩ" },
-          { y: 100, label: "µA: 10 Ω" },
-          { y: 140, label: "mA: 10 mΩ" },
+          { y: 50, label: "5 µA: 10 kΩ" },
+          { y: 85, label: "500 µA: 100 Ω" },
+          { y: 120, label: "50 mA: 1 Ω" },
+          { y: 155, label: "1 A: 50 mΩ" },
         ].map((r, i) => (
           <g key={r.y}>
             <Wire d={`M60,${r.y} L75,${r.y}`} />
@@ -205,15 +206,15 @@ const specs: Record<DiagramTemplate, Spec> = {
             <Wire d={`M170,${r.y} L185,${r.y}`} />
           </g>
         ))}
-        <Wire d="M185,60 L185,140" />
+        <Wire d="M185,50 L185,155" />
         <Dot x={185} y={100} />
-        <Label x={40} y={190} size={10} anchor="start">(switch shown on the µA range)</Label>
-        <Wire d="M185,140 L185,170 L20,170" />
-        <Label x={14} y={174} anchor="end" size={10}>to DUT</Label>
+        <Label x={40} y={192} size={10} anchor="start">(switch shown on the 500 µA range)</Label>
+        <Wire d="M185,155 L185,175 L20,175" />
+        <Label x={14} y={179} anchor="end" size={10}>to DUT</Label>
         <Wire d="M185,100 L205,100 L205,90 L215,90" thin />
-        <Amp x={215} y={100} label="×100" />
+        <Amp x={215} y={100} label="×50" />
         <Wire d="M259,100 L280,100" />
-        <Box x={280} y={76} w={70} h={48} lines={["12-bit", "ADC 3.3 V"]} />
+        <Box x={280} y={76} w={70} h={48} lines={["14-bit", "ADC 2.5 V"]} />
       </g>
     ),
   },
@@ -240,7 +241,7 @@ const specs: Record<DiagramTemplate, Spec> = {
   },
   "bidirectional-offset": {
     title: "Bidirectional measurement with an offset output",
-    desc: "A shunt carries a current that can flow either way, for example into and out of a rechargeable cell. A difference amplifier measures the shunt voltage and adds a reference voltage V_mid, set by a divider to half the 3.3 V full scale, so zero current gives 1.65 V, positive currents read above it and negative currents below it. A converter digitises the output.",
+    desc: "A shunt carries a current that can flow either way, for example into and out of a rechargeable cell. A difference amplifier measures the shunt voltage and adds a reference voltage V_mid, set by a divider to half the 2.5 V full scale, so zero current gives 1.25 V, positive currents read above it and negative currents below it. A converter digitises the output.",
     body: (
       <g>
         <Wire d="M20,60 L90,60" />
@@ -254,13 +255,13 @@ const specs: Record<DiagramTemplate, Spec> = {
         <Wire d="M164,60 L164,90 L215,90" thin />
         <Amp x={215} y={100} label="diff. amp" />
         <Wire d="M259,100 L280,100" />
-        <Box x={280} y={76} w={70} h={48} lines={["ADC", "0–3.3 V"]} />
+        <Box x={280} y={76} w={70} h={48} lines={["ADC", "0–2.5 V"]} />
         <Label x={237} y={150} size={11}>REF = V_mid</Label>
         <Wire d="M237,118 L237,136" thin />
         <Resistor x1={150} y1={140} x2={150} y2={175} />
         <Wire d="M150,140 L150,132 M150,175 L150,182" thin />
         <Label x={128} y={150} size={10} anchor="end">divider</Label>
-        <Label x={128} y={162} size={10} anchor="end">(1.65 V)</Label>
+        <Label x={128} y={162} size={10} anchor="end">(1.25 V)</Label>
         <Wire d="M150,158 L200,158 L200,136 L237,136" thin />
       </g>
     ),

@@ -75,7 +75,7 @@ export const UNIT_DIMENSION: Record<string, Dimension> = {
 /** An example a message can suggest for each dimension. */
 const EXAMPLE: Record<Dimension, string> = {
   current: "3.27 mA",
-  voltage: "1.65 V",
+  voltage: "1.25 V",
   resistance: "4.7 kΩ",
   capacitance: "100 nF",
   time: "4.6 ms",

@@ -5,14 +5,15 @@ import type { InstrumentProfile, InstrumentRange, LibraryInstrument } from "./pr
 // ---------------------------------------------------------------------------------------------------
 // The course teaching meter: a shunt per range, one amplifier of gain 50, a 14-bit converter on a 2.5 V
 // reference whose full scale is the analogue output's full scale, a 1.25 V mid-scale offset for currents
-// both ways, auto-ranging with hysteresis and a 200 Hz low-pass on the output.
+// both ways, auto-ranging with hysteresis and a 159 Hz low-pass on the output (10 kΩ, 100 nF).
 
 export const TEACHING_METER_KEY = "teaching-meter";
 export const TEACHING_REFERENCE_VOLTS = 2.5;
 export const TEACHING_BITS = 14;
 export const TEACHING_GAIN = 50;
 export const TEACHING_OFFSET_VOLTS = 1.25;
-export const TEACHING_FILTER_HZ = 200;
+/** a first-order low-pass of 10 kΩ and 100 nF: 1 / (2π × 10 kΩ × 100 nF) = 159.2 Hz */
+export const TEACHING_FILTER_HZ = 159.2;
 
 const converter = { bits: TEACHING_BITS, referenceVolts: TEACHING_REFERENCE_VOLTS } as const;
 

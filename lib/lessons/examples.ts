@@ -30,7 +30,8 @@ export type Example =
     };
 
 const mAh = 3.6; // coulombs per milliampere-hour
-const LSB12 = 3.3 / 4096; // the course meter's ADC step (12 bit, 3.3 V reference)
+const LSB = 2.5 / 16384; // the teaching meter's converter step (14 bit, 2.5 V reference), lib/instruments/library.ts
+const meter = { fullScaleVoltage: 2.5, adcBits: 14, adcReference: 2.5 };
 
 /** Each checked quantity's value; a value with its own source is written [value, source]. */
 type Checks = Record<string, number | string | readonly [number | string, string]>;
@@ -87,11 +88,12 @@ export const examples: readonly Example[] = [
   template("shunt-micro-e96", "shunt-selection", ["Ohm's law", "IEC 60063:2015"], { maxCurrent: 3.3e-6, maxBurden: 10e-3, series: "E96" }, "PHYSICS.md §1 1i [FORMULA]", {
     standardShunt: 3010, burdenAtFullScale: 9.933e-3,
   }),
-  template("shunt-nA-range", "shunt-selection", ["Ohm's law", "IEC 60063:2015"], { maxCurrent: 3.3e-6, maxBurden: 35e-3, series: "E12" }, "PHYSICS.md §1 1j [FORMULA]", {
-    standardShunt: [10e3, "PHYSICS.md §1 1j [CP design; FORMULA]"], burdenAtFullScale: 33.0e-3, shuntPower: 108.9e-9,
+  // the teaching meter's own shunts (lib/instruments/library.ts): 10 kΩ on the 5 µA range, 1 Ω on the 50 mA range
+  template("shunt-5uA-range", "shunt-selection", ["Ohm's law", "IEC 60063:2015"], { maxCurrent: 5e-6, maxBurden: 55e-3, series: "E12" }, "PHYSICS.md §1 1k [FORMULA]", {
+    idealShunt: 11e3, standardShunt: 10e3, burdenAtFullScale: 50.0e-3, shuntPower: 250e-9,
   }),
-  template("shunt-mA-range", "shunt-selection", ["Ohm's law", "IEC 60063:2015"], { maxCurrent: 3.3, maxBurden: 35e-3, series: "E12" }, "PHYSICS.md §1 1j [CP design; FORMULA]", {
-    standardShunt: 10e-3, shuntPower: [108.9e-3, "PHYSICS.md §1 1j [FORMULA]"],
+  template("shunt-50mA-range", "shunt-selection", ["Ohm's law", "IEC 60063:2015"], { maxCurrent: 50e-3, maxBurden: 55e-3, series: "E12" }, "PHYSICS.md §1 1k [FORMULA]", {
+    idealShunt: 1.1, standardShunt: 1.0, shuntPower: 2.5e-3,
   }),
   standard("e24-log-nearest", ["IEC 60063:2015"], { value: 2848, series: "E24", mode: "nearest" }, "PHYSICS.md §1 1e [FORMULA: IEC 60063 list]", {
     value: 3000,
@@ -101,30 +103,34 @@ export const examples: readonly Example[] = [
   }),
 
   // ---- Lessons 4-6: ranges, auto-ranging, resolution ----
-  template("range-sleep", "range-resolution", ["Ohm's law", "IEEE Std 1241-2010"], { current: 500e-9, fullScaleVoltage: 3.3, adcBits: 12, adcReference: 3.3 }, "PHYSICS.md §3 3a [FORMULA]", {
-    bestRange: "nA", outputVoltage: 0.5, adcCode: [620, "PHYSICS.md §4 4e (truncating) [FORMULA]"],
-    currentResolution: [0.8057e-9, "PHYSICS.md §4 4b [FORMULA]"],
+  // the teaching meter: ranges 5 µA (5·10⁵ V/A), 500 µA (5·10³ V/A), 50 mA (50 V/A), 1 A (2.5 V/A); 14 bit on 2.5 V
+  template("range-sleep", "range-resolution", ["Ohm's law", "IEEE Std 1241-2010"], { current: 500e-9, ...meter }, "PHYSICS.md §3 3g [FORMULA]", {
+    bestRange: "5 µA", outputVoltage: 0.25, adcCode: [1638, "PHYSICS.md §3 3g (truncating) [FORMULA]"],
+    currentResolution: [305.18e-12, "PHYSICS.md §3 3g [FORMULA: IEEE Std 1241 Q = V_ref/2^N]"],
   }),
-  template("range-radio", "range-resolution", ["Ohm's law", "IEEE Std 1241-2010"], { current: 2e-3, fullScaleVoltage: 3.3, adcBits: 12, adcReference: 3.3 }, "PHYSICS.md §3 3b [FORMULA]", {
-    bestRange: "uA", outputVoltage: 2.0, currentResolution: [0.8057e-6, "PHYSICS.md §4 4b [FORMULA]"],
+  template("range-radio", "range-resolution", ["Ohm's law", "IEEE Std 1241-2010"], { current: 2e-3, ...meter }, "PHYSICS.md §3 3h [FORMULA]", {
+    bestRange: "50 mA", outputVoltage: 0.1, adcCode: 655, currentResolution: [3.0518e-6, "PHYSICS.md §3 3h [FORMULA: IEEE Std 1241]"],
   }),
-  template("range-edge", "range-resolution", ["Ohm's law", "IEEE Std 1241-2010"], { current: 3.3e-6, fullScaleVoltage: 3.3, adcBits: 12, adcReference: 3.3 }, "PHYSICS.md §3 3c [FORMULA]", {
-    bestRange: "uA", outputVoltage: 3.3e-3, adcCode: [4, "PHYSICS.md §3 3c (≈4 codes) [FORMULA]"],
+  template("range-edge", "range-resolution", ["Ohm's law", "IEEE Std 1241-2010"], { current: 5e-6, ...meter }, "PHYSICS.md §3 3i [FORMULA]", {
+    bestRange: "500 µA", outputVoltage: 25e-3, adcCode: 163, currentResolution: 30.518e-9,
   }),
-  template("range-gap", "range-resolution", ["Ohm's law", "IEEE Std 1241-2010"], { current: 3.4e-3, fullScaleVoltage: 3.3, adcBits: 12, adcReference: 3.3 }, "PHYSICS.md §3 3f [FORMULA]", {
-    bestRange: "mA", outputVoltage: 3.4e-3, adcCode: 4, currentResolution: [0.8057e-3, "PHYSICS.md §4 4b [FORMULA]"],
+  template("range-gap", "range-resolution", ["Ohm's law", "IEEE Std 1241-2010"], { current: 0.6e-3, ...meter }, "PHYSICS.md §3 3j [FORMULA]", {
+    bestRange: "50 mA", outputVoltage: 30e-3, adcCode: 196, currentResolution: 3.0518e-6,
+  }),
+  template("range-1A", "range-resolution", ["Ohm's law", "IEEE Std 1241-2010"], { current: 0.2, ...meter }, "PHYSICS.md §3 3k [FORMULA]", {
+    bestRange: "1 A", outputVoltage: 0.5, adcCode: 3276, currentResolution: 61.035e-6,
   }),
 
   // ---- Lesson 8: currents in both directions ----
-  // the 220 mAh cell charging at about 0.45 C, read on the mA range (1 V/A): code 2172
-  template("bidir-charge", "bidirectional-offset", ["worked here from the formula", "IEEE Std 1241-2010"], { offsetVoltage: 1.65, sensitivity: 1, outputVoltage: 2172 * LSB12, fullScaleVoltage: 3.3 }, "PHYSICS.md §5 5f (±1.650 A) [FORMULA]", {
-    signedCurrent: [99.90e-3, "PHYSICS.md §5 5f [FORMULA]"], maxPositiveCurrent: 1.65, maxNegativeCurrent: -1.65,
+  // the 220 mAh cell charging at about 0.45 C, read on the 1 A range (2.5 V/A) around the 1.25 V offset: code 9830
+  template("bidir-charge", "bidirectional-offset", ["worked here from the formula", "IEEE Std 1241-2010"], { offsetVoltage: 1.25, sensitivity: 2.5, outputVoltage: 9830 * LSB, fullScaleVoltage: 2.5 }, "PHYSICS.md §5 5g (±0.5 A) [FORMULA]", {
+    signedCurrent: [99.976e-3, "PHYSICS.md §5 5g [FORMULA]"], maxPositiveCurrent: 0.5, maxNegativeCurrent: -0.5,
   }),
-  // the node asleep, drawing from the cell, read on the nA range (10⁶ V/A): code 1000
-  template("bidir-sleep", "bidirectional-offset", ["worked here from the formula", "IEEE Std 1241-2010"], { offsetVoltage: 1.65, sensitivity: 1e6, outputVoltage: 1000 * LSB12, fullScaleVoltage: 3.3 }, "PHYSICS.md §5 (±1.65 µA) [FORMULA]", {
-    signedCurrent: [-844.3e-9, "PHYSICS.md §5 5b [FORMULA]"], maxPositiveCurrent: 1.65e-6, maxNegativeCurrent: -1.65e-6,
+  // the node asleep, drawing from the cell, read on the 5 µA range (5·10⁵ V/A): code 6000
+  template("bidir-sleep", "bidirectional-offset", ["worked here from the formula", "IEEE Std 1241-2010"], { offsetVoltage: 1.25, sensitivity: 5e5, outputVoltage: 6000 * LSB, fullScaleVoltage: 2.5 }, "PHYSICS.md §5 5h (±2.5 µA) [FORMULA]", {
+    signedCurrent: [-668.95e-9, "PHYSICS.md §5 5h [FORMULA]"], maxPositiveCurrent: 2.5e-6, maxNegativeCurrent: -2.5e-6,
   }),
-  template("bidir-mid", "bidirectional-offset", ["worked here from the formula", "IEEE Std 1241-2010"], { offsetVoltage: 1.65, sensitivity: 1e6, outputVoltage: 2048 * LSB12, fullScaleVoltage: 3.3 }, "PHYSICS.md §5 5c [FORMULA]", {
+  template("bidir-mid", "bidirectional-offset", ["worked here from the formula", "IEEE Std 1241-2010"], { offsetVoltage: 1.25, sensitivity: 5e5, outputVoltage: 8192 * LSB, fullScaleVoltage: 2.5 }, "PHYSICS.md §5 5h (code 8192 = 1.25 V) [FORMULA]", {
     signedCurrent: 0,
   }),
 
@@ -152,18 +158,18 @@ export const examples: readonly Example[] = [
     current: 500.0e-3, relativeStandardUncertaintyPercent: 0.7767, expandedUncertainty: 7.767e-3,
   }),
 
-  // the amp-range reading again, now through the course meter's own chain: ×50 into a 12-bit, 3.3 V converter
-  template("unc-chain", "uncertainty", ["JCGM 100:2008"], { reading: 50.0e-3, readingAccuracyPercent: 0.5, readingCounts: 2, countSize: 0.1e-3, shuntResistance: 0.1, shuntTolerancePercent: 1, coverageFactor: 2, shuntTempcoPpm: 50, temperatureChange: 10, gainErrorPercent: 0.2, referenceTolerancePercent: 0.1, amplifierGain: 50, adcBits: 12, adcReference: 3.3 }, "PHYSICS.md §9 9g [FORMULA: GUM 4.3.7]", {
+  // the amp-range reading again, now through the teaching meter's own chain: ×50 into a 14-bit converter on 2.5 V
+  template("unc-chain", "uncertainty", ["JCGM 100:2008"], { reading: 50.0e-3, readingAccuracyPercent: 0.5, readingCounts: 2, countSize: 0.1e-3, shuntResistance: 0.1, shuntTolerancePercent: 1, coverageFactor: 2, shuntTempcoPpm: 50, temperatureChange: 10, gainErrorPercent: 0.2, referenceTolerancePercent: 0.1, amplifierGain: 50, adcBits: 14, adcReference: 2.5 }, "PHYSICS.md §9 9g [FORMULA: GUM 4.3.7]", {
     current: [0.5, "Ohm's law [FORMULA]"], readingContribution: [0, "PHYSICS.md §9 9g (the converter's rows replace the voltmeter) [FORMULA]"],
     shuntToleranceContribution: 2.887e-3, tempcoContribution: [144.3e-6, "PHYSICS.md §9 9g [FORMULA: GUM 4.3.7, ΔR/R = αΔT]"],
     gainContribution: 577.4e-6, referenceContribution: 288.7e-6, repeatabilityContribution: [0, "PHYSICS.md §9 9g (term off) [FORMULA]"], offsetContribution: [0, "PHYSICS.md §9 9g (term off) [FORMULA]"],
     biasContribution: [0, "PHYSICS.md §9 9g (term off) [FORMULA]"], leakageContribution: [0, "PHYSICS.md §9 9g (term off) [FORMULA]"],
-    quantisationContribution: [46.52e-6, "PHYSICS.md §9 9g [FORMULA: GUM F.2.2.1, q/√12]"],
-    relativeStandardUncertaintyPercent: [0.5924, "PHYSICS.md §9 9g [FORMULA]"],
-    combinedStandardUncertainty: [2.962e-3, "PHYSICS.md §9 9g [FORMULA: GUM 5.1.2]"],
+    quantisationContribution: [8.8097e-6, "PHYSICS.md §9 9g (2.5 V/2^14/50/0.1 Ω/√12) [FORMULA: GUM F.2.2.1, q/√12]"],
+    relativeStandardUncertaintyPercent: [0.59233, "PHYSICS.md §9 9g (14 bit on 2.5 V) [FORMULA]"],
+    combinedStandardUncertainty: [2.9617e-3, "PHYSICS.md §9 9g (14 bit on 2.5 V) [FORMULA: GUM 5.1.2]"],
     sensitivityReading: [10, "PHYSICS.md §9 9g (c_V = 1/R) [FORMULA: GUM 5.1.3]"],
     sensitivityShunt: [-5, "PHYSICS.md §9 9g (c_R = −I/R) [FORMULA: GUM 5.1.3]"],
-    expandedUncertainty: [5.924e-3, "PHYSICS.md §9 9g [FORMULA: GUM 6.2, k = 2]"],
+    expandedUncertainty: [5.9233e-3, "PHYSICS.md §9 9g (14 bit on 2.5 V) [FORMULA: GUM 6.2, k = 2]"],
     dominantContribution: ["shunt tolerance", "PHYSICS.md §9 9g [FORMULA]"],
   }),
   // a nanoamp reading through a 1 MΩ shunt: Type A, offset, bias current and leakage rows
@@ -201,9 +207,9 @@ export const examples: readonly Example[] = [
   }),
 
   // ---- Teaching helpers that lib/grader has no template for (lib/lessons/teaching.ts) ----
-  teaching("autorange-thresholds", "autorange", ["common practice, no single source", "IEEE Std 1241-2010"], { upFraction: 0.9, downFraction: 0.8, fullScaleVoltage: 3.3, sensitivityLow: 1e6, sensitivityHigh: 1e3 }, "PHYSICS.md §3 3d [CP; FORMULA]", {
-    upCurrent: 2.97e-6, downCurrent: 2.64e-6, downVoltageOnHigh: [2.64e-3, "PHYSICS.md §3 (hdown·VFS/1000) [FORMULA]"],
-    downLsbOnHigh: [3.277, "PHYSICS.md §3 (2.64 µA = 3.277 LSB) [FORMULA]"],
+  teaching("autorange-thresholds", "autorange", ["common practice, no single source", "IEEE Std 1241-2010"], { upFraction: 0.9, downFraction: 0.8, fullScaleVoltage: 2.5, sensitivityLow: 5e5, sensitivityHigh: 5e3, adcBits: 14 }, "PHYSICS.md §3 3l [CP; FORMULA]", {
+    upCurrent: 4.5e-6, downCurrent: 4.0e-6, downVoltageOnHigh: [20.0e-3, "PHYSICS.md §3 3l (h_down·V_FS/100) [FORMULA]"],
+    downLsbOnHigh: [131.07, "PHYSICS.md §3 3l (20 mV / 152.59 µV) [FORMULA]"],
   }),
   teaching("pulse-fast-filter", "pulsePeak", ["worked here from the formula"], { pulseCurrent: 20e-3, pulseWidth: 1e-3, timeConstant: 1e-3 }, "PHYSICS.md §6 6e [FORMULA]", {
     peak: 12.64e-3, peakPercent: 63.21, charge: 20.0e-6,

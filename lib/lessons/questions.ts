@@ -15,8 +15,9 @@ export type LessonQuestion = {
 };
 
 const mAh = 3.6;
-const LSB12 = 3.3 / 4096;
-const range = { fullScaleVoltage: 3.3, adcBits: 12, adcReference: 3.3 };
+// the teaching meter (lib/instruments/library.ts): 14-bit converter on a 2.5 V reference, 1.25 V offset
+const LSB = 2.5 / 16384;
+const range = { fullScaleVoltage: 2.5, adcBits: 14, adcReference: 2.5 };
 
 export const questions: LessonQuestion[] = [
   {
@@ -73,7 +74,7 @@ export const questions: LessonQuestion[] = [
     id: "range-radio-volts",
     lesson: "ranges-and-full-scale",
     template: "range-resolution",
-    params: { current: 750e-6, ...range },
+    params: { current: 300e-6, ...range },
     quantity: "outputVoltage",
     unit: "V",
     prompt: "The node draws {p.current|µA} while its sensor warms up. On the best range of the course meter, what output voltage do you read?",
@@ -82,11 +83,11 @@ export const questions: LessonQuestion[] = [
     id: "autorange-edge-code",
     lesson: "auto-ranging",
     template: "range-resolution",
-    params: { current: 3.3e-6, ...range },
+    params: { current: 5e-6, ...range },
     quantity: "adcCode",
     unit: "",
     prompt:
-      "A steady {p.current|µA} has pushed the meter off the nA range. Which ADC code does the 12-bit converter report on the range it is now on (truncating converter)?",
+      "A steady {p.current|µA} has pushed the meter off its 5 µA range. Which code does the 14-bit converter report on the range it is now on (truncating converter)?",
   },
   {
     id: "resolution-code",
@@ -95,15 +96,15 @@ export const questions: LessonQuestion[] = [
     params: { current: 500e-9, ...range },
     quantity: "adcCode",
     unit: "",
-    prompt: "The node sleeps at {p.current|nA}. Which 12-bit code does the meter's converter report on the best range (truncating converter)?",
+    prompt: "The node sleeps at {p.current|nA}. Which 14-bit code does the teaching meter's converter report on the best range (truncating converter)?",
   },
   {
     id: "resolution-step",
     lesson: "resolution",
     template: "range-resolution",
-    params: { current: 3.4e-3, ...range },
+    params: { current: 0.2, ...range },
     quantity: "currentResolution",
-    unit: "mA",
+    unit: "µA",
     prompt: "At {p.current|mA} the meter must use its least sensitive range. What current does one ADC step represent there?",
   },
   {
@@ -128,31 +129,31 @@ export const questions: LessonQuestion[] = [
     id: "bidir-discharge",
     lesson: "bidirectional-currents",
     template: "bidirectional-offset",
-    params: { offsetVoltage: 1.65, sensitivity: 1e3, outputVoltage: 0.65, fullScaleVoltage: 3.3 },
+    params: { offsetVoltage: 1.25, sensitivity: 5e3, outputVoltage: 0.65, fullScaleVoltage: 2.5 },
     quantity: "signedCurrent",
-    unit: "mA",
+    unit: "µA",
     prompt:
-      "In bipolar mode the zero-current output is {p.offsetVoltage|V}; the µA range gives 1 mV per µA. The output reads {p.outputVoltage|V}. What current flows, with its sign?",
+      "In bipolar mode the zero-current output is {p.offsetVoltage|V}; the 500 µA range gives 5 mV per µA. The output reads {p.outputVoltage|V}. What current flows, with its sign?",
   },
   {
     id: "bidir-charge-code",
     lesson: "bidirectional-currents",
     template: "bidirectional-offset",
-    params: { offsetVoltage: 1.65, sensitivity: 1, outputVoltage: 2172 * LSB12, fullScaleVoltage: 3.3 },
+    params: { offsetVoltage: 1.25, sensitivity: 2.5, outputVoltage: 9830 * LSB, fullScaleVoltage: 2.5 },
     quantity: "signedCurrent",
     unit: "mA",
     prompt:
-      "The cell is charging. On the mA range (1 mV per mA) with the zero at {p.offsetVoltage|V}, the output reads {p.outputVoltage|V|5}. What current flows, with its sign (into the cell is positive)?",
+      "The cell is charging. On the 1 A range (2.5 V per A) with the zero at {p.offsetVoltage|V}, the output reads {p.outputVoltage|V|5}. What current flows, with its sign (into the cell is positive)?",
   },
   {
-    id: "bidir-code-1000",
+    id: "bidir-code-6000",
     lesson: "bidirectional-currents",
     template: "bidirectional-offset",
-    params: { offsetVoltage: 1.65, sensitivity: 1e6, outputVoltage: 1000 * LSB12, fullScaleVoltage: 3.3 },
+    params: { offsetVoltage: 1.25, sensitivity: 5e5, outputVoltage: 6000 * LSB, fullScaleVoltage: 2.5 },
     quantity: "signedCurrent",
     unit: "nA",
     prompt:
-      "On the nA range (1 mV per nA) with the zero at {p.offsetVoltage|V}, the output reads {p.outputVoltage|V|4}. What current flows, with its sign?",
+      "On the 5 µA range (0.5 mV per nA) with the zero at {p.offsetVoltage|V}, the output reads {p.outputVoltage|V|4}. What current flows, with its sign?",
   },
   {
     id: "duty-average",
@@ -198,11 +199,11 @@ export const questions: LessonQuestion[] = [
     id: "unc-chain-quantisation",
     lesson: "uncertainty-budget",
     template: "uncertainty",
-    params: { reading: 20e-3, readingAccuracyPercent: 0, readingCounts: 0, countSize: 1e-3, shuntResistance: 0.1, shuntTolerancePercent: 1, coverageFactor: 2, amplifierGain: 100, adcBits: 12, adcReference: 3.3 },
+    params: { reading: 20e-3, readingAccuracyPercent: 0, readingCounts: 0, countSize: 1e-3, shuntResistance: 0.1, shuntTolerancePercent: 1, coverageFactor: 2, amplifierGain: 50, adcBits: 14, adcReference: 2.5 },
     quantity: "quantisationContribution",
     unit: "µA",
     prompt:
-      "The course meter reads the {p.reading|mV} across a {p.shuntResistance|Ω} shunt through a ×{p.amplifierGain|} amplifier into a {p.adcBits|}-bit converter with a {p.adcReference|V} reference. What standard uncertainty of the current does rounding to one converter step contribute?",
+      "The teaching meter reads the {p.reading|mV} across a {p.shuntResistance|Ω} shunt through a ×{p.amplifierGain|} amplifier into a {p.adcBits|}-bit converter with a {p.adcReference|V} reference. What standard uncertainty of the current does rounding to one converter step contribute?",
   },
   {
     id: "leak-guarded-error",

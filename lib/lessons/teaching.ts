@@ -8,11 +8,11 @@ const q = 1.602176634e-19;
 export const teaching = {
   /** Up/down thresholds between two ranges (PHYSICS.md §3): both referred to the more sensitive range. */
   autorange(p: Record<string, number>) {
-    const { upFraction, downFraction, fullScaleVoltage, sensitivityLow, sensitivityHigh } = p;
+    const { upFraction, downFraction, fullScaleVoltage, sensitivityLow, sensitivityHigh, adcBits } = p;
     const upCurrent = (upFraction * fullScaleVoltage) / sensitivityLow;
     const downCurrent = (downFraction * fullScaleVoltage) / sensitivityLow;
     const downVoltageOnHigh = downCurrent * sensitivityHigh;
-    const lsb = fullScaleVoltage / 4096;
+    const lsb = fullScaleVoltage / 2 ** adcBits;
     return { upCurrent, downCurrent, downVoltageOnHigh, downLsbOnHigh: downVoltageOnHigh / lsb };
   },
   /** A rectangular pulse through a first-order low-pass (PHYSICS.md §6): the peak is under-read, the charge is kept. */

@@ -109,10 +109,11 @@ const LABS: DemoLab[] = [
     template: "bidirectional-offset",
     state: "open",
     spec: {
-      offsetVoltage: fixed(1.65),
-      sensitivity: list([1, 10, 1000]),
-      outputVoltage: list([0.35, 0.9, 1.2, 2.1, 2.6, 3.05]),
-      fullScaleVoltage: fixed(3.3),
+      // the teaching meter's offset and full scale, on its 1 A, 50 mA and 500 µA ranges
+      offsetVoltage: fixed(1.25),
+      sensitivity: list([2.5, 50, 5000]),
+      outputVoltage: list([0.35, 0.9, 1.2, 1.6, 2.1, 2.4]),
+      fullScaleVoltage: fixed(2.5),
     },
     questions: [bench("signedCurrent", 4), predict("maxPositiveCurrent", 3), predict("maxNegativeCurrent", 3)],
     showExpected: "after_due",
@@ -273,13 +274,13 @@ const LABS: DemoLab[] = [
       gainErrorPercent: list([0.1, 0.2]),
       referenceTolerancePercent: list([0.1, 0.2]),
       amplifierGain: list([10, 20, 50]),
-      adcBits: list([10, 12]),
-      adcReference: fixed(3.3),
+      adcBits: list([12, 14]),
+      adcReference: fixed(2.5),
     },
     questions: [predict("tempcoContribution", 2), predict("quantisationContribution", 3), predict("combinedStandardUncertainty", 3), predict("dominantContribution", 2)],
     showExpected: "after_due",
     instructions:
-      "The course meter reads your shunt through its amplifier and converter. Write the budget table for one reading: every bound as a standard uncertainty, each times its sensitivity coefficient, combined in quadrature, and name the contribution that dominates.",
+      "The front end reads your shunt through its amplifier and converter, as the teaching meter does. Write the budget table for one reading: every bound as a standard uncertainty, each times its sensitivity coefficient, combined in quadrature, and name the contribution that dominates.",
     safety: "",
     reviews: {
       open: ["Question 4: on my values two contributions are almost equal. I named the temperature coefficient; could the gain error be accepted as well?"],

@@ -337,6 +337,14 @@ const TARGETS: Target[] = [
     weight: 3,
   },
   {
+    name: "PUT /api/courses/{courseId}/stock",
+    who: "instructor",
+    method: "PUT",
+    path: () => `/api/courses/${w.courseId}/stock`,
+    valid: () => ({ items: [{ kind: "resistor", value: 4700, tolerancePercent: 1, quantity: 12 }, { kind: "capacitor", value: 1e-7, tolerancePercent: 10, quantity: 3 }] }),
+    weight: 3,
+  },
+  {
     name: "PUT /api/labs/{labId}/grades-held",
     who: "instructor",
     method: "PUT",

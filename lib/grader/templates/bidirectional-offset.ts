@@ -1,5 +1,6 @@
 // A bipolar (mid-supply-referenced) output: zero current sits at the offset voltage.
 import type { MistakeCandidate, Params, Template } from "../types";
+import { TEACHING_OFFSET_VOLTS, TEACHING_REFERENCE_VOLTS } from "../../instruments/library";
 import { allPositive, num, tq } from "./util";
 
 function values(p: Params) {
@@ -20,10 +21,10 @@ export const bidirectionalOffset: Template = {
   title: "Reading a bidirectional (offset) output",
   summary: "Subtract the zero-current offset before dividing by the sensitivity; the offset also sets the limits in each direction.",
   parameters: [
-    { key: "offsetVoltage", label: "Zero-current offset", symbol: "V_\\mathrm{off}", unit: "V", displayUnit: "V", kind: "number", default: 1.65, min: 0.01, max: 10 },
-    { key: "sensitivity", label: "Sensitivity", symbol: "S", unit: "V/A", displayUnit: "mV/µA", kind: "number", default: 1000, min: 1e-3, max: 1e9 },
-    { key: "outputVoltage", label: "Output voltage", symbol: "V_\\mathrm{out}", unit: "V", displayUnit: "V", kind: "number", default: 2.417, min: 0, max: 10, suggestedRange: [0.1, 3.2] },
-    { key: "fullScaleVoltage", label: "Full-scale output", symbol: "V_\\mathrm{FS}", unit: "V", displayUnit: "V", kind: "number", default: 3.3, min: 0.1, max: 10 },
+    { key: "offsetVoltage", label: "Zero-current offset", symbol: "V_\\mathrm{off}", unit: "V", displayUnit: "V", kind: "number", default: TEACHING_OFFSET_VOLTS, min: 0.01, max: 10 },
+    { key: "sensitivity", label: "Sensitivity", symbol: "S", unit: "V/A", displayUnit: "mV/µA", kind: "number", default: 5000, min: 1e-3, max: 1e9 },
+    { key: "outputVoltage", label: "Output voltage", symbol: "V_\\mathrm{out}", unit: "V", displayUnit: "V", kind: "number", default: 1.85, min: 0, max: 10, suggestedRange: [0.1, 2.4] },
+    { key: "fullScaleVoltage", label: "Full-scale output", symbol: "V_\\mathrm{FS}", unit: "V", displayUnit: "V", kind: "number", default: TEACHING_REFERENCE_VOLTS, min: 0.1, max: 10 },
   ],
   quantities: [
     { key: "signedCurrent", label: "Current (with sign)", symbol: "I", unit: "A", displayUnit: "µA", kind: "number", description: "The current, positive or negative, that gives this output." },

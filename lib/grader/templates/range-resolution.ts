@@ -1,19 +1,52 @@
-// A three-range meter (1 mV/nA, 1 mV/µA, 1 mV/mA) feeding an N-bit ADC.
+// A multi-range sampling meter: each range a shunt and amplifier with a fixed output per ampere, feeding an
+// N-bit converter. The ranges are the lab's instrument profile (lib/instruments), by default the course's
+// teaching meter; the converter is the lab's parameters.
 import type { Params, Template } from "../types";
 import { allPositive, num, tq } from "./util";
 import { texNumber } from "../format";
+import { TEACHING_BITS, TEACHING_REFERENCE_VOLTS, teachingMeter } from "../../instruments/library";
+import type { InstrumentProfile } from "../../instruments/profile";
 
-export const RANGES = [
-  { name: "nA", sensitivity: 1e6, tex: "\\mathrm{nA}" },
-  { name: "uA", sensitivity: 1e3, tex: "\\mu\\mathrm{A}" },
-  { name: "mA", sensitivity: 1, tex: "\\mathrm{mA}" },
-] as const;
+export interface MeterRange {
+  /** the range's name by full scale, e.g. "500 µA": the answer a student gives for the best range */
+  name: string;
+  /** V/A */
+  sensitivity: number;
+  /** LaTeX of the name */
+  tex: string;
+  /** the sensitivity in the range's own unit, e.g. "5 mV/µA" */
+  shown: string;
+}
 
-const SHOWN = ["nA", "µA", "mA"];
-const SENS = ["1 mV/nA", "1 mV/µA", "1 mV/mA"];
+const UNIT_SCALE: Record<string, number> = { pA: 1e-12, nA: 1e-9, "µA": 1e-6, uA: 1e-6, mA: 1e-3, A: 1 };
+
+/** "5 mV/µA" for 5000 V/A on the 500 µA range: the output per unit of the range's own current unit. */
+export function sensitivityText(sensitivity: number, label: string): string {
+  const unit = label.split(" ").pop() ?? "A";
+  const perUnit = sensitivity * (UNIT_SCALE[unit] ?? 1);
+  const n = (x: number) => String(Number(x.toPrecision(4)));
+  return perUnit >= 1 ? `${n(perUnit)} V/${unit}` : `${n(perUnit * 1000)} mV/${unit}`;
+}
+
+function texLabel(label: string): string {
+  const [n, unit = "A"] = label.split(" ");
+  const u = unit.startsWith("µ") ? `\\mu\\mathrm{${unit.slice(1)}}` : `\\mathrm{${unit}}`;
+  return `${n}\\,${u}`;
+}
+
+/** The ranges of a sampling-meter profile that have a sensitivity, smallest full scale first. */
+export function meterRanges(profile: InstrumentProfile): MeterRange[] {
+  return profile.ranges
+    .filter((r) => r.sensitivity !== undefined)
+    .map((r) => ({ name: r.label, sensitivity: r.sensitivity as number, tex: texLabel(r.label), shown: sensitivityText(r.sensitivity as number, r.label) }));
+}
+
+/** The teaching meter's ranges: the template's default instrument. */
+export const RANGES: readonly MeterRange[] = meterRanges(teachingMeter);
 
 export interface RangeRow {
-  range: "nA" | "uA" | "mA";
+  /** the range's name by full scale */
+  range: string;
   /** V/A */
   sensitivity: number;
   outputVoltage: number;
@@ -24,7 +57,7 @@ export interface RangeRow {
 }
 
 /** Output, code and saturation on every range, for the feedback and the lessons. */
-export function rangeTable(p: Params): { rows: RangeRow[]; topVoltage: number; lsb: number } {
+export function rangeTable(p: Params, ranges: readonly MeterRange[] = RANGES): { rows: RangeRow[]; topVoltage: number; lsb: number } {
   const current = Math.abs(num(p, "current"));
   const vfs = num(p, "fullScaleVoltage");
   const bits = num(p, "adcBits");
@@ -33,7 +66,7 @@ export function rangeTable(p: Params): { rows: RangeRow[]; topVoltage: number; l
   const lsb = vref / levels;
   const topVoltage = Math.min(vfs, (levels - 1) * lsb);
   const rows: RangeRow[] = [];
-  for (const r of RANGES) {
+  for (const r of ranges) {
     const out = current * r.sensitivity;
     rows.push({
       range: r.name,
@@ -81,13 +114,13 @@ export const rangeResolution: Template = {
   summary:
     "Pick the most sensitive range that does not saturate, then find the output voltage, the ADC code and the current per code.",
   parameters: [
-    { key: "current", label: "Current", symbol: "I", unit: "A", displayUnit: "µA", kind: "number", default: 500e-9, min: 1e-9, max: 3.2, suggestedRange: [1e-7, 3e-3] },
-    { key: "fullScaleVoltage", label: "Full-scale output", symbol: "V_\\mathrm{FS}", unit: "V", displayUnit: "V", kind: "number", default: 3.3, min: 0.5, max: 10 },
-    { key: "adcBits", label: "ADC resolution", symbol: "N", unit: "", displayUnit: "bit", kind: "integer", default: 12, min: 8, max: 24 },
-    { key: "adcReference", label: "ADC reference", symbol: "V_\\mathrm{ref}", unit: "V", displayUnit: "V", kind: "number", default: 3.3, min: 0.5, max: 10 },
+    { key: "current", label: "Current", symbol: "I", unit: "A", displayUnit: "µA", kind: "number", default: 500e-9, min: 1e-9, max: 0.99, suggestedRange: [1e-7, 40e-3] },
+    { key: "fullScaleVoltage", label: "Full-scale output", symbol: "V_\\mathrm{FS}", unit: "V", displayUnit: "V", kind: "number", default: TEACHING_REFERENCE_VOLTS, min: 0.5, max: 10 },
+    { key: "adcBits", label: "ADC resolution", symbol: "N", unit: "", displayUnit: "bit", kind: "integer", default: TEACHING_BITS, min: 8, max: 24 },
+    { key: "adcReference", label: "ADC reference", symbol: "V_\\mathrm{ref}", unit: "V", displayUnit: "V", kind: "number", default: TEACHING_REFERENCE_VOLTS, min: 0.5, max: 10 },
   ],
   quantities: [
-    { key: "bestRange", label: "Best range", symbol: "\\text{range}", unit: "", displayUnit: "", kind: "category", choices: ["nA", "uA", "mA"], description: "The most sensitive range whose output stays below the top code's voltage." },
+    { key: "bestRange", label: "Best range", symbol: "\\text{range}", unit: "", displayUnit: "", kind: "category", choices: RANGES.map((r) => r.name), description: "The most sensitive range whose output stays below the top code's voltage." },
     { key: "outputVoltage", label: "Output voltage", symbol: "V_\\mathrm{out}", unit: "V", displayUnit: "V", kind: "number", description: "The range's output voltage for this current." },
     { key: "adcCode", label: "ADC code", symbol: "c", unit: "", displayUnit: "", kind: "number", discrete: true, description: "The code a truncating ADC returns (±1 code accepted)." },
     { key: "currentResolution", label: "Current per code", symbol: "I_\\mathrm{LSB}", unit: "A", displayUnit: "nA", kind: "number", description: "The current one ADC step stands for on the chosen range." },
@@ -139,7 +172,7 @@ export const rangeResolution: Template = {
     const out: { key: "wrong-range"; value: number | string; detail: string }[] = [];
     for (const i of neighbours(v.best)) {
       const r = v.rows[i];
-      const detail = `You used the ${SHOWN[i]} range (${SENS[i]}); the best range is ${SHOWN[v.best]}${i < v.best ? `, because the ${SHOWN[i]} range saturates` : ", the most sensitive one that does not saturate"}.`;
+      const detail = `You used the ${RANGES[i].name} range (${RANGES[i].shown}); the best range is ${RANGES[v.best].name}${i < v.best ? `, because the ${RANGES[i].name} range saturates` : ", the most sensitive one that does not saturate"}.`;
       if (q === "bestRange") out.push({ key: "wrong-range", value: r.range, detail });
       if (q === "outputVoltage") out.push({ key: "wrong-range", value: Math.abs(v.current) * r.sensitivity, detail });
       if (q === "adcCode") out.push({ key: "wrong-range", value: r.code, detail });

@@ -24,7 +24,7 @@ export const shuntSelection: Template = {
   summary:
     "Pick the standard shunt value that keeps the burden voltage within its limit at full-scale current, then check its power.",
   parameters: [
-    { key: "maxCurrent", label: "Full-scale current", symbol: "I_\\mathrm{max}", unit: "A", displayUnit: "mA", kind: "number", default: 3.3, min: 1e-9, max: 100, suggestedRange: [1e-3, 3] },
+    { key: "maxCurrent", label: "Full-scale current", symbol: "I_\\mathrm{max}", unit: "A", displayUnit: "mA", kind: "number", default: 1, min: 1e-9, max: 100, suggestedRange: [1e-3, 1] },
     { key: "maxBurden", label: "Burden voltage limit", symbol: "V_{b,\\mathrm{max}}", unit: "V", displayUnit: "mV", kind: "number", default: 0.1, min: 1e-4, max: 10, suggestedRange: [0.02, 0.2] },
     { key: "series", label: "Resistor series", symbol: "\\mathrm{E}", unit: "", displayUnit: "", kind: "category", default: "E24", choices: SERIES_NAMES },
   ],

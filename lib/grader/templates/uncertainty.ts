@@ -1,6 +1,7 @@
 // I = V/R from a meter reading across a shunt, with a GUM uncertainty budget: each bound ±a is taken as
 // rectangular (u = a/√3), relative standard uncertainties add in quadrature, U = k·u_c.
 import type { MistakeCandidate, Params, Template } from "../types";
+import { TEACHING_REFERENCE_VOLTS } from "../../instruments/library";
 import { allPositive, num, tq } from "./util";
 import { texNumber } from "../format";
 
@@ -87,7 +88,7 @@ function opt(p: Params, key: string, fallback: number): number {
 export function chainInputs(p: Params) {
   const gain = opt(p, "amplifierGain", 1);
   const bits = opt(p, "adcBits", 0);
-  const vref = opt(p, "adcReference", 3.3);
+  const vref = opt(p, "adcReference", TEACHING_REFERENCE_VOLTS);
   return {
     tempcoPpm: opt(p, "shuntTempcoPpm", 0),
     temperatureChange: opt(p, "temperatureChange", 0),
@@ -210,7 +211,7 @@ export const uncertainty: Template = {
     { key: "referenceTolerancePercent", label: "Converter reference tolerance (± bound)", symbol: "r", unit: "%", displayUnit: "%", kind: "number", default: 0, min: 0, max: 20, suggestedRange: [0.1, 0.5] },
     { key: "amplifierGain", label: "Amplifier gain", symbol: "G", unit: "", displayUnit: "", kind: "number", default: 1, min: 1e-3, max: 1e6 },
     { key: "adcBits", label: "Converter resolution (0: no converter)", symbol: "N", unit: "", displayUnit: "bits", kind: "integer", default: 0, min: 0, max: 24, suggestedRange: [10, 16] },
-    { key: "adcReference", label: "Converter reference voltage", symbol: "V_\\mathrm{ref}", unit: "V", displayUnit: "V", kind: "number", default: 3.3, min: 0.1, max: 10 },
+    { key: "adcReference", label: "Converter reference voltage", symbol: "V_\\mathrm{ref}", unit: "V", displayUnit: "V", kind: "number", default: TEACHING_REFERENCE_VOLTS, min: 0.1, max: 10 },
     // Nanoamp terms, each off (0) unless the lab sets it.
     { key: "repeatStdDev", label: "Standard deviation of repeated readings (Type A)", symbol: "s", unit: "V", displayUnit: "µV", kind: "number", default: 0, min: 0, max: 10, description: "The experimental standard deviation of the repeated readings; 0 leaves the term out." },
     { key: "repeatCount", label: "Number of repeated readings averaged", symbol: "n", unit: "", displayUnit: "readings", kind: "integer", default: 1, min: 1, max: 100000 },

@@ -113,9 +113,10 @@ describe("verdicts and points", () => {
 });
 
 describe("category answers", () => {
-  const rr = { current: 2e-3, fullScaleVoltage: 3.3, adcBits: 12, adcReference: 3.3 };
+  // the teaching meter (lib/instruments/library.ts): 300 µA is best read on its 500 µA range
+  const rr = { current: 300e-6, fullScaleVoltage: 2.5, adcBits: 14, adcReference: 2.5 };
   it("accepts µ (U+00B5), μ (U+03BC), u, any case", () => {
-    for (const a of ["µA", "μA", "uA", "UA", " ua ", "µA range"]) {
+    for (const a of ["500 µA", "500 μA", "500 uA", "500 UA", " 500ua ", "500 µA range"]) {
       const r = gradeAttempt({ template: "range-resolution", params: rr, questions: [q1("bestRange")], readings: [a] }).results[0];
       expect(r.verdict, a).toBe("correct");
       expect(r.band).toBeNull();
@@ -126,8 +127,8 @@ describe("category answers", () => {
     expect(r.verdict).toBe("wrong");
   });
   it("the ADC code is accepted ±1 code", () => {
-    // 2 mA on the µA range: 2.000 V → 2.000 · 4096 / 3.3 = 2482.4 → code 2482
-    for (const [a, v] of [[2481, "correct"], [2482, "correct"], [2483, "correct"], [2484, "close"], [2490, "wrong"]] as const) {
+    // 300 µA on the 500 µA range: 1.500 V → 1.500 · 16384 / 2.5 = 9830.4 → code 9830 (IEEE Std 1241, truncating)
+    for (const [a, v] of [[9829, "correct"], [9830, "correct"], [9831, "correct"], [9832, "close"], [9838, "wrong"]] as const) {
       const r = gradeAttempt({ template: "range-resolution", params: rr, questions: [q1("adcCode")], readings: [String(a)] }).results[0];
       expect(r.verdict, String(a)).toBe(v);
     }
@@ -291,9 +292,9 @@ describe("public contract", () => {
       expect(templates[key].check(defaultParams(key))).toBeNull();
     }
     // defaults from lib/grader/README.md
-    expect(defaultParams("range-resolution")).toMatchObject({ fullScaleVoltage: 3.3, adcBits: 12, adcReference: 3.3 });
+    expect(defaultParams("range-resolution")).toMatchObject({ fullScaleVoltage: 2.5, adcBits: 14, adcReference: 2.5 });
     expect(defaultParams("duty-cycle")).toMatchObject({ usableFraction: 0.8 });
-    expect(defaultParams("bidirectional-offset")).toMatchObject({ offsetVoltage: 1.65, fullScaleVoltage: 3.3 });
+    expect(defaultParams("bidirectional-offset")).toMatchObject({ offsetVoltage: 1.25, fullScaleVoltage: 2.5 });
     expect(defaultParams("uncertainty")).toMatchObject({ coverageFactor: 2 });
   });
   it("zod schemas accept good input and reject bad input", () => {
@@ -325,12 +326,12 @@ describe("public contract", () => {
 
 describe("saturation", () => {
   it("a saturated ADC code is flagged in the feedback", () => {
-    // 5 µA on the nA range clips at code 4095 (PHYSICS.md §12.3); the best range is µA
+    // 8 µA on the 5 µA range clips at code 16383 (PHYSICS.md §12.3); the best range is 500 µA
     const r = gradeAttempt({
       template: "range-resolution",
-      params: { current: 5e-6, fullScaleVoltage: 3.3, adcBits: 12, adcReference: 3.3 },
+      params: { current: 8e-6, fullScaleVoltage: 2.5, adcBits: 14, adcReference: 2.5 },
       questions: [q1("adcCode")],
-      readings: ["4095"],
+      readings: ["16383"],
     }).results[0];
     expect(r.verdict).toBe("mistake");
     expect(r.mistake).toBe("wrong-range");

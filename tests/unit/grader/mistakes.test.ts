@@ -14,7 +14,8 @@ interface Case {
 
 const sb = { supplyVoltage: 1.8, loadResistance: 100, shuntResistance: 10 };
 const sel = { maxCurrent: 3.3, maxBurden: 0.1, series: "E24" };
-const rr = { current: 2e-3, fullScaleVoltage: 3.3, adcBits: 12, adcReference: 3.3 };
+// the teaching meter: 300 µA on its 500 µA range (5·10³ V/A) gives 1.500 V, code ⌊1.5 × 16384 / 2.5⌋ = 9830
+const rr = { current: 300e-6, fullScaleVoltage: 2.5, adcBits: 14, adcReference: 2.5 };
 const duty = { sleepCurrent: 2e-6, activeCurrent: 20e-3, activeTime: 10e-3, period: 1, batteryCapacity: 792, usableFraction: 0.8 };
 const bid = { offsetVoltage: 1.65, sensitivity: 1e6, outputVoltage: (3000 * 3.3) / 4096, fullScaleVoltage: 3.3 };
 const fn = { filterResistance: 10e3, filterCapacitance: 100e-9, shuntResistance: 10e3, temperature: 300 };
@@ -39,9 +40,10 @@ const cases: Case[] = [
   { key: "nearest-not-floor", template: "shunt-selection", params: { ...sel, maxBurden: 0.107 }, quantity: "standardShunt", wrong: "33 mohm", right: "30 mohm" },
   { key: "nearest-not-floor", template: "shunt-selection", params: { ...sel, maxBurden: 0.107 }, quantity: "burdenAtFullScale", wrong: `${3.3 * 33} mV`, right: `${3.3 * 30} mV` },
   // 2 mA on the 1 mV/mA range gives 2 mV instead of 2 V
-  { key: "wrong-range", template: "range-resolution", params: rr, quantity: "outputVoltage", wrong: "2 mV", right: "2 V" },
-  { key: "wrong-range", template: "range-resolution", params: rr, quantity: "bestRange", wrong: "mA", right: "µA" },
-  { key: "wrong-range", template: "range-resolution", params: rr, quantity: "adcCode", wrong: 2, right: Math.floor((2 * 4096) / 3.3) },
+  // on the 50 mA range (50 V/A) the same current gives 15 mV, code ⌊0.015 × 6553.6⌋ = 98
+  { key: "wrong-range", template: "range-resolution", params: rr, quantity: "outputVoltage", wrong: "15 mV", right: "1.5 V" },
+  { key: "wrong-range", template: "range-resolution", params: rr, quantity: "bestRange", wrong: "50 mA", right: "500 µA" },
+  { key: "wrong-range", template: "range-resolution", params: rr, quantity: "adcCode", wrong: 98, right: 9830 },
   // 5a: 2417 nA instead of 767.0 nA
   { key: "forgot-offset", template: "bidirectional-offset", params: bid, quantity: "signedCurrent", wrong: "2417 nA", right: "767.0 nA" },
   // 8a: 10.00 mA instead of 202.0 µA; life 17.6 h instead of 871.4 h (PHYSICS.md §12.5)

@@ -17,14 +17,17 @@ const sb = (supplyVoltage: number, loadResistance: number, shuntResistance: numb
   templates["shunt-burden"].compute({ supplyVoltage, loadResistance, shuntResistance });
 const sel = (maxCurrent: number, maxBurden: number, series: string) =>
   templates["shunt-selection"].compute({ maxCurrent, maxBurden, series });
-const rr = (current: number) =>
-  templates["range-resolution"].compute({ current, fullScaleVoltage: 3.3, adcBits: 12, adcReference: 3.3 });
+// the teaching meter (lib/instruments/library.ts): 14 bit on 2.5 V, ranges 5·10⁵, 5·10³, 50 and 2.5 V/A
+const meter = { fullScaleVoltage: 2.5, adcBits: 14, adcReference: 2.5 };
+const rr = (current: number) => templates["range-resolution"].compute({ current, ...meter });
+const LSB14 = 2.5 / 16384;
 const duty = (p: Record<string, number>) => templates["duty-cycle"].compute(p);
 const bid = (outputVoltage: number, sensitivity: number) =>
   templates["bidirectional-offset"].compute({ offsetVoltage: 1.65, sensitivity, outputVoltage, fullScaleVoltage: 3.3 });
 const fn = (filterResistance: number, filterCapacitance: number, shuntResistance: number, temperature: number) =>
   templates["filter-noise"].compute({ filterResistance, filterCapacitance, shuntResistance, temperature });
 const unc = (p: Record<string, number>) => templates.uncertainty.compute(p);
+// §5 keeps the seed document's former meter (1.650 V offset, 12 bit on 3.3 V) as check values: common practice
 const LSB12 = 3.3 / 4096;
 
 describe("§0 constants", () => {
@@ -134,60 +137,59 @@ describe("§2 burden voltage", () => {
   });
 });
 
-describe("§3 range choice", () => {
-  it("3a 500 nA: nA range, 0.5000 V", () => {
-    // [FORMULA]
+describe("§3 range choice (the teaching meter)", () => {
+  it("3g 500 nA: 5 µA range, 0.2500 V, code 1638", () => {
+    // [FORMULA] 500 nA × 5·10⁵ V/A = 0.25 V; ⌊0.25 × 16384 / 2.5⌋ = ⌊1638.4⌋
     const v = rr(500e-9);
-    expect(v.bestRange).toBe("nA");
-    near(v.outputVoltage, 0.5);
+    expect(v.bestRange).toBe("5 µA");
+    near(v.outputVoltage, 0.25);
+    expect(v.adcCode).toBe(1638);
   });
-  it("3b 2.000 mA: µA range, 2.000 V (the nA range would saturate)", () => {
-    // [FORMULA]
+  it("3h 2.000 mA: 50 mA range, 0.1000 V (the 5 µA and 500 µA ranges would saturate)", () => {
+    // [FORMULA] 2 mA × 5·10³ V/A = 10 V ≥ 2.5 V; 2 mA × 50 V/A = 0.1 V
     const v = rr(2e-3);
-    expect(v.bestRange).toBe("uA");
-    near(v.outputVoltage, 2.0);
-    expect(rangeTable({ current: 2e-3, fullScaleVoltage: 3.3, adcBits: 12, adcReference: 3.3 }).rows[0].saturated).toBe(true);
+    expect(v.bestRange).toBe("50 mA");
+    near(v.outputVoltage, 0.1);
+    const t = rangeTable({ current: 2e-3, ...meter });
+    expect(t.rows.map((r) => r.saturated)).toEqual([true, true, false, false]);
   });
-  it("3c 3.300 µA: the nA range saturates (3.3 V ≥ 3.299 V) → µA range, 3.300 mV ≈ 4 codes", () => {
-    // [FORMULA]
-    const t = rangeTable({ current: 3.3e-6, fullScaleVoltage: 3.3, adcBits: 12, adcReference: 3.3 });
-    near(t.topVoltage, 3.299, 5e-4);
+  it("3i 5.000 µA: the 5 µA range saturates (2.5 V ≥ 2.49985 V) → 500 µA range, 25.00 mV, 163 codes", () => {
+    // [FORMULA] top code voltage (2^14 − 1) × 2.5 V / 2^14 = 2.499847 V; ⌊0.025 × 6553.6⌋ = ⌊163.84⌋
+    const t = rangeTable({ current: 5e-6, ...meter });
+    near(t.topVoltage, 2.499847, 5e-6);
     expect(t.rows[0].saturated).toBe(true);
-    const v = rr(3.3e-6);
-    expect(v.bestRange).toBe("uA");
-    near(v.outputVoltage, 3.3e-3);
-    expect(Math.abs((v.adcCode as number) - 4)).toBeLessThanOrEqual(1);
+    const v = rr(5e-6);
+    expect(v.bestRange).toBe("500 µA");
+    near(v.outputVoltage, 25e-3);
+    expect(v.adcCode).toBe(163);
   });
-  it("3f 3.4 mA: mA range only; 3.400 mV = 4.220 LSB → code 4 → 3.223 mA", () => {
-    // [FORMULA]
-    const v = rr(3.4e-3);
-    expect(v.bestRange).toBe("mA");
-    near(v.outputVoltage, 3.4e-3);
-    near((v.outputVoltage as number) / LSB12, 4.220);
-    expect(v.adcCode).toBe(4);
-    near((v.adcCode as number) * (v.currentResolution as number), 3.223e-3);
+  it("3j 0.6 mA: 50 mA range; 30.00 mV = 196.6 LSB → code 196 → 598.1 µA", () => {
+    // [FORMULA] 0.6 mA × 50 V/A = 30 mV; 30 mV / 152.5879 µV = 196.608; 196 × 3.0518 µA = 598.14 µA
+    const v = rr(0.6e-3);
+    expect(v.bestRange).toBe("50 mA");
+    near(v.outputVoltage, 30e-3);
+    near((v.outputVoltage as number) / LSB14, 196.608);
+    expect(v.adcCode).toBe(196);
+    near((v.adcCode as number) * (v.currentResolution as number), 598.14e-6);
   });
 });
 
-describe("§4 ADC quantisation", () => {
-  it("4a 12 bit, 3.3 V: LSB 805.7 µV, 4096 levels", () => {
+describe("§3 converter quantisation (the teaching meter)", () => {
+  it("3k 14 bit, 2.5 V: LSB 152.59 µV, 16384 levels, q/√12 44.05 µV, ideal SNR 86.04 dB", () => {
     // [FORMULA: IEEE Std 1241-2010 ideal quantiser; REF: mathjs]
-    near(ev("3.3 V / 2^12", "uV"), 805.7);
-    near(ev("3.3 V / 2^12 / sqrt(12)", "uV"), 232.6);
-    near(ev("20 * log10(2^12 * sqrt(1.5))"), 74.00);
-    const v = rr(1.0); // mA range, 1 V/A: the current per code equals the LSB in volts numerically
-    near(v.currentResolution, 805.7e-6);
-    expect(2 ** 12).toBe(4096);
+    near(ev("2.5 V / 2^14", "uV"), 152.59);
+    near(ev("2.5 V / 2^14 / sqrt(12)", "uV"), 44.048);
+    near(ev("20 * log10(2^14 * sqrt(1.5))"), 86.04);
+    near(rr(0.2).currentResolution, 61.035e-6); // 1 A range, 2.5 V/A: 152.59 µV / 2.5 V/A
+    expect(rr(0.2).adcCode).toBe(3276); // ⌊0.5 × 6553.6⌋
+    expect(2 ** 14).toBe(16384);
   });
-  it("4b 0.8057 nA, 0.8057 µA, 0.8057 mA per LSB", () => {
-    // [FORMULA]
-    near(rr(500e-9).currentResolution, 0.8057e-9);
-    near(rr(2e-3).currentResolution, 0.8057e-6);
-    near(rr(1.0).currentResolution, 0.8057e-3);
-  });
-  it("4e 500 nA on the nA range: 620.61 LSB → code 620 (truncating), 621 accepted as rounding", () => {
-    // [FORMULA]
-    expect(rr(500e-9).adcCode).toBe(620);
+  it("3g–3k current per code: 305.18 pA, 30.518 nA, 3.0518 µA, 61.035 µA", () => {
+    // [FORMULA] 152.5879 µV over 5·10⁵, 5·10³, 50 and 2.5 V/A
+    near(rr(500e-9).currentResolution, 305.18e-12);
+    near(rr(5e-6).currentResolution, 30.518e-9);
+    near(rr(2e-3).currentResolution, 3.0518e-6);
+    near(rr(0.2).currentResolution, 61.035e-6);
   });
 });
 

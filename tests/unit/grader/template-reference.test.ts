@@ -86,27 +86,27 @@ describe("shunt-selection", () => {
 });
 
 describe("range-resolution", () => {
-  // PHYSICS.md §3 3b, §4 4b [FORMULA; LSB = V_ref/2^N, IEEE Std 1241 convention]: 2.000 mA on a 12-bit, 3.3 V meter.
-  const p = { current: 2e-3, fullScaleVoltage: 3.3, adcBits: 12, adcReference: 3.3 };
-  it("µA range, 2.000 V, one code = 3.3 V/4096/(10³ V/A) = 0.8057 µA", () => {
-    // the nA range would give 2 mA × 10⁶ V/A = 2000 V (saturated); the µA range 2 mA × 10³ V/A = 2.000 V
-    // LSB = 3.3/4096 = 805.66 µV; in current 805.66 µV / 10³ V/A = 0.8057 µA
-    expect(grade("range-resolution", p, { quantity: "bestRange", kind: "prediction" }, "µA").verdict).toBe("correct");
-    near(grade("range-resolution", p, { quantity: "currentResolution", kind: "prediction" }, "0.806 µA").expected, 0.8057e-6);
+  // PHYSICS.md §3 3m [FORMULA; LSB = V_ref/2^N, IEEE Std 1241 convention]: 300 µA on the teaching meter, 14 bit on 2.5 V.
+  const p = { current: 300e-6, fullScaleVoltage: 2.5, adcBits: 14, adcReference: 2.5 };
+  it("500 µA range, 1.500 V, one code = 2.5 V/16384/(5·10³ V/A) = 30.52 nA", () => {
+    // the 5 µA range would give 300 µA × 5·10⁵ V/A = 150 V (saturated); the 500 µA range 300 µA × 5·10³ V/A = 1.500 V
+    // LSB = 2.5/16384 = 152.59 µV; in current 152.59 µV / 5·10³ V/A = 30.52 nA
+    expect(grade("range-resolution", p, { quantity: "bestRange", kind: "prediction" }, "500 uA").verdict).toBe("correct");
+    near(grade("range-resolution", p, { quantity: "currentResolution", kind: "prediction" }, "30.5 nA").expected, 30.518e-9);
   });
-  it("output read on the bench: ±0.5 % of 2.000 V = ±10.00 mV; the code 2482 is predicted ±1 code, read ±0.5 %", () => {
-    // PHYSICS.md §17 17c. Code: 2.000 V / 805.66 µV = 2482.4, truncated to 2482 (PHYSICS.md §0: accept ±1 code)
-    const v = grade("range-resolution", p, { quantity: "outputVoltage", kind: "bench" }, "2.005 V", meter);
-    near(v.expected, 2.0);
-    near(half(v), 10.0e-3, 1e-3);
+  it("output read on the bench: ±0.5 % of 1.500 V = ±7.500 mV; the code 9830 is predicted ±1 code, read ±0.5 %", () => {
+    // PHYSICS.md §17 17c. Code: 1.500 V / 152.59 µV = 9830.4, truncated to 9830 (PHYSICS.md §0: accept ±1 code)
+    const v = grade("range-resolution", p, { quantity: "outputVoltage", kind: "bench" }, "1.504 V", meter);
+    near(v.expected, 1.5);
+    near(half(v), 7.5e-3, 1e-3);
     expect(v.verdict).toBe("correct");
-    const predicted = grade("range-resolution", p, { quantity: "adcCode", kind: "prediction" }, "2483");
-    expect(predicted.expected).toBe(2482);
-    expect(predicted.band).toEqual([2481, 2483]);
+    const predicted = grade("range-resolution", p, { quantity: "adcCode", kind: "prediction" }, "9831");
+    expect(predicted.expected).toBe(9830);
+    expect(predicted.band).toEqual([9829, 9831]);
     expect(predicted.verdict).toBe("correct");
-    // a code read off the bench is itself the reading: 0.005 × 2482 = 12.41 codes, wider than ±1 code
-    const read = grade("range-resolution", p, { quantity: "adcCode", kind: "bench" }, "2490", meter);
-    near(half(read), 12.41, 1e-3);
+    // a code read off the bench is itself the reading: 0.005 × 9830 = 49.15 codes, wider than ±1 code
+    const read = grade("range-resolution", p, { quantity: "adcCode", kind: "bench" }, "9870", meter);
+    near(half(read), 49.15, 1e-3);
     expect(read.verdict).toBe("correct");
   });
 });

@@ -231,6 +231,9 @@ function StaffOverview({ lab, attempts, canEdit }: { lab: Lab; attempts: Attempt
         <Link className="btn-quiet" href={`/labs/${lab.id}/parts`}>
           Bench parts list
         </Link>
+        <Link className="btn-quiet" href={`/labs/${lab.id}/kits`}>
+          Kits to pack
+        </Link>
       </nav>
       <dl className="card mt-6 grid gap-x-6 gap-y-2 text-sm sm:grid-cols-2">
         <div>
