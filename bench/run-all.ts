@@ -11,6 +11,7 @@ const here = import.meta.dirname;
 const BENCHES = [
   { name: "grader", file: "grader.ts", goal: "graded 10-question attempts per second, against a baseline in the same run" },
   { name: "trace", file: "trace.ts", goal: "time and peak memory to analyse a 1,000,000-row trace" },
+  { name: "long-log", file: "long-log.ts", goal: "3.6 million rows from completed upload to stored results under 5 s, job peak under 300 MB, at most 2× the CSV parser alone; 1-second zoom under 100 ms; app memory flat during an upload" },
   { name: "gradebook", file: "gradebook.ts", goal: "gradebook route p50 under 150 ms and at most 3× its SQL alone" },
   { name: "burst", file: "burst.ts", goal: "0 errors, 0 lost, p95 under 300 ms, at least 25 % of the health route's throughput; two processes: ratio printed" },
   { name: "lighthouse", file: "lighthouse.ts", goal: "performance ≥ 95 on both pages (mobile), 0 bytes of KaTeX JavaScript, a lesson under 150 KB of compressed JavaScript" },

@@ -111,6 +111,17 @@ export interface LabVariantsTable {
 }
 
 export type UploadKind = "image" | "trace";
+export type UploadStatus = "pending" | "completing" | "analysing" | "ready" | "failed";
+
+/** Where a trace's samples are kept in compact form (see lib/uploads/samples.ts). */
+export interface StoredSamples {
+  key: string;
+  rows: number;
+  /** samples per block of the index */
+  block: number;
+  /** the time (s) of the first sample of each block */
+  index: number[];
+}
 
 export interface UploadsTable {
   id: Generated<string>;
@@ -120,11 +131,16 @@ export interface UploadsTable {
   kind: UploadKind;
   content_type: string;
   size: number;
-  sha256: string;
+  sha256: string | null;
   storage_key: string;
   original_name: string;
   analysis: Json<unknown> | null;
   created_at: Generated<Date>;
+  status: Generated<UploadStatus>;
+  multipart_id: string | null;
+  progress: number | null;
+  failure: string | null;
+  samples: Json<StoredSamples> | null;
 }
 
 export interface AttemptsTable {

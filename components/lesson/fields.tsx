@@ -7,6 +7,23 @@ import { QuantityInput } from "@/components/ui/field";
 
 export type FieldDef = { label: string; unit: string; initial: string; hint?: string };
 
+/** Quantities that only make sense above zero in every calculator (a resistance, a capacitance, a time, a rate). */
+const POSITIVE_UNITS = new Set(["ohm", "F", "s", "Hz", "C"]);
+
+/**
+ * One calculator field read as the grader reads answers (parseQuantity), with two differences that suit a
+ * field whose unit is fixed by its label: a bare number in a resistance field is ohms (resistor values are
+ * written bare, and the hints show them so), and a resistance, capacitance, time, rate or charge must be
+ * above zero. Every refusal names the field and says what is wrong.
+ */
+export function readField(text: string, def: FieldDef): { ok: true; value: number } | { ok: false; message: string } {
+  let r = parseQuantity(text, def.unit);
+  if (!r.ok && def.unit === "ohm" && /^\s*[-+]?(\d+([.,]\d*)?|[.,]\d+)([eE][-+]?\d+)?\s*$/.test(text)) r = parseQuantity(`${text.trim()} ohm`, "ohm");
+  if (!r.ok) return { ok: false, message: `${def.label}: ${r.message}` };
+  if (POSITIVE_UNITS.has(def.unit) && !(r.value > 0)) return { ok: false, message: `${def.label} must be above zero.` };
+  return { ok: true, value: r.value };
+}
+
 export function useQuantityFields<K extends string>(defs: Record<K, FieldDef>) {
   const [texts, setTexts] = useState<Record<K, string>>(() => {
     const out = {} as Record<K, string>;
@@ -17,7 +34,7 @@ export function useQuantityFields<K extends string>(defs: Record<K, FieldDef>) {
     const values = {} as Record<K, number | undefined>;
     const errors = {} as Record<K, string | undefined>;
     for (const k of Object.keys(defs) as K[]) {
-      const r = parseQuantity(texts[k], defs[k].unit);
+      const r = readField(texts[k], defs[k]);
       if (r.ok) values[k] = r.value;
       else errors[k] = r.message;
     }

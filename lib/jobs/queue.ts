@@ -7,7 +7,7 @@ import { connectionLost } from "@/db/pool";
 import type { Database } from "@/db/types";
 import { isDatabaseUnavailable } from "@/lib/errors";
 
-export const QUEUES = { regrade: "lab-regrade", mail: "mail-send", uploadSweep: "uploads-sweep", draws: "lab-draws" } as const;
+export const QUEUES = { regrade: "lab-regrade", mail: "mail-send", uploadSweep: "uploads-sweep", draws: "lab-draws", uploadAnalysis: "upload-analysis" } as const;
 
 const g = globalThis as unknown as { shuntwiseBoss?: Promise<PgBoss> };
 

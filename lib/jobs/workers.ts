@@ -6,6 +6,7 @@ import { drawForEveryone } from "../labs/draws";
 import { runRegrade } from "../labs/regrade";
 import { startMailWorker } from "../mail/worker";
 import { sweepUnattachedUploads } from "../uploads/accept";
+import { analyseUpload, type AnalysisJob } from "../uploads/analysis";
 
 /** When the sweep of unattached uploads runs: every hour, at 17 past (cron, UTC). */
 export const UPLOAD_SWEEP_CRON = "17 * * * *";
@@ -28,6 +29,9 @@ async function registerWorkers(b: PgBoss): Promise<void> {
     for (const job of jobs) await drawForEveryone(job.data.labId);
   });
   await startMailWorker(b);
+  await b.work<AnalysisJob>(QUEUES.uploadAnalysis, { pollingIntervalSeconds: 1, includeMetadata: true }, async (jobs) => {
+    for (const job of jobs) await analyseUpload(job.data, { lastTry: job.retryCount >= job.retryLimit });
+  });
   await b.work(QUEUES.uploadSweep, { pollingIntervalSeconds: 5 }, async () => {
     const removed = await sweepUnattachedUploads();
     if (removed) console.log(`removed ${removed} upload(s) never attached to an attempt`);

@@ -103,6 +103,11 @@ export async function submitAttempt(
   if (uploads.length !== new Set(input.uploadIds).size || uploads.some((u) => u.ownerId !== userId || u.courseId !== lab.courseId)) {
     throw new AppError("bad_request", "One of the attached files is not yours or not in this course.", { uploadIds: ["Attach only files you uploaded for this course."] });
   }
+  const notReady = uploads.find((u) => u.status !== "ready");
+  if (notReady) {
+    const why = notReady.status === "failed" ? `could not be analysed${notReady.failure ? ` (${notReady.failure})` : ""}` : notReady.status === "analysing" ? "is still being analysed; wait until it is ready" : "has not finished uploading";
+    throw new AppError("bad_request", `The attached file ${notReady.originalName} ${why}.`, { uploadIds: ["Attach only files that are ready."] });
+  }
   const traces = uploads.filter((u) => u.kind === "trace" && u.analysis).map((u) => u.analysis as StoredTrace);
 
   return db.transaction().execute(async (trx: Transaction<Database>) => {

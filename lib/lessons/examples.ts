@@ -206,6 +206,11 @@ export const examples: readonly Example[] = [
     apparentWakeFrequency: 200,
   }),
 
+  // ---- Lesson 15: the feedback ammeter (its R_f C_f through the filter-noise template, R_f as the noisy resistor) ----
+  template("fb-gigaohm", "filter-noise", ["worked here from the formula", "Physical Review"], { filterResistance: 1e9, filterCapacitance: 10e-12, shuntResistance: 1e9, temperature: 300 }, "PHYSICS.md §21 21a [FORMULA]", {
+    timeConstant: 10.0e-3, settlingTime1pct: 46.05e-3, noiseBandwidth: 25.0, thermalNoiseCurrent: 20.35e-15,
+  }),
+
   // ---- Teaching helpers that lib/grader has no template for (lib/lessons/teaching.ts) ----
   teaching("autorange-thresholds", "autorange", ["common practice, no single source", "IEEE Std 1241-2010"], { upFraction: 0.9, downFraction: 0.8, fullScaleVoltage: 2.5, sensitivityLow: 5e5, sensitivityHigh: 5e3, adcBits: 14 }, "PHYSICS.md §3 3l [CP; FORMULA]", {
     upCurrent: 4.5e-6, downCurrent: 4.0e-6, downVoltageOnHigh: [20.0e-3, "PHYSICS.md §3 3l (h_down·V_FS/100) [FORMULA]"],

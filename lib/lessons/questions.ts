@@ -263,6 +263,26 @@ export const questions: LessonQuestion[] = [
     prompt:
       "The node wakes every {p.wakePeriod|s}. A slow data logger samples its current at {p.logRate|Hz}, so each sample lands a little further along the wake cycle. At what frequency does the sampling phase come back to the same point of the cycle (the alias of the wake rate)?",
   },
+  {
+    id: "fb-settling",
+    lesson: "feedback-ammeter",
+    template: "filter-noise",
+    params: { filterResistance: 100e6, filterCapacitance: 4.7e-12, shuntResistance: 100e6, temperature: 300 },
+    quantity: "settlingTime1pct",
+    unit: "ms",
+    prompt:
+      "A feedback ammeter's 20 nA range uses a {p.filterResistance|MΩ} feedback resistor with {p.filterCapacitance|pF} across it. How long after a step of current does its output take to come within 1 % of the final value?",
+  },
+  {
+    id: "fb-noise",
+    lesson: "feedback-ammeter",
+    template: "filter-noise",
+    params: { filterResistance: 100e6, filterCapacitance: 4.7e-12, shuntResistance: 100e6, temperature: 300 },
+    quantity: "thermalNoiseCurrent",
+    unit: "fA",
+    prompt:
+      "On the same range at {p.temperature|K}, what rms noise current does the {p.shuntResistance|MΩ} feedback resistor's own thermal noise add, over the noise bandwidth of its {p.filterCapacitance|pF} feedback capacitor?",
+  },
 ];
 
 /** Fills {p.name|unit} (optionally |sig) placeholders with the question's own inputs. "%x" shows a fraction as a percentage. */

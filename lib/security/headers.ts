@@ -11,7 +11,7 @@ export interface HeaderOptions {
   nonce: string;
   /** The app's public address (NEXTAUTH_URL); https turns on HSTS and upgrade-insecure-requests. */
   publicUrl?: string;
-  /** Where uploaded images are read from through signed URLs (the object storage's origin). */
+  /** The object storage's origin: uploaded images are read from it and uploads sent to it through signed URLs. */
   storageUrl?: string;
   dev?: boolean;
 }
@@ -37,7 +37,8 @@ export function contentSecurityPolicy(o: HeaderOptions): string {
     ["style-src", "'self'", "'unsafe-inline'"],
     ["img-src", "'self'", "data:", "blob:", ...(storage ? [storage] : [])],
     ["font-src", "'self'", "data:"],
-    ["connect-src", "'self'", ...(o.dev ? ["ws:"] : [])],
+    // the lab page sends uploads in parts straight to the object storage (signed URLs)
+    ["connect-src", "'self'", ...(storage ? [storage] : []), ...(o.dev ? ["ws:"] : [])],
     ["object-src", "'none'"],
     ["base-uri", "'self'"],
     ["form-action", "'self'"],

@@ -37,3 +37,51 @@ export function minMaxDecimate(t: ArrayLike<number>, i: ArrayLike<number>, maxPo
   outI.push(i[n - 1]);
   return { t: outT, i: outI };
 }
+
+/**
+ * Min/max per pixel column over a time window: the window [from, to] is cut into `columns` equal spans of
+ * time, and each span with samples gives its lowest and its highest sample in time order (one point when
+ * they are the same sample), so a burst narrower than a column still shows at its full height. Samples
+ * must be in increasing time; those outside the window are left out. When the window holds at most
+ * 2 × columns samples they are all returned as they are.
+ */
+export function minMaxColumns(t: ArrayLike<number>, i: ArrayLike<number>, from: number, to: number, columns: number): PlotPoints {
+  const n = Math.min(t.length, i.length);
+  if (!(columns >= 1)) throw new RangeError("columns must be at least 1");
+  let a = 0;
+  while (a < n && t[a] < from) a++;
+  let b = a;
+  while (b < n && t[b] <= to) b++;
+  const outT: number[] = [];
+  const outI: number[] = [];
+  if (b - a <= 2 * columns) {
+    for (let k = a; k < b; k++) {
+      outT.push(t[k]);
+      outI.push(i[k]);
+    }
+    return { t: outT, i: outI };
+  }
+  const span = (to - from) / Math.floor(columns);
+  let k = a;
+  while (k < b) {
+    const column = Math.min(Math.floor(columns) - 1, Math.floor((t[k] - from) / span));
+    const end = from + (column + 1) * span;
+    let lo = k;
+    let hi = k;
+    let m = k + 1;
+    for (; m < b && (t[m] < end || column === Math.floor(columns) - 1); m++) {
+      if (i[m] < i[lo]) lo = m;
+      if (i[m] > i[hi]) hi = m;
+    }
+    const first = Math.min(lo, hi);
+    const second = Math.max(lo, hi);
+    outT.push(t[first]);
+    outI.push(i[first]);
+    if (second !== first) {
+      outT.push(t[second]);
+      outI.push(i[second]);
+    }
+    k = m;
+  }
+  return { t: outT, i: outI };
+}

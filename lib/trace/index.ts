@@ -5,7 +5,7 @@ import { readTrace, type TraceInput } from "./parse";
 import type { TraceAnalysis, TraceOptions } from "./types";
 
 export { analyzeSamples, TraceError, type TraceStats } from "./analyze";
-export { minMaxDecimate, type PlotPoints } from "./decimate";
+export { minMaxColumns, minMaxDecimate, type PlotPoints } from "./decimate";
 export { currentScale, timeScale, formatCurrent, formatDuration, formatCharge, formatPercent, type Scale } from "./format";
 export { squareWaveCsv, squareWaveRows, type SquareWaveSpec } from "./generate";
 export { splitLevels, MIN_SEPARATION, type LevelSplit } from "./levels";
@@ -18,6 +18,14 @@ export type * from "./types";
  * with fewer than two good rows throws a TraceError.
  */
 export async function analyzeTrace(input: TraceInput, options: TraceOptions = {}): Promise<TraceAnalysis> {
+  return (await analyzeTraceSamples(input, options)).analysis;
+}
+
+/** analyzeTrace, also handing back the good samples (SI units) it analysed. */
+export async function analyzeTraceSamples(
+  input: TraceInput,
+  options: TraceOptions = {},
+): Promise<{ analysis: TraceAnalysis; samples: { t: Float64Array; i: Float64Array } }> {
   const read = await readTrace(input, options);
   const { t, i } = read.samples.views();
   let stats: TraceStats;
@@ -31,7 +39,7 @@ export async function analyzeTrace(input: TraceInput, options: TraceOptions = {}
     }
     throw err;
   }
-  return {
+  const analysis: TraceAnalysis = {
     ...stats,
     badRows: read.badRows,
     badRowExamples: read.badRowExamples,
@@ -39,4 +47,5 @@ export async function analyzeTrace(input: TraceInput, options: TraceOptions = {}
     format: read.format,
     warnings: [...read.warnings, ...stats.warnings],
   };
+  return { analysis, samples: { t, i } };
 }

@@ -8,7 +8,7 @@ import { fileTypeFromBuffer } from "file-type";
 import { db } from "@/db";
 import { deleteUnattachedUploads, insertUpload, lockOwnerUploads, storedBytes, type UploadRow } from "@/db/queries/uploads";
 import { AppError } from "@/lib/errors";
-import { deleteObjects, downloadName, maxUploadBytes, putObject, signedUrl, unattachedUploadHours, uploadQuotaBytes } from "@/lib/uploads/storage";
+import { abortMultipartUpload, deleteObjects, downloadName, maxUploadBytes, putObject, signedUrl, unattachedUploadHours, uploadQuotaBytes } from "@/lib/uploads/storage";
 import { analyzeTrace } from "@/lib/trace";
 import type { Params } from "@/lib/grader";
 
@@ -37,12 +37,26 @@ export function displayName(name: string): string {
   return Array.from(base).slice(0, 200).join("") || "upload";
 }
 
+/**
+ * What the first bytes of a file are, from the bytes alone: a PNG or JPEG image, or a CSV trace. Anything
+ * else is a 415 naming `field`.
+ */
+export async function sniffKind(head: Uint8Array, field = "file"): Promise<{ kind: "image" | "trace"; contentType: string }> {
+  const detected = await fileTypeFromBuffer(head);
+  if (detected && IMAGE_TYPES.has(detected.mime)) return { kind: "image", contentType: detected.mime };
+  if (!detected && looksLikeCsv(head)) return { kind: "trace", contentType: "text/csv" };
+  const what = detected ? `a ${detected.ext.toUpperCase()} file` : "not a PNG, JPEG or CSV file";
+  throw new AppError("unsupported_media_type", `That file is ${what}. Upload a scope capture as PNG or JPEG, or a logged trace as CSV (time and current).`, {
+    [field]: ["Only PNG or JPEG images and CSV traces are accepted."],
+  });
+}
+
 /** 413 naming `file` when `size` more bytes would take the owner past the quota. */
-function checkQuota(used: number, size: number): void {
+export function checkQuota(used: number, size: number, field = "file"): void {
   const quota = uploadQuotaBytes();
   if (used + size <= quota) return;
   const message = `Your stored files use ${mb(used)} of your ${mb(quota)}; this ${mb(size)} file does not fit. Files not attached to an attempt are removed after a day, or ask your instructor.`;
-  throw new AppError("payload_too_large", message, { file: [`Not enough storage left: ${mb(Math.max(0, quota - used))} of ${mb(quota)} free.`] });
+  throw new AppError("payload_too_large", message, { [field]: [`Not enough storage left: ${mb(Math.max(0, quota - used))} of ${mb(quota)} free.`] });
 }
 
 export async function acceptUpload(opts: {
@@ -59,21 +73,7 @@ export async function acceptUpload(opts: {
     throw new AppError("payload_too_large", `The file is ${mb(opts.bytes.byteLength)}; the limit is ${mb(cap)}.`, { file: [`Files may be at most ${mb(cap)}.`] });
   }
   checkQuota(await storedBytes(db, opts.ownerId), opts.bytes.byteLength);
-  const detected = await fileTypeFromBuffer(opts.bytes);
-  let kind: "image" | "trace";
-  let contentType: string;
-  if (detected && IMAGE_TYPES.has(detected.mime)) {
-    kind = "image";
-    contentType = detected.mime;
-  } else if (!detected && looksLikeCsv(opts.bytes)) {
-    kind = "trace";
-    contentType = "text/csv";
-  } else {
-    const what = detected ? `a ${detected.ext.toUpperCase()} file` : "not a PNG, JPEG or CSV file";
-    throw new AppError("unsupported_media_type", `That file is ${what}. Upload a scope capture as PNG or JPEG, or a logged trace as CSV (time and current).`, {
-      file: ["Only PNG or JPEG images and CSV traces are accepted."],
-    });
-  }
+  const { kind, contentType } = await sniffKind(opts.bytes);
   const sha256 = crypto.createHash("sha256").update(opts.bytes).digest("hex");
   let analysis: unknown = null;
   if (kind === "trace") {
@@ -124,6 +124,11 @@ export async function uploadView(u: UploadRow) {
     originalName: u.originalName,
     createdAt: u.createdAt,
     analysis: u.analysis,
+    status: u.status,
+    progress: u.progress,
+    failure: u.failure,
+    /** the samples are kept for zooming (GET /api/uploads/{id}/trace) */
+    zoomable: u.zoomable,
     url: await signedUrl(u.storageKey, 60, downloadName(u.originalName, u.contentType)),
     urlExpiresInSeconds: 60,
   };
@@ -137,9 +142,10 @@ export async function sweepUnattachedUploads(now = new Date()): Promise<number> 
   const before = new Date(now.getTime() - unattachedUploadHours() * 3600_000);
   let removed = 0;
   for (;;) {
-    const keys = await deleteUnattachedUploads(db, before);
-    if (keys.length === 0) return removed;
-    await deleteObjects(keys);
-    removed += keys.length;
+    const gone = await deleteUnattachedUploads(db, before);
+    if (gone.length === 0) return removed;
+    for (const g of gone) if (g.multipartId) await abortMultipartUpload(g.storageKey, g.multipartId);
+    await deleteObjects(gone.flatMap((g) => (g.samplesKey ? [g.storageKey, g.samplesKey] : [g.storageKey])));
+    removed += gone.length;
   }
 }

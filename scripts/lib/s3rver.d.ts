@@ -10,5 +10,8 @@ declare module "s3rver" {
     constructor(options: S3rverOptions);
     run(): Promise<{ address: string; port: number }>;
     close(): Promise<void>;
+    /** Koa's middleware list (s3rver extends Koa); composed when the server starts. */
+    middleware: ((ctx: never, next: () => Promise<unknown>) => unknown)[];
+    store: { getResourcePath(bucket: string, key: string | undefined, resource: string): string };
   }
 }

@@ -5,6 +5,7 @@ import path from "node:path";
 import S3rver from "s3rver";
 import { SMTPServer } from "smtp-server";
 import type { ServiceConfig } from "./config";
+import { multipartExtras, UPLOAD_BUCKET_CORS } from "./s3-multipart-extras";
 
 export const UPLOAD_BUCKET = "shuntwise-uploads";
 
@@ -50,8 +51,10 @@ export async function startStandIns(cfg: ServiceConfig): Promise<StandIns> {
     address: "127.0.0.1",
     silent: true,
     directory: s3Dir,
-    configureBuckets: [{ name: UPLOAD_BUCKET, configs: [] }],
+    configureBuckets: [{ name: UPLOAD_BUCKET, configs: [UPLOAD_BUCKET_CORS] }],
   });
+  // ListParts and AbortMultipartUpload, which s3rver lacks, answered before its own routes
+  s3.middleware.unshift(multipartExtras(s3.store) as (typeof s3.middleware)[number]);
   await s3.run();
 
   return {

@@ -303,6 +303,12 @@ const ROWS: Record<string, Row> = {
   // an empty file for the lab: past the access check, refused as empty
   "POST /api/uploads": { req: (w) => send("POST", "/api/uploads", uploadForm(w.labId, new Uint8Array(), "empty.png")), cells: cells(401, 404, 400, 400, 400, 400, 400) },
   "GET /api/uploads/[uploadId]": { req: (w) => `/api/uploads/${w.uploadId}`, cells: owner(200) },
+  // completing is its owner's alone; an upload completed before answers as it is
+  "POST /api/uploads/[uploadId]/complete": { req: (w) => send("POST", `/api/uploads/${w.uploadId}/complete`, ""), cells: cells(401, 404, 200, 404, 404, 404, 404) },
+  // the parts the store holds of an upload still being sent: its owner's alone (none left for a completed one)
+  "GET /api/uploads/[uploadId]/parts": { req: (w) => `/api/uploads/${w.uploadId}/parts`, cells: cells(401, 404, 200, 404, 404, 404, 404) },
+  // a window of a logged trace: the owner and the staff are told an image has no samples to zoom into
+  "GET /api/uploads/[uploadId]/trace": { req: (w) => `/api/uploads/${w.uploadId}/trace?from=0&to=1&points=100`, cells: owner(409) },
   "GET /api/templates": { req: () => "/api/templates", cells: signedIn(200) },
   "GET /api/me/preferences": { req: () => "/api/me/preferences", cells: signedIn(200) },
   "PATCH /api/me/preferences": { req: () => send("PATCH", "/api/me/preferences"), cells: signedIn(400) },

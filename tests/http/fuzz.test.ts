@@ -195,6 +195,19 @@ const TARGETS: Target[] = [
     },
   },
   {
+    // asking for an upload sent straight to storage (issue 26): a valid body starts a small multipart upload
+    name: "POST /api/uploads (JSON: an upload straight to storage)",
+    who: "student",
+    method: "POST",
+    path: () => "/api/uploads",
+    valid: () => ({ labId: w.labId, name: "fuzzed-trace.csv", size: 2048, type: "text/csv" }),
+    weight: 6,
+    values: {
+      size: fc.oneof(fc.integer(), fc.double(), fc.constantFrom(0, -1, 1, 2 ** 31, 2 ** 53, 200 * 1024 * 1024 + 1, "2048", null)),
+      type: fc.oneof(fc.constantFrom("text/csv", "image/png", "image/jpeg", "application/pdf", "", "TEXT/CSV", "text/csv; charset=utf-8"), fc.string({ maxLength: 30 })),
+    },
+  },
+  {
     name: "POST /api/courses/{courseId}/labs",
     who: "instructor",
     method: "POST",

@@ -19,7 +19,7 @@ beforeAll(async () => {
 
 describe("lesson pages", () => {
   it("there are the fourteen lessons of the syllabus", () => {
-    expect(slugs).toHaveLength(14);
+    expect(slugs).toHaveLength(15);
   });
 
   it.each(slugs)("%s renders with typeset math, a check-yourself section, sources and a caution", async (slug) => {

@@ -1,11 +1,17 @@
-import { json, readCapped, route } from "@/lib/http/route";
+import { json, jsonBody, readCapped, route } from "@/lib/http/route";
 import { requireCourseRole, requireUser } from "@/lib/auth/access";
 import { AppError } from "@/lib/errors";
 import { mb, acceptUpload } from "@/lib/uploads/accept";
 import { labAccess, variantFor } from "@/lib/labs/attempts";
 import { maxUploadBytes } from "@/lib/uploads/storage";
+import { requestUpload } from "@/lib/uploads/direct";
+import { uploadRequestSchema } from "@/lib/validation/uploads";
 
-// multipart/form-data with `file` and `labId` (or `courseId`). 201 with the upload's id.
+// Two ways in. JSON `{ labId, name, size, type }` asks for an upload sent straight to storage: 201 with
+// `{ upload: { id }, parts: [{ number, url }], partSize, expiresInSeconds }` (lib/uploads/direct.ts); the
+// parts go to the URLs with PUT, then POST /api/uploads/{id}/complete. multipart/form-data with `file` and
+// `labId` (or `courseId`) sends a small file (at most SHUNTWISE_MAX_UPLOAD_BYTES) through the app: 201
+// with the upload.
 // Who is calling is checked before a byte of the body is read; the body is counted as it streams and
 // cut at the limit (413) whether or not it declares a Content-Length.
 /** The id came in the form, not the address: a 404 for it names its field. */
@@ -16,6 +22,11 @@ const naming = (field: string, message: string) => (e: unknown): never => {
 
 export const POST = route(async (req) => {
   await requireUser();
+  if ((req.headers.get("content-type") ?? "").split(";")[0].trim().toLowerCase() === "application/json") {
+    const input = await jsonBody(req, uploadRequestSchema);
+    const { lab, access } = await labAccess(input.labId).catch(naming("labId", "No lab of yours has this id."));
+    return json(await requestUpload({ ownerId: access.user.id, courseId: lab.courseId, labId: lab.id, input }), 201);
+  }
   const cap = maxUploadBytes() + 64 * 1024; // the file plus the form's own lines
   let body: Uint8Array;
   try {

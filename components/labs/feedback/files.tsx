@@ -31,7 +31,7 @@ export function Files({ attempt, inline = false }: { attempt: AttemptView; inlin
       {!loading
         ? data.map((u) =>
             u.kind === "trace" && u.analysis ? (
-              <TracePanel key={u.id} name={u.originalName ?? "trace.csv"} analysis={u.analysis as TraceAnalysis} />
+              <TracePanel key={u.id} name={u.originalName ?? "trace.csv"} analysis={u.analysis as TraceAnalysis} uploadId={u.id} zoomable={u.zoomable === true} />
             ) : u.kind === "image" ? (
               <ScopeCapture key={u.id} upload={u} inline={inline} />
             ) : null,

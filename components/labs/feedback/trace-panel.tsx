@@ -4,8 +4,9 @@
 import { TracePlot } from "@/components/trace";
 import type { TraceAnalysis } from "@/lib/trace/types";
 import { traceRowsNote, traceUnitsNote } from "./trace-numbers";
+import { TraceZoom } from "./trace-zoom";
 
-export function TracePanel({ name, analysis }: { name: string; analysis: TraceAnalysis }) {
+export function TracePanel({ name, analysis, uploadId, zoomable = false }: { name: string; analysis: TraceAnalysis; uploadId?: string; zoomable?: boolean }) {
   const units = traceUnitsNote(analysis);
   return (
     <div className="card mt-3" data-testid="trace-analysis">
@@ -19,6 +20,7 @@ export function TracePanel({ name, analysis }: { name: string; analysis: TraceAn
       ) : (
         <p className="mt-2 text-sm text-ink-soft">This trace was stored without plot points.</p>
       )}
+      {zoomable && uploadId ? <TraceZoom uploadId={uploadId} duration={analysis.duration} /> : null}
       {analysis.warnings?.length ? (
         <ul className="mt-2 list-disc pl-6 text-sm text-ink-soft" aria-label="Notes on the trace">
           {analysis.warnings.map((w, k) => (

@@ -6,7 +6,7 @@ import type { PresentedAttempt } from "@/lib/labs/attempts";
 
 export type AttemptView = Jsonified<PresentedAttempt>;
 export type HistoryItem = { id: string; number: number; score: number; maxScore: number; submittedAt: string; studentId?: string; results: { verdict: string }[] };
-export type UploadView = { id: string; kind: "image" | "trace"; contentType: string; size: number; originalName?: string; url?: string; analysis: unknown };
+export type UploadView = { id: string; kind: "image" | "trace"; contentType: string; size: number; originalName?: string; url?: string; analysis: unknown; zoomable?: boolean };
 
 /** The sentence for a failed load, by the status the API answered with (0: no answer). */
 export function loadMessage(status: number, what: string): string {

@@ -1,6 +1,8 @@
 "use client";
 // One optional file of a submission (a scope capture or a logged trace). The file is uploaded as soon as
-// it is chosen, with a progress bar; a refusal (too large, wrong type) is shown under the field.
+// it is chosen, with a progress bar; a refusal (too large, wrong type) is shown under the field. A logged
+// trace (up to 200 MB) goes straight to storage in parts (./direct-upload.ts) and is then analysed on the
+// server, with the analysis's progress shown; an image goes through the app (./upload.ts).
 import { useEffect, useId, useRef, useState } from "react";
 import { formatQuantity } from "@/lib/grader/format";
 import { toApiError } from "@/lib/http/client";
@@ -9,7 +11,8 @@ import { sendUpload, type UploadedFile } from "./upload";
 
 type State =
   | { step: "idle" }
-  | { step: "uploading"; name: string; fraction: number }
+  | { step: "uploading"; name: string; fraction: number; retrying?: boolean }
+  | { step: "analysing"; name: string; fraction: number }
   | { step: "done"; name: string; upload: UploadedFile }
   | { step: "error"; name: string; message: string };
 
@@ -56,7 +59,47 @@ export function FileField({
 
   useEffect(() => () => abortRef.current?.(), []);
 
+  async function startDirect(file: File) {
+    abortRef.current?.();
+    onChange(null);
+    onBusy(true);
+    setState({ step: "uploading", name: file.name, fraction: 0 });
+    const stop = { stopped: false };
+    // the upload client (Uppy) is loaded only when a trace is chosen: the lab page's first load stays light
+    const { followAnalysis, sendDirect } = await import("./direct-upload");
+    const { done, abort } = sendDirect(file, labId, {
+      onProgress: (fraction) => setState((s) => (s.step === "uploading" && s.name === file.name ? { step: "uploading", name: s.name, fraction } : s)),
+      onRetrying: () => setState((s) => (s.step === "uploading" && s.name === file.name ? { ...s, retrying: true } : s)),
+    });
+    abortRef.current = () => {
+      stop.stopped = true;
+      abort();
+    };
+    try {
+      const sent = await done;
+      setState({ step: "analysing", name: file.name, fraction: sent.progress ?? 0 });
+      const upload = await followAnalysis(sent.id, (u) => setState((s) => (s.step === "analysing" && s.name === file.name ? { ...s, fraction: u.progress ?? s.fraction } : s)), stop);
+      if (stop.stopped) return;
+      if (upload.status === "failed") {
+        setState({ step: "error", name: file.name, message: upload.failure ?? "The trace could not be analysed." });
+        return;
+      }
+      setState({ step: "done", name: file.name, upload });
+      onChange(upload);
+    } catch (e) {
+      if (stop.stopped) return;
+      const err = e as { status?: number; detail?: Parameters<typeof uploadErrorMessage>[1] };
+      setState({ step: "error", name: file.name, message: uploadErrorMessage(err.status ?? 0, err.detail ?? toApiError(err.status ?? 0, null).detail) });
+    } finally {
+      if (!stop.stopped) {
+        abortRef.current = null;
+        onBusy(false);
+      }
+    }
+  }
+
   async function start(file: File) {
+    if (expectKind === "trace") return startDirect(file);
     abortRef.current?.();
     onChange(null);
     onBusy(true);
@@ -94,7 +137,7 @@ export function FileField({
 
   const error = state.step === "error" ? state.message : serverError;
   const statusId = `${id}-status`;
-  const pct = state.step === "uploading" ? Math.round(state.fraction * 100) : state.step === "done" ? 100 : 0;
+  const pct = state.step === "uploading" || state.step === "analysing" ? Math.round(state.fraction * 100) : state.step === "done" ? 100 : 0;
 
   return (
     <div className="mb-4" data-testid={testId}>
@@ -120,15 +163,15 @@ export function FileField({
         />
         {state.step !== "idle" ? (
           <button type="button" className="btn-quiet px-3 py-1" onClick={remove}>
-            {state.step === "uploading" ? "Cancel upload" : "Remove file"}
+            {state.step === "uploading" || state.step === "analysing" ? "Cancel upload" : "Remove file"}
           </button>
         ) : null}
       </div>
-      {state.step === "uploading" || state.step === "done" ? (
+      {state.step === "uploading" || state.step === "analysing" || state.step === "done" ? (
         <div className="mt-2">
           <div
             role="progressbar"
-            aria-label={`Upload of ${state.name}`}
+            aria-label={state.step === "analysing" ? `Analysis of ${state.name}` : `Upload of ${state.name}`}
             aria-valuemin={0}
             aria-valuemax={100}
             aria-valuenow={pct}
@@ -140,7 +183,12 @@ export function FileField({
         </div>
       ) : null}
       <div id={statusId} aria-live="polite" className="mt-1 text-sm">
-        {state.step === "uploading" ? <p className="text-ink-soft">Uploading {state.name}: {pct} %</p> : null}
+        {state.step === "uploading" ? (
+          <p className="text-ink-soft">
+            Uploading {state.name}: {pct} %{state.retrying ? " (connection lost; sending the missing parts again)" : ""}
+          </p>
+        ) : null}
+        {state.step === "analysing" ? <p className="text-ink-soft">Analysing {state.name} on the server: {pct} %</p> : null}
         {state.step === "done" ? (
           <p className="text-ink-soft">
             <span aria-hidden="true">✓ </span>

@@ -77,6 +77,8 @@ describe("check-yourself questions", () => {
     // by hand: 40/8 ms; |1/0.95 s − 1 Hz|
     ["burst-min-rate", "5 kHz", "by hand [FORMULA]"],
     ["burst-alias", "52.63 mHz", "by hand [FORMULA]"],
+    ["fb-settling", "2.164 ms", "PHYSICS.md §21 21b [FORMULA]"],
+    ["fb-noise", "296.9 fA", "PHYSICS.md §21 21b [FORMULA]"],
   ];
   for (const [id, answer, source] of domainAnswers) {
     it(`${id}: "${answer}" is graded correct (${source})`, () => {

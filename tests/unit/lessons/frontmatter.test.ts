@@ -12,7 +12,7 @@ const files = lessonFileNames();
 const source = (f: string) => fs.readFileSync(path.join(lessonsDir, f), "utf8");
 
 describe("lesson files", () => {
-  it("are the fourteen lessons of the course, in the order of the syllabus", () => {
+  it("are the fifteen lessons of the course, in the order of the syllabus", () => {
     expect(listLessons().map((l) => [l.order, l.slug])).toEqual([
       [1, "bench-safety"],
       [2, "burden-voltage"],
@@ -28,6 +28,7 @@ describe("lesson files", () => {
       [12, "leakage-and-guarding"],
       [13, "offsets-and-thermoelectric-voltages"],
       [14, "sampling-short-bursts"],
+      [15, "feedback-ammeter"],
     ]);
   });
 

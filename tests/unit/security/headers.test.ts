@@ -8,6 +8,8 @@ describe("securityHeaders", () => {
     expect(h["Strict-Transport-Security"]).toMatch(/^max-age=\d{7,}/);
     expect(h["Content-Security-Policy"]).toContain("upgrade-insecure-requests");
     expect(h["Content-Security-Policy"]).toContain("img-src 'self' data: blob: https://files.example;");
+    // uploads go to the storage in parts from the page (issue 26)
+    expect(h["Content-Security-Policy"]).toContain("connect-src 'self' https://files.example;");
   });
 
   test("http public address: no HSTS", () => {
