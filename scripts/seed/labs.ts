@@ -276,8 +276,10 @@ const LABS: DemoLab[] = [
       amplifierGain: list([10, 20, 50]),
       adcBits: list([12, 14]),
       adcReference: fixed(2.5),
+      repeatStdDev: list([20e-6, 50e-6]),
+      repeatCount: list([10, 25]),
     },
-    questions: [predict("tempcoContribution", 2), predict("quantisationContribution", 3), predict("combinedStandardUncertainty", 3), predict("dominantContribution", 2)],
+    questions: [predict("tempcoContribution", 2), predict("quantisationContribution", 3), predict("combinedStandardUncertainty", 3), predict("dominantContribution", 2), predict("repeatabilityContribution", 2)],
     showExpected: "after_due",
     instructions:
       "The front end reads your shunt through its amplifier and converter, as the teaching meter does. Write the budget table for one reading: every bound as a standard uncertainty, each times its sensitivity coefficient, combined in quadrature, and name the contribution that dominates.",

@@ -18,7 +18,7 @@ describe("a course's lessons", () => {
     await page.getByRole("link", { name: "Lessons" }).first().click();
     await page.waitForURL(/\/courses\/[0-9a-f-]{36}\/lessons$/);
     const items = page.locator("main ol > li");
-    expect(await items.count()).toBe(14);
+    expect(await items.count()).toBe(15);
     // the demo plan opens the last three lessons over the coming weeks
     expect(await page.getByText(/^opens /).count()).toBe(3);
     await items.first().getByRole("link").click();
@@ -48,8 +48,8 @@ describe("a course's lessons", () => {
     await s.page.getByRole("link", { name: "Measuring Small Currents" }).click();
     await s.page.getByRole("link", { name: "Lessons" }).first().click();
     await s.page.waitForURL(/\/lessons$/);
-    // the demo plan shows fourteen lessons; one is now hidden
-    expect(await s.page.locator("main ol > li").count()).toBe(13);
+    // the demo plan shows fifteen lessons; one is now hidden
+    expect(await s.page.locator("main ol > li").count()).toBe(14);
     expect(await s.page.getByText(/noise floor/i).count()).toBe(0);
     await s.context.close();
   });

@@ -20,9 +20,9 @@ describe("a course's lesson plan", () => {
   it("shows every lesson, open, in the syllabus order until the instructor sets a plan", async () => {
     const r = await as.student.json(path());
     expect(r.status).toBe(200);
-    expect(r.body.lessons.length).toBe(14);
+    expect(r.body.lessons.length).toBe(15);
     expect(r.body.lessons.every((l: { open: boolean }) => l.open)).toBe(true);
-    expect(r.body.lessons.map((l: { order: number }) => l.order)).toEqual([1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12, 13, 14]);
+    expect(r.body.lessons.map((l: { order: number }) => l.order)).toEqual([1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12, 13, 14, 15]);
   });
 
   it("lets only the instructor set it; others get 403 or 404", async () => {
@@ -95,7 +95,7 @@ describe("a course's lesson plan", () => {
     const student = await clientFor(g.people.student.email);
     const url = `/api/courses/${g.courseId}/lessons`;
     const catalogue = ((await student.json(url)).body.lessons as { slug: string; order: number }[]).map((l) => l.slug);
-    expect(catalogue).toHaveLength(14);
+    expect(catalogue).toHaveLength(15);
     // the instructor's own plan: lessons 1 to 11 in reverse order, lesson 5 hidden
     const own = catalogue.slice(0, 11).reverse();
     const saved = await instructor.json(url, {
@@ -106,7 +106,7 @@ describe("a course's lesson plan", () => {
     expect(saved.status).toBe(200);
     // left out of the plan: stored as hidden, so they do not appear
     expect(((await student.json(url)).body.lessons as { slug: string }[]).map((l) => l.slug)).toEqual(own.filter((s) => s !== catalogue[4]));
-    // a plan saved before lessons 12 to 14 existed has no rows for them
+    // a plan saved before lessons 12 to 15 existed has no rows for them
     const db = e2eDb();
     try {
       await db.deleteFrom("course_lessons").where("course_id", "=", g.courseId).where("slug", "in", catalogue.slice(11)).execute();
@@ -115,7 +115,7 @@ describe("a course's lesson plan", () => {
     }
     const seen = (await student.json(url)).body.lessons as { slug: string; open: boolean; visible: boolean }[];
     expect(seen.map((l) => l.slug)).toEqual([...own.filter((s) => s !== catalogue[4]), ...catalogue.slice(11)]);
-    expect(seen.slice(-3).every((l) => l.open && l.visible)).toBe(true);
+    expect(seen.slice(-4).every((l) => l.open && l.visible)).toBe(true);
     expect((await student.fetch(`/lessons/${catalogue[13]}`)).status).toBe(200);
     // the instructor's plan lists them too, so they can be hidden or dated like the others
     const staff = (await instructor.json(url)).body.lessons as { slug: string; visible: boolean }[];
